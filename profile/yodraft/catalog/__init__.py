@@ -1,0 +1,1 @@
+"""Catalogs of standard parts and materials; every row names its source."""

@@ -1,0 +1,54 @@
+"""The error family: bad input (exit 2) and a failed design rule (exit 1)."""
+from __future__ import annotations
+
+from collections.abc import Sequence
+from typing import TYPE_CHECKING
+
+if TYPE_CHECKING:  # pragma: no cover
+    from .checks import Check
+
+__all__ = ["YodraftError", "DesignInputError", "CheckFailure"]
+
+
+class YodraftError(Exception):
+    """Base of every error yodraft raises on purpose."""
+
+    exit_code = 2
+
+
+class DesignInputError(YodraftError, ValueError):
+    """Input that cannot be read: names the file, the key path and what was expected.
+
+    >>> str(DesignInputError("a.toml", "envelope.diameter", "got 56", "a length with a unit, e.g. \\"56 mm\\""))
+    'a.toml: envelope.diameter: got 56 (expected a length with a unit, e.g. "56 mm")'
+    """
+
+    exit_code = 2
+
+    def __init__(self, file: str, key: str, problem: str, expected: str = "") -> None:
+        self.file = file
+        self.key = key
+        self.problem = problem
+        self.expected = expected
+        super().__init__(file, key, problem, expected)
+
+    def __str__(self) -> str:
+        text = f"{self.file}: {self.key}: {self.problem}" if self.key else f"{self.file}: {self.problem}"
+        if self.expected:
+            text += f" (expected {self.expected})"
+        return " ".join(text.split())  # always one line
+
+
+class CheckFailure(YodraftError):
+    """A design that reads fine but breaks one or more of the trade's rules."""
+
+    exit_code = 1
+
+    def __init__(self, file: str, failed: Sequence["Check"]) -> None:
+        self.file = file
+        self.failed = tuple(failed)
+        super().__init__(file, self.failed)
+
+    def __str__(self) -> str:
+        names = ", ".join(f"{c.name} ({c.feature}.{c.parameter})" for c in self.failed)
+        return f"{self.file}: {len(self.failed)} check(s) failed: {names}"

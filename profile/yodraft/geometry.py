@@ -1,0 +1,251 @@
+"""Exact profile geometry: lines, circular arcs and the closed loop they make.
+
+Points are ``(z, r)`` tuples in millimetres: z along the spin axis from the gap
+plane outward, r from the spin axis. A Profile is one closed, counter-clockwise
+loop; flattening (for shapely and previews) is the only approximation.
+
+>>> square = Profile.from_points([(0, 1), (1, 1), (1, 2), (0, 2)])
+>>> round(square.signed_area(), 12)
+1.0
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from typing import Union
+
+import shapely
+
+__all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "GeometryError"]
+
+Point = tuple[float, float]
+CLOSE_TOL = 1e-9
+
+
+class GeometryError(ValueError):
+    """Geometry that cannot be composed (an open loop, a fillet that does not fit)."""
+
+
+def _dist(a: Point, b: Point) -> float:
+    return math.hypot(b[0] - a[0], b[1] - a[1])
+
+
+@dataclass(frozen=True)
+class Line:
+    """A straight segment from ``start`` to ``end``."""
+
+    start: Point
+    end: Point
+
+    @property
+    def length(self) -> float:
+        return _dist(self.start, self.end)
+
+    def points(self, tol: float = 0.01) -> list[Point]:
+        """Start point only; the next segment supplies the end."""
+        return [self.start]
+
+    def reversed(self) -> "Line":
+        return Line(self.end, self.start)
+
+    def mirrored(self) -> "Line":
+        """Mirror about the spin axis (r → −r)."""
+        return Line((self.start[0], -self.start[1]), (self.end[0], -self.end[1]))
+
+
+@dataclass(frozen=True)
+class Arc:
+    """A circular arc: centre, radius, start angle and signed sweep (radians, + is CCW)."""
+
+    center: Point
+    radius: float
+    start_angle: float
+    sweep: float
+
+    def __post_init__(self) -> None:
+        if not (self.radius > 0 and math.isfinite(self.radius)):
+            raise GeometryError(f"arc radius must be positive, got {self.radius}")
+        if not (0 < abs(self.sweep) <= 2 * math.pi):
+            raise GeometryError(f"arc sweep must be in (0, 2π], got {self.sweep}")
+
+    def point_at(self, angle: float) -> Point:
+        return (self.center[0] + self.radius * math.cos(angle), self.center[1] + self.radius * math.sin(angle))
+
+    @property
+    def end_angle(self) -> float:
+        return self.start_angle + self.sweep
+
+    @property
+    def start(self) -> Point:
+        return self.point_at(self.start_angle)
+
+    @property
+    def end(self) -> Point:
+        return self.point_at(self.end_angle)
+
+    @property
+    def length(self) -> float:
+        return self.radius * abs(self.sweep)
+
+    @property
+    def bulge(self) -> float:
+        """DXF polyline bulge of this arc: tan(sweep / 4), positive for CCW."""
+        return math.tan(self.sweep / 4)
+
+    def points(self, tol: float = 0.01) -> list[Point]:
+        """Start point and interior points with chord error at most ``tol``."""
+        step = 2 * math.acos(max(-1.0, 1 - tol / self.radius)) if tol < self.radius else math.pi / 2
+        n = max(2, math.ceil(abs(self.sweep) / max(step, 1e-6)))
+        return [self.point_at(self.start_angle + self.sweep * i / n) for i in range(n)]
+
+    def reversed(self) -> "Arc":
+        return Arc(self.center, self.radius, self.end_angle, -self.sweep)
+
+    def mirrored(self) -> "Arc":
+        return Arc((self.center[0], -self.center[1]), self.radius, -self.start_angle, -self.sweep)
+
+
+Segment = Union[Line, Arc]
+
+
+@dataclass(frozen=True)
+class Profile:
+    """One closed loop of lines and arcs in the (z, r) half-plane."""
+
+    segments: tuple[Segment, ...]
+
+    def __post_init__(self) -> None:
+        if len(self.segments) < 2:
+            raise GeometryError("a profile needs at least two segments")
+        for a, b in zip(self.segments, self.segments[1:] + self.segments[:1]):
+            if _dist(a.end, b.start) > CLOSE_TOL * max(1.0, abs(a.end[0]) + abs(a.end[1])) * 1e3:
+                raise GeometryError(f"loop is open between {a.end} and {b.start}")
+
+    @classmethod
+    def from_points(cls, points: list[Point]) -> "Profile":
+        """A polygon profile through ``points`` (closed automatically)."""
+        pts = [(float(z), float(r)) for z, r in points]
+        return cls(tuple(Line(a, b) for a, b in zip(pts, pts[1:] + pts[:1])))
+
+    def flatten(self, tol: float = 0.01) -> list[Point]:
+        """Polygon vertices approximating the loop within ``tol`` mm (not closed)."""
+        out: list[Point] = []
+        for seg in self.segments:
+            out.extend(seg.points(tol))
+        return out
+
+    def polygon(self, tol: float = 0.005) -> shapely.Polygon:
+        """A shapely polygon of the flattened loop."""
+        return shapely.Polygon(self.flatten(tol))
+
+    def signed_area(self) -> float:
+        """Exact signed area (positive for a counter-clockwise loop), by Green's theorem."""
+        total = 0.0
+        for seg in self.segments:
+            (z0, r0), (z1, r1) = seg.start, seg.end
+            total += 0.5 * (z0 * r1 - z1 * r0)
+            if isinstance(seg, Arc):
+                # the circular segment between chord and arc
+                total += 0.5 * seg.radius**2 * (seg.sweep - math.sin(seg.sweep))
+        return total
+
+    def bounds(self) -> tuple[float, float, float, float]:
+        """Exact (z_min, r_min, z_max, r_max), arcs included."""
+        zs: list[float] = []
+        rs: list[float] = []
+        for seg in self.segments:
+            for p in (seg.start, seg.end):
+                zs.append(p[0])
+                rs.append(p[1])
+            if isinstance(seg, Arc):
+                for k in range(-8, 9):
+                    a = k * math.pi / 2
+                    lo, hi = sorted((seg.start_angle, seg.end_angle))
+                    if lo < a < hi:
+                        z, r = seg.point_at(a)
+                        zs.append(z)
+                        rs.append(r)
+        return min(zs), min(rs), max(zs), max(rs)
+
+    def mirrored(self) -> "Profile":
+        """The mirror image about the spin axis, reversed so it is again counter-clockwise."""
+        return Profile(tuple(s.mirrored().reversed() for s in reversed(self.segments)))
+
+    def translated(self, dz: float) -> "Profile":
+        """The loop moved ``dz`` along the axis."""
+        moved: list[Segment] = []
+        for s in self.segments:
+            if isinstance(s, Line):
+                moved.append(Line((s.start[0] + dz, s.start[1]), (s.end[0] + dz, s.end[1])))
+            else:
+                moved.append(Arc((s.center[0] + dz, s.center[1]), s.radius, s.start_angle, s.sweep))
+        return Profile(tuple(moved))
+
+
+@dataclass(frozen=True)
+class FilletVertex:
+    """A loop corner, optionally rounded with ``radius``; ``owner`` names the feature.parameter of the radius."""
+
+    point: Point
+    radius: float = 0.0
+    owner: str = ""
+
+
+def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
+    """Compose a closed loop through ``vertices``, rounding each corner that has a radius.
+
+    The sharp corner stays the dimensioned (theoretical) point; the fillet is
+    tangent to both edges. Returns the profile and the owners of radii that do
+    not fit on their edges (those corners are left sharp).
+    """
+    n = len(vertices)
+    pts = [v.point for v in vertices]
+    # drop repeated points so every edge has a direction
+    keep = [i for i in range(n) if _dist(pts[i], pts[(i + 1) % n]) > 1e-9]
+    vertices = [vertices[i] for i in keep]
+    pts = [v.point for v in vertices]
+    n = len(vertices)
+    if n < 3:
+        raise GeometryError("a loop needs at least three distinct corners")
+    tangent = [0.0] * n
+    plans: list[tuple[Point, Point, Arc] | None] = [None] * n
+    misfits: list[str] = []
+    for i, v in enumerate(vertices):
+        if v.radius <= 0:
+            continue
+        prev, here, nxt = pts[i - 1], pts[i], pts[(i + 1) % n]
+        u1 = ((prev[0] - here[0]) / _dist(prev, here), (prev[1] - here[1]) / _dist(prev, here))
+        u2 = ((nxt[0] - here[0]) / _dist(nxt, here), (nxt[1] - here[1]) / _dist(nxt, here))
+        cos_full = max(-1.0, min(1.0, u1[0] * u2[0] + u1[1] * u2[1]))
+        half = math.acos(cos_full) / 2
+        if half < 1e-6 or half > math.pi / 2 - 1e-6:
+            continue  # straight or folded back: nothing to round
+        t = v.radius / math.tan(half)
+        bis = (u1[0] + u2[0], u1[1] + u2[1])
+        bl = math.hypot(*bis)
+        center = (here[0] + bis[0] / bl * v.radius / math.sin(half), here[1] + bis[1] / bl * v.radius / math.sin(half))
+        t1 = (here[0] + u1[0] * t, here[1] + u1[1] * t)
+        t2 = (here[0] + u2[0] * t, here[1] + u2[1] * t)
+        turn = (here[0] - prev[0]) * (nxt[1] - here[1]) - (here[1] - prev[1]) * (nxt[0] - here[0])
+        sweep = (math.pi - 2 * half) * (1 if turn > 0 else -1)
+        a0 = math.atan2(t1[1] - center[1], t1[0] - center[0])
+        tangent[i] = t
+        plans[i] = (t1, t2, Arc(center, v.radius, a0, sweep))
+    for i in range(n):
+        j = (i + 1) % n
+        if tangent[i] + tangent[j] > _dist(pts[i], pts[j]) + 1e-9:
+            for k in (i, j):
+                if plans[k] is not None:
+                    misfits.append(vertices[k].owner or f"corner {k}")
+                    plans[k] = None
+                    tangent[k] = 0.0
+    segments: list[Segment] = []
+    for i in range(n):
+        j = (i + 1) % n
+        start = plans[i][1] if plans[i] else pts[i]
+        end = plans[j][0] if plans[j] else pts[j]
+        if _dist(start, end) > 1e-9:
+            segments.append(Line(start, end))
+        if plans[j]:
+            segments.append(plans[j][2])
+    return Profile(tuple(segments)), sorted(set(misfits))

@@ -1,0 +1,84 @@
+"""Quantities at the edge: the one pint registry, strict parsing and formatting.
+
+Inside yodraft every length is a float in millimetres, every mass in grams and
+every angle in radians. Text such as ``"0.25 in"`` is turned into those floats
+here and nowhere else. Parsing is a strict pattern (a number, then a unit):
+no expression of user text is ever evaluated.
+
+>>> parse_quantity("0.25 in", "length")
+6.35
+>>> round(parse_quantity("22 deg", "angle"), 6)
+0.383972
+"""
+from __future__ import annotations
+
+import functools
+import math
+import re
+
+import pint
+
+__all__ = ["registry", "parse_quantity", "KINDS", "MM_PER_INCH", "format_mm_in", "UnitError"]
+
+MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
+
+#: the base unit each kind is converted to, and how a user would write one
+KINDS: dict[str, tuple[str, str]] = {
+    "length": ("millimeter", 'a length with a unit, e.g. "12.7 mm" or "0.5 in"'),
+    "mass": ("gram", 'a mass with a unit, e.g. "66 g"'),
+    "angle": ("radian", 'an angle with a unit, e.g. "15 deg"'),
+    "torque": ("newton * millimeter", 'a torque with a unit, e.g. "0.02 N*mm"'),
+    "density": ("gram / centimeter ** 3", 'a density with a unit, e.g. "2.70 g/cm^3"'),
+    "speed": ("revolution / minute", 'a spin rate with a unit, e.g. "10000 rpm"'),
+    "roughness": ("micrometer", 'a roughness with a unit, e.g. "0.8 um"'),
+}
+
+_NUMBER = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?"
+_UNIT = r"[A-Za-zµμ°][A-Za-z0-9µμ°_]*(?:\s*(?:\*\*|\^|[*/])\s*[A-Za-z0-9µμ°_]+)*"
+_PATTERN = re.compile(rf"^\s*({_NUMBER})\s*({_UNIT})\s*$")
+
+
+class UnitError(ValueError):
+    """A quantity text that is not a number followed by a unit of the right kind."""
+
+
+@functools.cache
+def registry() -> pint.UnitRegistry:
+    """The one unit registry (created on first use; creating one costs ~0.2 s)."""
+    ureg = pint.UnitRegistry(autoconvert_offset_to_baseunit=False)
+    return ureg
+
+
+def parse_quantity(text: object, kind: str) -> float:
+    """Parse ``"<number> <unit>"`` and return it in the base unit of ``kind``.
+
+    Raises UnitError with a short description of what was wrong.
+    """
+    base, expected = KINDS[kind]
+    if isinstance(text, bool) or not isinstance(text, str):
+        if isinstance(text, (int, float)):
+            raise UnitError(f"got the bare number {text!r}")
+        raise UnitError(f"got {type(text).__name__} {str(text)[:40]!r}")
+    match = _PATTERN.match(text)
+    if not match:
+        raise UnitError(f"cannot read {text[:60]!r} as a number followed by a unit")
+    number, unit = match.groups()
+    unit = unit.replace("^", "**").replace("μ", "u").replace("µ", "u").replace("°", "deg")
+    ureg = registry()
+    try:
+        quantity = ureg.Quantity(float(number), ureg.parse_units(unit))
+        value = float(quantity.to(base).magnitude)
+    except (pint.UndefinedUnitError, pint.DimensionalityError, AttributeError, TypeError, ValueError, KeyError, SyntaxError):
+        raise UnitError(f"{unit!r} is not a unit of {kind}") from None
+    if not math.isfinite(value):
+        raise UnitError(f"{text[:60]!r} is not a finite number")
+    return value
+
+
+def format_mm_in(mm: float, digits_mm: int = 3, digits_in: int = 4) -> str:
+    """A length in millimetres with its inch value in brackets.
+
+    >>> format_mm_in(6.32968)
+    '6.330 mm [0.2492 in]'
+    """
+    return f"{mm:.{digits_mm}f} mm [{mm / MM_PER_INCH:.{digits_in}f} in]"
