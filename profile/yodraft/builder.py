@@ -1,0 +1,119 @@
+"""The builder: resolves the features in order, composes the loop and runs every check."""
+from __future__ import annotations
+
+from collections.abc import Mapping
+from dataclasses import dataclass
+from types import MappingProxyType
+from typing import Any
+
+from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
+from .catalog.materials import MATERIALS, lookup_material
+from .checks import Check, loop_checks, radial_order, wall_checks
+from .design import Design
+from .errors import DesignInputError
+from .features import FEATURES, LOOP_ORDER
+from .features.base import Context, FeatureResult
+from .geometry import GeometryError, Profile, fillet_loop
+from .params import check_unknown
+from .tolerances.bearings import PRECISION_CLASSES, bearing_deviation_um
+
+__all__ = ["Resolved", "build", "resolve_bearing", "resolve_material"]
+
+
+@dataclass(frozen=True)
+class Resolved:
+    """A design resolved: every feature's dimensions, the half-profile and every check."""
+
+    design: Design
+    values: Mapping[str, Any]
+    features: Mapping[str, FeatureResult]
+    profile: Profile | None
+    checks: tuple[Check, ...]
+
+    @property
+    def ok(self) -> bool:
+        return all(c.ok for c in self.checks)
+
+    @property
+    def failed(self) -> tuple[Check, ...]:
+        return tuple(c for c in self.checks if not c.ok)
+
+    def __getitem__(self, key: str) -> Any:
+        return self.values[key]
+
+
+def resolve_bearing(design: Design) -> dict[str, Any]:
+    """The chosen bearing's nominal sizes, mass and precision-class deviations, keyed "bearing.*"."""
+    b = design["bearing"]
+    explicit = [k for k in ("bore", "od", "width") if b[k] is not None]
+    if explicit and len(explicit) < 3:
+        missing = next(k for k in ("bore", "od", "width") if b[k] is None)
+        raise DesignInputError(design.source, f"bearing.{missing}", "is missing",
+                               "bore, od and width together, or a size alone")
+    if explicit:
+        designation, bore, od, width, mass, inch = "custom", b["bore"], b["od"], b["width"], 0.0, False
+        if not bore < od:
+            raise DesignInputError(design.source, "bearing.od", "is not larger than the bore", "od above bore")
+    else:
+        try:
+            row = lookup_bearing(b["size"])
+        except KeyError:
+            check_unknown({b["size"]: None}, list(LETTER_SIZES) + list(BEARINGS), design.source, "bearing.size", "bearing")
+            raise
+        designation, bore, od, width, mass, inch = row.designation, row.bore_mm, row.od_mm, row.width_mm, row.mass_g, row.inch
+    if b["mass"] is not None:
+        mass = b["mass"]
+    try:
+        bore_dev = bearing_deviation_um(b["precision"], "bore", bore)
+        od_dev = bearing_deviation_um(b["precision"], "od", od)
+    except KeyError:
+        check_unknown({b["precision"]: None}, list(PRECISION_CLASSES), design.source, "bearing.precision", "precision class")
+        raise
+    if b["bore_tolerance"] is not None:
+        bore_dev = (0.0, -1000.0 * b["bore_tolerance"])
+    if b["od_tolerance"] is not None:
+        od_dev = (0.0, -1000.0 * b["od_tolerance"])
+    return {"bearing.designation": designation, "bearing.bore": bore, "bearing.od": od, "bearing.width": width,
+            "bearing.mass": mass, "bearing.inch": inch, "bearing.precision": b["precision"],
+            "bearing.bore_deviation_um": bore_dev, "bearing.od_deviation_um": od_dev}
+
+
+def resolve_material(design: Design) -> dict[str, Any]:
+    """The body material's name, density and thread-engagement factor, keyed "material.*"."""
+    name = design["design"]["material"]
+    try:
+        m = lookup_material(name)
+    except KeyError:
+        check_unknown({name: None}, list(MATERIALS), design.source, "design.material", "material")
+        raise
+    density = design["design"]["density"] or m.density_g_cm3
+    return {"material.name": m.name, "material.density_g_cm3": density,
+            "material.engagement_factor": m.engagement_factor, "material.source": m.source}
+
+
+def build(design: Design) -> Resolved:
+    """Resolve every feature of ``design`` in order, compose the half-profile and check it."""
+    values: dict[str, Any] = {}
+    values.update(resolve_bearing(design))
+    values.update(resolve_material(design))
+    values.update({f"envelope.{k}": v for k, v in design["envelope"].items()})
+    results: dict[str, FeatureResult] = {}
+    for name, module in FEATURES.items():
+        result = module.resolve(Context(design, MappingProxyType(dict(values))), design.features[name])
+        results[name] = result
+        values.update({f"{name}.{k}": v for k, v in result.dims.items()})
+    vertices = [v for feature, chunk in LOOP_ORDER for v in results[feature].chunks[chunk]]
+    try:
+        profile, misfits = fillet_loop(vertices)
+    except GeometryError:
+        profile, misfits = None, []
+    chunks = {f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in LOOP_ORDER}
+    checks: list[Check] = [c for r in results.values() for c in r.checks]
+    checks += radial_order(values)
+    checks += wall_checks(values, chunks, design["shop"]["min_wall"])
+    checks += loop_checks(profile, design["envelope"], misfits)
+    if profile is not None:
+        z_min, _, z_max, r_max = profile.bounds()
+        values.update({"profile.outer_diameter": 2 * r_max, "profile.width": 2 * z_max,
+                       "profile.gap": values["bearing_seat.gap"], "profile.post_length": values["bearing_seat.post_length"]})
+    return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks))

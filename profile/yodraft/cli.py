@@ -1,0 +1,79 @@
+"""Command line: parse arguments, call the library, print, choose the exit code (0 ok, 1 check failed, 2 bad input)."""
+from __future__ import annotations
+
+import argparse
+import json
+import sys
+from collections.abc import Sequence
+from pathlib import Path
+from typing import Any
+
+from . import __version__
+from .errors import DesignInputError, YodraftError
+
+__all__ = ["main"]
+
+
+class _Parser(argparse.ArgumentParser):
+    """argparse that reports a usage error as one line and exit 2."""
+
+    def error(self, message: str) -> None:  # type: ignore[override]
+        raise DesignInputError(self.prog, "", message, f"see '{self.prog} --help'")
+
+
+def _parser() -> argparse.ArgumentParser:
+    top = _Parser(prog="yodraft", description="Half-profile sketcher for ball-bearing yo-yos: checks a design file "
+                  "and writes a dimensioned, toleranced DXF shop drawing.")
+    top.add_argument("--version", action="version", version=f"yodraft {__version__}")
+    sub = top.add_subparsers(dest="command", required=True, parser_class=_Parser)
+    p = sub.add_parser("check", help="resolve a design and run every check")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.set_defaults(run=_check)
+    p = sub.add_parser("build", help="check a design, then write its drawing into out/")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("-o", "--out", default="out", help="output folder (default: out)")
+    p.set_defaults(run=_build)
+    return top
+
+
+def _check(args: argparse.Namespace) -> int:
+    from .builder import build
+    from .design import load
+    from .summary import summary
+    from .textout import check_text
+
+    resolved = build(load(args.design))
+    if args.json:
+        print(json.dumps(summary(resolved), indent=2, sort_keys=False, ensure_ascii=False))
+    else:
+        print(check_text(resolved))
+    return 0 if resolved.ok else 1
+
+
+def _build(args: argparse.Namespace) -> int:
+    from .output import build_outputs
+
+    written, resolved = build_outputs(Path(args.design), Path(args.out))
+    if not resolved.ok:
+        from .textout import failed_lines
+
+        print("\n".join(failed_lines(resolved)), file=sys.stderr)
+        print("nothing written: fix the failed checks first", file=sys.stderr)
+        return 1
+    for path in written:
+        print(path)
+    return 0
+
+
+def main(argv: Sequence[str] | None = None) -> int:
+    """Entry point of the ``yodraft`` command."""
+    try:
+        args = _parser().parse_args(argv)
+        return int(args.run(args))
+    except YodraftError as exc:
+        print(f"yodraft: {exc}", file=sys.stderr)
+        return exc.exit_code
+    except KeyboardInterrupt:
+        print("yodraft: interrupted", file=sys.stderr)
+        return 130

@@ -1,0 +1,205 @@
+"""Design file (TOML) → Design: plain floats in mm, g and rad, with key paths kept for messages."""
+from __future__ import annotations
+
+import math
+import re
+import tomllib
+from collections.abc import Mapping
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+from .errors import DesignInputError
+from .features import FEATURES
+from .params import ParamSpec, check_unknown, read_table
+
+__all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "NAME_PATTERN"]
+
+IN = 25.4
+DEG = math.pi / 180
+NAME_PATTERN = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")
+DATE_PATTERN = re.compile(r"^\d{4}-\d{2}-\d{2}$")
+
+SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
+    "design": (
+        ParamSpec("name", "text", "design name, used in output file names (letters, digits, . _ -)", max_length=64),
+        ParamSpec("revision", "text", "revision letter or number shown in the title block", "A", max_length=8),
+        ParamSpec("title", "text", "title shown in the title block", ""),
+        ParamSpec("owner", "text", "legal owner of the drawing (title block)", ""),
+        ParamSpec("identification", "text", "drawing identification number (title block)", ""),
+        ParamSpec("creator", "text", "who drew it (title block)", ""),
+        ParamSpec("approver", "text", "who approved it (title block)", ""),
+        ParamSpec("date", "text", "date of issue, YYYY-MM-DD; also fixes the DXF header dates", "2026-01-01", max_length=10),
+        ParamSpec("material", "text", "body material from the catalog", "6061-T6", max_length=40),
+        ParamSpec("density", "density", "overrides the catalog density of the material", None, 0.1, 25.0),
+        ParamSpec("drawing_units", "text", "primary units on the drawing", "mm", choices=("mm", "in")),
+    ),
+    "envelope": (
+        ParamSpec("diameter", "length", "largest outer diameter allowed", None, 10.0, 120.0),
+        ParamSpec("width", "length", "largest assembled overall width allowed", None, 10.0, 120.0),
+        ParamSpec("target_mass", "mass", "assembled mass the design aims at (for solve and the report)", None, 1.0, 1000.0),
+    ),
+    "bearing": (
+        ParamSpec("size", "text", 'trade letter size ("C") or catalog designation ("MR105ZZ")', "C", max_length=20),
+        ParamSpec("bore", "length", "explicit bearing bore (with od and width, instead of size)", None, 0.6, 18.0),
+        ParamSpec("od", "length", "explicit bearing outside diameter", None, 2.5, 30.0),
+        ParamSpec("width", "length", "explicit bearing width", None, 0.5, 20.0),
+        ParamSpec("mass", "mass", "overrides the catalog bearing mass", None, 0.0, 100.0, lo_closed=True),
+        ParamSpec("precision", "text", 'precision class, ISO 492 ("P4") or ABEC ("ABEC 7")', "ABEC 1", max_length=12),
+        ParamSpec("bore_tolerance", "length", "overrides the class: bore deviation 0/−this", None, 0.0, 0.05, lo_closed=True),
+        ParamSpec("od_tolerance", "length", "overrides the class: outside-diameter deviation 0/−this", None, 0.0, 0.05, lo_closed=True),
+    ),
+    "shop": (
+        ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, 0.0, 0.5),
+        ParamSpec("fit_clearance", "length", "diametral clearance wanted at the seat on top of the worst case", 0.0005 * IN, 0.0, 0.5, lo_closed=True),
+        ParamSpec("coating", "text", "finish of the body", "none", choices=("none", "anodize type II", "anodize type III", "bead blast")),
+        ParamSpec("coating_thickness", "length", "coating thickness", 0.0, 0.0, 0.1, lo_closed=True),
+        ParamSpec("coating_outward_share", "number", "share of the coating thickness that builds outward", 0.5, 0.0, 1.0, lo_closed=True),
+        ParamSpec("mask_seat", "bool", "mask the bearing seat from coating (else turn it to pre-coat size)", False),
+        ParamSpec("general_tolerance", "text", "general tolerance for unmarked dimensions", "ISO 2768-m",
+                  choices=("ISO 2768-f", "ISO 2768-m", "ISO 2768-c")),
+        ParamSpec("min_wall", "length", "thinnest wall the shop will turn", 0.5, 0.05, 10.0),
+        ParamSpec("seat_roughness", "roughness", "surface roughness Ra of the bearing seat", 0.8, 0.0, 25.0),
+        ParamSpec("break_edges", "length", "edge break for unmarked edges (ISO 13715)", 0.2, 0.0, 2.0, lo_closed=True),
+    ),
+    "parts": (
+        ParamSpec("axle_mass", "mass", "overrides the computed axle mass", None, 0.0, 100.0, lo_closed=True),
+        ParamSpec("pad_mass", "mass", "overrides the computed mass of one response pad", None, 0.0, 50.0, lo_closed=True),
+    ),
+    "analysis": (
+        ParamSpec("spin_rate", "speed", "reference spin rate for energy, momentum and balance", 10000.0, 1.0, 100000.0),
+        ParamSpec("drag_torque", "torque", "bearing drag torque for the spin-down estimate", 0.002, 0.0, 100.0),
+        ParamSpec("balance_grade", "number", "ISO 21940-11 balance quality grade G (mm/s)", 6.3, 0.0, 4000.0),
+        ParamSpec("rim_radius_ratio", "number", "rim-weight share counts Izz outside this share of the outer radius", 0.8, 0.0, 1.0),
+    ),
+}
+REVISION_SPECS = (
+    ParamSpec("letter", "text", "revision letter", max_length=8),
+    ParamSpec("date", "text", "date of the revision, YYYY-MM-DD", max_length=10),
+    ParamSpec("note", "text", "what changed", "", max_length=200),
+)
+_REQUIRED = {"design": ("name",), "envelope": ("diameter", "width")}
+
+
+@dataclass(frozen=True)
+class Revision:
+    """One line of the revision history."""
+
+    letter: str
+    date: str
+    note: str
+
+
+@dataclass(frozen=True)
+class Design:
+    """A design file read into plain values (mm, g, rad) per section and per feature."""
+
+    source: str
+    sections: Mapping[str, Mapping[str, Any]]
+    features: Mapping[str, Mapping[str, Any]]
+    given: frozenset[str]
+    revisions: tuple[Revision, ...] = field(default=())
+    raw: Mapping[str, Any] = field(default_factory=dict, compare=False, repr=False)
+
+    def __getitem__(self, section: str) -> Mapping[str, Any]:
+        return self.sections[section]
+
+    @property
+    def name(self) -> str:
+        return self.sections["design"]["name"]
+
+    @property
+    def revision(self) -> str:
+        return self.sections["design"]["revision"]
+
+    def is_given(self, key: str) -> bool:
+        """Whether ``key`` (e.g. "features.rim.width") was written in the file."""
+        return key in self.given
+
+
+def load(path: str | Path) -> Design:
+    """Read a design file; DesignInputError names the file and key for anything wrong."""
+    p = Path(path)
+    name = str(path)
+    if p.is_dir():
+        raise DesignInputError(name, "", "is a directory", "a design file (.toml)")
+    try:
+        data = p.read_bytes()
+    except FileNotFoundError:
+        raise DesignInputError(name, "", "no such file", "a design file (.toml)") from None
+    except OSError as exc:
+        raise DesignInputError(name, "", f"cannot be read ({exc.strerror})", "a readable design file") from None
+    try:
+        text = data.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        raise DesignInputError(name, "", f"is not UTF-8 text (byte {exc.start})", "a UTF-8 TOML design file") from None
+    return loads(text, name)
+
+
+def loads(text: str, source: str = "<design>") -> Design:
+    """Read design-file text; ``source`` names it in messages."""
+    if "\x00" in text:
+        raise DesignInputError(source, "", "contains NUL bytes (a binary file?)", "a TOML design file")
+    try:
+        raw = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise DesignInputError(source, "", f"is not valid TOML: {exc}", "TOML syntax") from None
+    return from_dict(raw, source)
+
+
+def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
+    """Build a Design from an already parsed TOML mapping."""
+    if not raw:
+        raise DesignInputError(source, "", "is empty", "at least [design] and [envelope] sections")
+    known = list(SECTIONS) + ["features", "revisions"]
+    check_unknown(raw, known, source, "", "section")
+    sections: dict[str, dict[str, Any]] = {}
+    given: set[str] = set()
+    for section, specs in SECTIONS.items():
+        table = raw.get(section, {})
+        values = read_table(table, specs, source, section)
+        for key in _REQUIRED.get(section, ()):
+            if values[key] is None:
+                spec = next(s for s in specs if s.name == key)
+                raise DesignInputError(source, f"{section}.{key}", "is missing", spec.expected())
+        given.update(f"{section}.{k}" for k in table)
+        sections[section] = values
+    _check_design_section(sections["design"], source)
+    feature_tables = raw.get("features", {})
+    if not isinstance(feature_tables, Mapping):
+        raise DesignInputError(source, "features", f"got {type(feature_tables).__name__}", "a table of feature tables")
+    check_unknown(feature_tables, list(FEATURES), source, "features", "feature")
+    features: dict[str, dict[str, Any]] = {}
+    for fname, module in FEATURES.items():
+        table = feature_tables.get(fname, {})
+        features[fname] = read_table(table, module.PARAMS, source, f"features.{fname}")
+        given.update(f"features.{fname}.{k}" for k in table)
+    revisions = _read_revisions(raw.get("revisions", []), source)
+    return Design(source, sections, features, frozenset(given), revisions, raw)
+
+
+def _check_design_section(values: dict[str, Any], source: str) -> None:
+    if not NAME_PATTERN.match(values["name"]):
+        raise DesignInputError(source, "design.name", f"{values['name'][:40]!r} cannot name a file",
+                               "letters, digits, '.', '_' or '-', starting with a letter or digit, at most 64")
+    if not DATE_PATTERN.match(values["date"]):
+        raise DesignInputError(source, "design.date", f"{values['date']!r} is not a date", "YYYY-MM-DD")
+    if not re.match(r"^[A-Za-z0-9]{1,8}$", values["revision"]):
+        raise DesignInputError(source, "design.revision", f"{values['revision']!r} is not a revision mark",
+                               "letters or digits, e.g. A or 2")
+
+
+def _read_revisions(items: Any, source: str) -> tuple[Revision, ...]:
+    if not isinstance(items, list):
+        raise DesignInputError(source, "revisions", f"got {type(items).__name__}", "an array of [[revisions]] tables")
+    out = []
+    for i, item in enumerate(items):
+        path = f"revisions[{i}]"
+        values = read_table(item, REVISION_SPECS, source, path)
+        for key in ("letter", "date"):
+            if values[key] is None:
+                raise DesignInputError(source, f"{path}.{key}", "is missing", REVISION_SPECS[0 if key == "letter" else 1].expected())
+        if not DATE_PATTERN.match(values["date"]):
+            raise DesignInputError(source, f"{path}.date", f"{values['date']!r} is not a date", "YYYY-MM-DD")
+        out.append(Revision(values["letter"], values["date"], values["note"]))
+    return tuple(out)

@@ -1,0 +1,1 @@
+"""DXF and preview output. Renders what the builder resolved; computes no design values."""

@@ -1,0 +1,29 @@
+"""The named features of a half, in the order the builder resolves them.
+
+Each module has NAME, PARAMS (ParamSpec tuple) and ``resolve(ctx, params) -> FeatureResult``.
+Features do not import each other; they read earlier results from the context.
+"""
+from __future__ import annotations
+
+from types import ModuleType
+
+from . import axle_bore, bearing_seat, catch_zone, pad_groove, rim, vent_groove
+
+__all__ = ["FEATURES", "LOOP_ORDER"]
+
+#: resolution order (each feature may read what the earlier ones published)
+FEATURES: dict[str, ModuleType] = {
+    m.NAME: m for m in (bearing_seat, vent_groove, axle_bore, pad_groove, rim, catch_zone)
+}
+
+#: the order the features' corner chunks follow round the counter-clockwise loop,
+#: starting on the spin axis at the back of the hub
+LOOP_ORDER: tuple[tuple[str, str], ...] = (
+    ("rim", "outer"),
+    ("catch_zone", "surface"),
+    ("pad_groove", "groove"),
+    ("bearing_seat", "wall"),
+    ("vent_groove", "groove"),
+    ("bearing_seat", "post"),
+    ("axle_bore", "bore"),
+)

@@ -1,0 +1,90 @@
+"""Writing outputs: atomically (temp file in the same folder, then rename) and inside the output folder."""
+from __future__ import annotations
+
+import os
+import re
+import tempfile
+from pathlib import Path
+from typing import TYPE_CHECKING
+
+if TYPE_CHECKING:  # pragma: no cover
+    from .builder import Resolved
+
+__all__ = ["write_atomic", "safe_stem", "output_path", "prepare_directory", "build_outputs"]
+
+
+def write_atomic(path: Path, data: bytes) -> None:
+    """Write ``data`` to ``path`` so that a reader sees the old file or the new one, never half of one."""
+    path = Path(path)
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".part", dir=path.parent)
+    try:
+        with os.fdopen(fd, "wb") as handle:
+            handle.write(data)
+            handle.flush()
+            os.fsync(handle.fileno())
+        os.replace(tmp, path)
+    except BaseException:
+        try:
+            os.unlink(tmp)
+        except FileNotFoundError:
+            pass
+        raise
+
+
+def safe_stem(name: str, revision: str) -> str:
+    """A file stem ``<name>-<revision>`` with anything but letters, digits, '.', '_' and '-' replaced.
+
+    >>> safe_stem("ls56/../x", "B")
+    'ls56_.._x-B'
+    """
+    clean = re.sub(r"[^A-Za-z0-9._-]", "_", f"{name}-{revision}").lstrip(".")
+    return clean or "design"
+
+
+def output_path(directory: Path, filename: str) -> Path:
+    """``directory / filename``, refusing any name that would leave the directory."""
+    directory = Path(directory).resolve()
+    target = (directory / filename).resolve()
+    if target.parent != directory:
+        raise ValueError(f"output name {filename!r} leaves {directory}")
+    return target
+
+
+def prepare_directory(directory: Path) -> Path:
+    """The output folder, created if needed; DesignInputError if it cannot be written."""
+    from .errors import DesignInputError
+
+    directory = Path(directory)
+    if directory.exists() and not directory.is_dir():
+        raise DesignInputError(str(directory), "", "is not a folder", "an output folder")
+    try:
+        directory.mkdir(parents=True, exist_ok=True)
+        probe = tempfile.NamedTemporaryFile(dir=directory, prefix=".yodraft-probe-")
+        probe.close()
+    except OSError as exc:
+        raise DesignInputError(str(directory), "", f"cannot be written ({exc.strerror})", "a writable output folder") from None
+    return directory
+
+
+def build_outputs(design_path: Path, directory: Path) -> tuple[list[Path], "Resolved"]:
+    """Load, resolve and check a design; when every check passes, write its drawings into ``directory``.
+
+    Every file is rendered in memory first, then each is written atomically, so a
+    failed check or a bad input leaves the folder as it was.
+    """
+    from .builder import build
+    from .design import load
+    from .drawing.outline import dxf_bytes, outline_document
+
+    resolved = build(load(design_path))
+    if not resolved.ok:
+        return [], resolved
+    stem = safe_stem(resolved.design.name, resolved.design.revision)
+    files = {f"{stem}.dxf": dxf_bytes(outline_document(resolved))}
+    directory = prepare_directory(directory)
+    written = []
+    for name, data in files.items():
+        path = output_path(directory, name)
+        write_atomic(path, data)
+        written.append(path)
+    return written, resolved

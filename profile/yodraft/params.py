@@ -1,0 +1,144 @@
+"""Self-validating parameter specs and the reader that applies them to a TOML table.
+
+Every section of a design file (``[envelope]``, ``[shop]``, ``[features.rim]`` …) is
+described by a tuple of ParamSpec. Reading a table checks every key against its
+spec and reports the first problem as a DesignInputError naming the key path.
+"""
+from __future__ import annotations
+
+import difflib
+import math
+import re
+from collections.abc import Mapping, Sequence
+from dataclasses import dataclass
+from typing import Any
+
+from .errors import DesignInputError
+from .units import KINDS, UnitError, parse_quantity
+
+__all__ = ["ParamSpec", "read_table", "check_unknown", "describe"]
+
+_QUANTITY_KINDS = set(KINDS)
+_OTHER_KINDS = {"text", "bool", "number"}
+_CONTROL = re.compile(r"[\x00-\x1f\x7f]")
+# how a bound is shown to the user, per kind: (divisor from the base unit, unit text)
+_SHOW = {"length": (1.0, "mm"), "angle": (math.pi / 180, "deg"), "mass": (1.0, "g"), "torque": (1.0, "N*mm"),
+         "density": (1.0, "g/cm^3"), "speed": (1.0, "rpm"), "roughness": (1.0, "um"), "number": (1.0, "")}
+
+
+@dataclass(frozen=True)
+class ParamSpec:
+    """One key of a design-file table: its kind, bounds (in base units), default and meaning.
+
+    ``default=None`` means the value is optional: derived by the builder when absent.
+    Bounds: ``lo < value`` (or ``lo <= value`` when ``lo_closed``) and ``value <= hi``.
+    """
+
+    name: str
+    kind: str
+    doc: str
+    default: Any = None
+    lo: float | None = None
+    hi: float | None = None
+    lo_closed: bool = False
+    choices: tuple[str, ...] = ()
+    max_length: int = 120
+
+    def __post_init__(self) -> None:
+        if self.kind not in _QUANTITY_KINDS | _OTHER_KINDS:
+            raise ValueError(f"unknown parameter kind {self.kind!r}")
+        if self.lo is not None and self.hi is not None and self.lo > self.hi:
+            raise ValueError(f"{self.name}: lo above hi")
+
+    def expected(self) -> str:
+        """What a valid value looks like, in words."""
+        if self.kind in _QUANTITY_KINDS:
+            text = KINDS[self.kind][1]
+        elif self.kind == "number":
+            text = "a plain number"
+        elif self.kind == "bool":
+            text = "true or false"
+        elif self.choices:
+            text = "one of " + ", ".join(repr(c) for c in self.choices)
+        else:
+            text = f"a text of at most {self.max_length} characters"
+        if self.lo is not None or self.hi is not None:
+            div, unit = _SHOW.get(self.kind, (1.0, ""))
+            parts = []
+            if self.lo is not None:
+                parts.append(f"{'at least' if self.lo_closed else 'above'} {self.lo / div:g} {unit}".rstrip())
+            if self.hi is not None:
+                parts.append(f"at most {self.hi / div:g} {unit}".rstrip())
+            text += ", " + " and ".join(parts)
+        return text
+
+    def read(self, raw: Any, file: str, key: str) -> Any:
+        """Validate ``raw`` (a TOML value) and return it in base units."""
+        if self.kind in _QUANTITY_KINDS:
+            try:
+                value = parse_quantity(raw, self.kind)
+            except UnitError as exc:
+                raise DesignInputError(file, key, str(exc), self.expected()) from None
+            self._check_bounds(value, file, key, raw)
+            return value
+        if self.kind == "number":
+            if isinstance(raw, bool) or not isinstance(raw, (int, float)) or not math.isfinite(raw):
+                raise DesignInputError(file, key, f"got {raw!r}", self.expected())
+            self._check_bounds(float(raw), file, key, raw)
+            return float(raw)
+        if self.kind == "bool":
+            if not isinstance(raw, bool):
+                raise DesignInputError(file, key, f"got {raw!r}", self.expected())
+            return raw
+        if not isinstance(raw, str):
+            raise DesignInputError(file, key, f"got {type(raw).__name__} {str(raw)[:40]!r}", self.expected())
+        if _CONTROL.search(raw):
+            raise DesignInputError(file, key, "contains a control character", self.expected())
+        if len(raw) > self.max_length:
+            raise DesignInputError(file, key, f"is {len(raw)} characters long", self.expected())
+        if self.choices:
+            match = [c for c in self.choices if c.lower() == raw.strip().lower()]
+            if not match:
+                raise DesignInputError(file, key, f"unknown value {raw[:40]!r}{_suggest(raw, self.choices)}", self.expected())
+            return match[0]
+        return raw.strip()
+
+    def _check_bounds(self, value: float, file: str, key: str, raw: Any) -> None:
+        low_bad = self.lo is not None and (value < self.lo if self.lo_closed else value <= self.lo)
+        high_bad = self.hi is not None and value > self.hi
+        if low_bad or high_bad:
+            raise DesignInputError(file, key, f"{raw!r} is out of range", self.expected())
+
+
+def _suggest(word: str, options: Sequence[str]) -> str:
+    close = difflib.get_close_matches(word, list(options), n=1, cutoff=0.6)
+    return f"; did you mean {close[0]!r}?" if close else ""
+
+
+def check_unknown(table: Mapping[str, Any], known: Sequence[str], file: str, path: str, what: str = "key") -> None:
+    """Raise for the first key of ``table`` not in ``known``, suggesting the nearest valid one."""
+    for key in table:
+        if key not in known:
+            full = f"{path}.{key}" if path else key
+            raise DesignInputError(file, full, f"unknown {what}{_suggest(key, known)}",
+                                   "one of " + ", ".join(known))
+
+
+def read_table(table: Any, specs: Sequence[ParamSpec], file: str, path: str) -> dict[str, Any]:
+    """Read one design-file table against its specs; absent keys take their defaults.
+
+    Returns a dict with every spec's name; optional keys left out are None.
+    """
+    if not isinstance(table, Mapping):
+        raise DesignInputError(file, path, f"got {type(table).__name__}", "a table of keys")
+    check_unknown(table, [s.name for s in specs], file, path)
+    out: dict[str, Any] = {}
+    for spec in specs:
+        key = f"{path}.{spec.name}" if path else spec.name
+        out[spec.name] = spec.read(table[spec.name], file, key) if spec.name in table else spec.default
+    return out
+
+
+def describe(specs: Sequence[ParamSpec]) -> list[tuple[str, str, str]]:
+    """(key, expected, meaning) rows for the design-file reference."""
+    return [(s.name, s.expected(), s.doc) for s in specs]

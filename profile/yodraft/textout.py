@@ -1,0 +1,51 @@
+"""Plain-text views of a resolved design for the terminal."""
+from __future__ import annotations
+
+import math
+
+from .builder import Resolved
+from .units import MM_PER_INCH
+
+__all__ = ["check_text", "failed_lines"]
+
+
+def _fmt(key: str, value: object) -> str:
+    if isinstance(value, float) and key.endswith("angle"):
+        return f"{math.degrees(value):.2f}°"
+    if isinstance(value, float):
+        return f"{value:.4f} mm"
+    return str(value)
+
+
+def failed_lines(resolved: Resolved) -> list[str]:
+    """One line per failed check: feature.parameter, the check's name and why."""
+    return [f"FAILED {c.feature}.{c.parameter}: {c.name}: {c.message}" for c in resolved.failed]
+
+
+def check_text(resolved: Resolved) -> str:
+    """Resolved dimensions, the bearing-seat fit and every check, for a terminal."""
+    d, v = resolved.design, resolved.values
+    lines = [f"{d.name} rev {d.revision}" + (f" — {d['design']['title']}" if d["design"]["title"] else ""),
+             f"bearing {v['bearing.designation']} {v['bearing.bore']:.3f} × {v['bearing.od']:.3f} × "
+             f"{v['bearing.width']:.4f} mm, {v['bearing.precision']}; material {v['material.name']} "
+             f"({v['material.density_g_cm3']:.2f} g/cm³)", ""]
+    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    lines.append("bearing seat fit (worst case, finished sizes)")
+    for label, part in (("post", fit.post), ("wall bore", fit.wall)):
+        lines.append(f"  {label:<10} Ø{part.nominal_mm:.4f} ± {part.tolerance_mm:.4f} mm "
+                     f"[{part.nominal_mm / MM_PER_INCH:.4f} ± {part.tolerance_mm / MM_PER_INCH:.4f} in]  "
+                     f"turn to Ø{part.precoat_mm:.4f} before coating  "
+                     f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm")
+    lines.append("")
+    lines.append("resolved dimensions (* derived)")
+    for name, feature in resolved.features.items():
+        lines.append(f"  {name}")
+        for key, value in feature.dims.items():
+            mark = "*" if key in feature.derived else " "
+            lines.append(f"    {mark} {key:<24} {_fmt(key, value)}")
+    lines.append("")
+    passed = sum(c.ok for c in resolved.checks)
+    lines.append(f"checks: {passed} of {len(resolved.checks)} passed")
+    for c in resolved.checks:
+        lines.append(f"  {'ok  ' if c.ok else 'FAIL'} {c.name} [{c.feature}.{c.parameter}] {c.message}")
+    return "\n".join(lines)
