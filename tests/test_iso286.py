@@ -4,7 +4,7 @@ from __future__ import annotations
 import json
 
 import pytest
-from hypothesis import given
+from hypothesis import assume, given
 from hypothesis import strategies as st
 
 from yodraft.tolerances.iso286 import (
@@ -152,6 +152,12 @@ def test_unsupported_hole_classes_say_so(letter: str, grade: int) -> None:
         hole_limits(letter, grade, 8.0)
 
 
+def test_n9_not_for_tiny_sizes() -> None:
+    # ISO 286-1, Table 3 footnote: N above IT8 is not used for sizes up to 1 mm
+    with pytest.raises(FitCodeError, match="up to 1 mm"):
+        hole_limits("N", 9, 0.8)
+
+
 # --- fit codes ------------------------------------------------------------------------------
 
 def test_h7_g6_at_6mm() -> None:
@@ -233,6 +239,7 @@ SHAFTS = [(l, g) for l in ("e", "f", "g", "h", "js", "k", "m", "n", "p") for g i
     shaft=st.sampled_from(SHAFTS),
 )
 def test_every_fit_is_consistent(size: float, hole: tuple[str, int], shaft: tuple[str, int]) -> None:
+    assume(not (hole[0] == "N" and hole[1] > 8 and size <= 1.0))  # ISO 286-1: not standardised
     code = f"{size!r} {hole[0]}{hole[1]}/{shaft[0]}{shaft[1]}"
     fit = parse_fit(code)
     assert isinstance(fit, Fit)

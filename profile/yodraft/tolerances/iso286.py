@@ -7,7 +7,7 @@ Size steps are "over a, up to and including b"; the first step is 0 (excl.) to 3
 Supported tolerance classes
 ---------------------------
 Holes: E F G H JS (grades 1–12); K M N (grades 3–8, with Δ); N (grades 9–11);
-P (grades 3–7 with Δ, 8–12 without). Shafts: e f g h js k m n p (grades 1–12).
+P (grades 3–7 with Δ, 8–12 without); N9–N11 only over 1 mm. Shafts: e f g h js k m n p (grades 1–12).
 Anything else (other letters, K/M/N/P below grade 3, K and M above 8, N above 11,
 sizes over 120 mm) raises :class:`FitCodeError` naming what is not supported.
 
@@ -219,6 +219,9 @@ def hole_limits(letter: str, grade: int, size_mm: float) -> Limits:
     elif letter == "P" and grade >= 8:
         es = -_SHAFT_EI[low][i]
     elif letter == "N" and 9 <= grade <= 11:
+        if size_mm <= 1.0:  # ISO 286-1, Table 3 footnote: N above IT8 not for sizes up to 1 mm
+            raise FitCodeError(f"hole class N{grade} is not used for sizes up to 1 mm",
+                               "N with a grade from 3 to 8 at this size")
         es = -4.0 if i == 0 else 0.0  # ISO 286-1, Table 3, N above IT8
     else:
         supported = {"K": "3 to 8", "M": "3 to 8", "N": "3 to 11", "P": "3 to 12"}[letter]
@@ -338,7 +341,7 @@ def _part(size_mm: float, code: str | None, limits: Limits | None) -> dict[str, 
 def fit_summary(fit: Fit) -> dict[str, object]:
     """The JSON object printed by ``yodraft fit CODE --json``.
 
-    Keys: code, size_mm, hole, shaft (each {code, upper_um, lower_um, max_mm, min_mm}
+    Keys: code (normalised, size in mm), size_mm, hole, shaft (each {code, upper_um, lower_um, max_mm, min_mm}
     or null), clearance_min_um, clearance_max_um (null for one part; negative =
     interference), kind ("clearance" | "transition" | "interference" | null).
 
