@@ -1,6 +1,14 @@
 """Ball bearings a yo-yo takes: nominal bore, outside diameter, width, mass.
 
-Trade letter sizes map to a standard bearing: size C is the inch-series R188.
+Trade letter sizes map to a standard bearing: size C is the inch-series R188
+(shielded R188ZZ; the open R188 is narrower).
+
+>>> lookup_bearing("C").designation
+'R188ZZ'
+>>> lookup_bearing("r188").width_mm
+3.175
+>>> lookup_bearing("mr126").od_mm
+12.0
 """
 from __future__ import annotations
 
@@ -8,7 +16,7 @@ from dataclasses import dataclass
 
 __all__ = ["BearingRow", "BEARINGS", "LETTER_SIZES", "lookup_bearing"]
 
-IN = 25.4
+IN = 25.4  # exact by the international yard and pound agreement, 1959
 
 
 @dataclass(frozen=True)
@@ -24,17 +32,33 @@ class BearingRow:
     source: str
 
 
+_MASS = "mass from memory (approximate)"
+
 BEARINGS: dict[str, BearingRow] = {
     row.designation: row
     for row in (
         BearingRow("R188ZZ", 0.25 * IN, 0.5 * IN, 0.1875 * IN, 1.1, True,
-                   "ABMA inch instrument series R188 shielded, 1/4 x 1/2 x 3/16 in (common practice); mass from memory"),
+                   "ABMA inch instrument series R188 shielded, 1/4 x 1/2 x 3/16 in (common practice); " + _MASS),
+        BearingRow("R188", 0.25 * IN, 0.5 * IN, 0.125 * IN, 0.8, True,
+                   "ABMA inch instrument series R188 open, 1/4 x 1/2 x 1/8 in (from memory); " + _MASS),
         BearingRow("MR105ZZ", 5.0, 10.0, 4.0, 1.2, False,
-                   "ISO 15 miniature metric 5 x 10 x 4 mm (from memory); mass from memory"),
+                   "ISO 15 miniature metric 5 x 10 x 4 mm (from memory); " + _MASS),
+        BearingRow("MR126ZZ", 6.0, 12.0, 4.0, 1.7, False,
+                   "ISO 15 miniature metric 6 x 12 x 4 mm (from memory); " + _MASS),
+        BearingRow("MR128ZZ", 8.0, 12.0, 3.5, 1.1, False,
+                   "ISO 15 miniature metric 8 x 12 x 3.5 mm (from memory); " + _MASS),
+        BearingRow("MR148ZZ", 8.0, 14.0, 4.0, 2.0, False,
+                   "ISO 15 miniature metric 8 x 14 x 4 mm (from memory); " + _MASS),
+        BearingRow("695ZZ", 5.0, 13.0, 4.0, 2.3, False,
+                   "ISO 15 dimension series 19, 5 x 13 x 4 mm (from memory); " + _MASS),
+        BearingRow("696ZZ", 6.0, 15.0, 5.0, 3.8, False,
+                   "ISO 15 dimension series 19, 6 x 15 x 5 mm (from memory); " + _MASS),
         BearingRow("688ZZ", 8.0, 16.0, 5.0, 3.1, False,
-                   "ISO 15 dimension series 18, 8 x 16 x 5 mm (from memory); mass from memory"),
+                   "ISO 15 dimension series 18, 8 x 16 x 5 mm (from memory); " + _MASS),
+        BearingRow("698ZZ", 8.0, 19.0, 6.0, 7.2, False,
+                   "ISO 15 dimension series 19, 8 x 19 x 6 mm (from memory); " + _MASS),
         BearingRow("608ZZ", 8.0, 22.0, 7.0, 12.0, False,
-                   "ISO 15 dimension series 02, 8 x 22 x 7 mm (from memory); mass from memory"),
+                   "ISO 15 dimension series 02, 8 x 22 x 7 mm (from memory); " + _MASS),
     )
 }
 
@@ -43,10 +67,17 @@ LETTER_SIZES: dict[str, str] = {"C": "R188ZZ"}
 
 
 def lookup_bearing(name: str) -> BearingRow:
-    """A bearing by trade letter size or designation (case-insensitive); KeyError if unknown."""
+    """A bearing by trade letter size or designation (case-insensitive); KeyError if unknown.
+
+    An exact designation wins; otherwise a name without the shield suffix ("MR105")
+    finds the shielded row.
+    """
     key = name.strip().upper()
     key = LETTER_SIZES.get(key, key)
     for designation, row in BEARINGS.items():
-        if designation.upper() == key or designation.upper().removesuffix("ZZ") == key:
+        if designation.upper() == key:
+            return row
+    for designation, row in BEARINGS.items():
+        if designation.upper().removesuffix("ZZ") == key:
             return row
     raise KeyError(name)

@@ -1,14 +1,56 @@
-"""Bearing-seat sizing from the tolerance stack (first version: worst case only)."""
+"""Bearing-seat sizing from the tolerance stack: worst case and statistical (RSS).
+
+The post is the turned diameter the bearing's inner ring slides onto; the wall
+(bore) is the recess its outer ring sits in. Sizes are finished sizes (after any
+coating); ``precoat_mm`` is what the machinist turns before the coating goes on.
+
+Worst-case rule (derived sizes)
+    post max = bearing bore min − fit clearance; post nominal = post max − machine tolerance.
+    wall min = bearing OD max + fit clearance;   wall nominal = wall min + machine tolerance.
+
+Statistical rule (checks only; it never moves the sizes): each machine tolerance
+is taken as ±3σ of a normal spread about the nominal, each bearing deviation band
+as ±3σ about its mid value; the clearance spread is their root sum of squares.
+
+>>> fit = size_seat(SeatInputs(6.35, 12.7, (0.0, -2.54), (0.0, -2.54), 0.00508, 0.0127))
+>>> round(fit.post.nominal_mm / 25.4, 5), round(fit.post.clearance_min_mm / 25.4, 5)
+(0.2492, 0.0005)
+"""
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 
-__all__ = ["SeatInputs", "DiameterFit", "SeatFit", "size_seat"]
+__all__ = ["SeatInputs", "DiameterFit", "SeatFit", "size_seat", "coating_growth_mm"]
+
+
+def coating_growth_mm(thickness_mm: float, outward_share: float) -> float:
+    """Diametral growth of a turned diameter from a coating of ``thickness_mm``.
+
+    ``outward_share`` is the share of the coating that builds up above the
+    original surface (the rest converts the base metal inward); a hard anodise
+    builds roughly half outward (common practice, no published source).
+
+    >>> coating_growth_mm(0.01, 0.5)
+    0.01
+    """
+    if not (math.isfinite(thickness_mm) and thickness_mm >= 0):
+        raise ValueError(f"coating thickness {thickness_mm!r} mm is not a length ≥ 0")
+    if not (0.0 <= outward_share <= 1.0):
+        raise ValueError(f"coating outward share {outward_share!r} is not between 0 and 1")
+    return 2.0 * thickness_mm * outward_share
 
 
 @dataclass(frozen=True)
 class SeatInputs:
-    """Everything that stacks up at the bearing seat, all diameters in mm."""
+    """Everything that stacks up at the bearing seat, all diameters in mm.
+
+    Deviations are (upper, lower) in µm from the bearing's precision class;
+    ``machine_tolerance_mm`` is the ± the machinist holds on a diameter;
+    ``fit_clearance_mm`` the least clearance wanted (negative asks for a press fit);
+    ``coating_growth_mm`` the diametral growth of a coated surface.
+    An explicit ``post_diameter_mm`` / ``wall_bore_mm`` (finished) is checked, not derived.
+    """
 
     bearing_bore_mm: float
     bearing_od_mm: float
@@ -20,10 +62,32 @@ class SeatInputs:
     post_diameter_mm: float | None = None
     wall_bore_mm: float | None = None
 
+    def __post_init__(self) -> None:
+        for name in ("bearing_bore_mm", "bearing_od_mm"):
+            value = getattr(self, name)
+            if not (math.isfinite(value) and value > 0):
+                raise ValueError(f"{name} {value!r} is not a diameter > 0")
+        if not self.bearing_od_mm > self.bearing_bore_mm:
+            raise ValueError("bearing OD is not larger than its bore")
+        for name in ("bore_deviation_um", "od_deviation_um"):
+            upper, lower = getattr(self, name)
+            if not upper >= lower:
+                raise ValueError(f"{name} {(upper, lower)!r} is not (upper, lower) with upper ≥ lower")
+        if not (math.isfinite(self.machine_tolerance_mm) and self.machine_tolerance_mm >= 0):
+            raise ValueError(f"machine tolerance {self.machine_tolerance_mm!r} mm is not a ± ≥ 0")
+        if not (math.isfinite(self.fit_clearance_mm) and math.isfinite(self.coating_growth_mm)):
+            raise ValueError("fit clearance and coating growth must be finite")
+
 
 @dataclass(frozen=True)
 class DiameterFit:
-    """One turned diameter (post or wall bore) against its bearing race."""
+    """One turned diameter (post or wall bore) against its bearing race.
+
+    Clearances are diametral, race minus post or wall minus race (negative =
+    interference). ``clearance_*`` are worst case; ``rss_*`` the ±3σ statistical
+    range; ``p_no_slide`` the chance a random part and bearing will not slide
+    together (clearance < 0) under that normal model.
+    """
 
     nominal_mm: float
     tolerance_mm: float
@@ -31,26 +95,63 @@ class DiameterFit:
     clearance_min_mm: float
     clearance_max_mm: float
     derived: bool
+    rss_min_mm: float
+    rss_max_mm: float
+    p_no_slide: float
+
+    @property
+    def max_mm(self) -> float:
+        """Largest finished diameter allowed."""
+        return self.nominal_mm + self.tolerance_mm
+
+    @property
+    def min_mm(self) -> float:
+        """Smallest finished diameter allowed."""
+        return self.nominal_mm - self.tolerance_mm
 
 
 @dataclass(frozen=True)
 class SeatFit:
+    """The post and the wall bore of one bearing seat."""
+
     post: DiameterFit
     wall: DiameterFit
 
 
+def _p_negative(mean: float, sigma: float) -> float:
+    """P(X < 0) for X normal with ``mean`` and ``sigma`` (a step when sigma is 0)."""
+    if sigma == 0:
+        return 1.0 if mean < 0 else 0.0
+    return 0.5 * math.erfc(mean / (sigma * math.sqrt(2.0)))
+
+
+def _fit(nominal: float, tol: float, precoat: float, race_band: tuple[float, float],
+         race_is_outside: bool, derived: bool) -> DiameterFit:
+    """Clearance of a diameter ``nominal ± tol`` against a race band (min, max), all mm."""
+    race_min, race_max = race_band
+    if race_is_outside:  # the race surrounds the post: clearance = race − post
+        worst_min, worst_max = race_min - (nominal + tol), race_max - (nominal - tol)
+        mean = (race_min + race_max) / 2 - nominal
+    else:  # the wall surrounds the race: clearance = wall − race
+        worst_min, worst_max = (nominal - tol) - race_max, (nominal + tol) - race_min
+        mean = nominal - (race_min + race_max) / 2
+    half_race = (race_max - race_min) / 2
+    spread = math.hypot(half_race, tol)  # 3σ of the clearance
+    return DiameterFit(nominal, tol, precoat, worst_min, worst_max, derived,
+                       mean - spread, mean + spread, _p_negative(mean, spread / 3.0))
+
+
 def size_seat(s: SeatInputs) -> SeatFit:
-    """Size the post and the wall bore with the worst-case clearance rule."""
+    """Size (or check) the post and the wall bore: worst case sizes, RSS as a second opinion."""
     tol = s.machine_tolerance_mm
-    bore_min = s.bearing_bore_mm + s.bore_deviation_um[1] / 1000
-    bore_max = s.bearing_bore_mm + s.bore_deviation_um[0] / 1000
-    od_min = s.bearing_od_mm + s.od_deviation_um[1] / 1000
-    od_max = s.bearing_od_mm + s.od_deviation_um[0] / 1000
-    post = s.post_diameter_mm if s.post_diameter_mm is not None else bore_min - s.fit_clearance_mm - tol
-    wall = s.wall_bore_mm if s.wall_bore_mm is not None else od_max + s.fit_clearance_mm + tol
+    bore = (s.bearing_bore_mm + s.bore_deviation_um[1] / 1000, s.bearing_bore_mm + s.bore_deviation_um[0] / 1000)
+    od = (s.bearing_od_mm + s.od_deviation_um[1] / 1000, s.bearing_od_mm + s.od_deviation_um[0] / 1000)
+    post_derived = s.post_diameter_mm is None
+    wall_derived = s.wall_bore_mm is None
+    post = s.post_diameter_mm if s.post_diameter_mm is not None else bore[0] - s.fit_clearance_mm - tol
+    wall = s.wall_bore_mm if s.wall_bore_mm is not None else od[1] + s.fit_clearance_mm + tol
+    # a coating grows the post and shrinks the bore, so turn the post under and the bore over
     return SeatFit(
-        post=DiameterFit(post, tol, post - s.coating_growth_mm, bore_min - (post + tol), bore_max - (post - tol),
-                         s.post_diameter_mm is None),
-        wall=DiameterFit(wall, tol, wall + s.coating_growth_mm, (wall - tol) - od_max, (wall + tol) - od_min,
-                         s.wall_bore_mm is None),
+        post=_fit(post, tol, post - s.coating_growth_mm, bore, True, post_derived),
+        wall=_fit(wall, tol, wall + s.coating_growth_mm, od, False, wall_derived),
     )

@@ -1,0 +1,261 @@
+"""ISO 286 limits and fits against the ISO 286-1 / ISO 286-2 tables."""
+from __future__ import annotations
+
+import json
+
+import pytest
+from hypothesis import assume, given
+from hypothesis import strategies as st
+
+from yodraft.tolerances.iso286 import (
+    SIZE_STEPS,
+    Fit,
+    FitCodeError,
+    Limits,
+    delta_um,
+    fit_summary,
+    hole_limits,
+    it_um,
+    parse_fit,
+    shaft_limits,
+    size_step,
+)
+
+
+# --- size steps -----------------------------------------------------------------------------
+
+@pytest.mark.parametrize(
+    ("size", "step"),
+    [
+        (0.5, (0.0, 3.0)),     # ISO 286-1 Table 1: first step "up to 3" incl.
+        (3.0, (0.0, 3.0)),     # ISO 286-1: "over 0 up to and including 3"
+        (3.0001, (3.0, 6.0)),  # ISO 286-1: over 3
+        (6.0, (3.0, 6.0)),     # ISO 286-1: 6 mm belongs to the 3–6 step
+        (10.0, (6.0, 10.0)),   # ISO 286-1: 10 mm belongs to the 6–10 step
+        (10.5, (10.0, 18.0)),  # ISO 286-1
+        (120.0, (80.0, 120.0)),  # ISO 286-1
+    ],
+)
+def test_size_step_boundaries(size: float, step: tuple[float, float]) -> None:
+    assert size_step(size) == step
+
+
+@pytest.mark.parametrize("size", [0.0, -1.0, 120.01, 200.0])
+def test_size_step_out_of_range(size: float) -> None:
+    with pytest.raises(FitCodeError):
+        size_step(size)
+
+
+# --- IT grades ------------------------------------------------------------------------------
+
+@pytest.mark.parametrize(
+    ("grade", "size", "um"),
+    [
+        (6, 6.0, 8.0),     # ISO 286-1 Table 1, IT6 3–6 mm
+        (7, 8.0, 15.0),    # ISO 286-1 Table 1, IT7 6–10 mm
+        (7, 10.0, 15.0),   # ISO 286-1 Table 1, IT7 6–10 mm (upper bound inclusive)
+        (1, 2.0, 0.8),     # ISO 286-1 Table 1, IT1 up to 3 mm
+        (5, 25.0, 9.0),    # ISO 286-1 Table 1, IT5 18–30 mm
+        (8, 12.0, 27.0),   # ISO 286-1 Table 1, IT8 10–18 mm
+        (9, 40.0, 62.0),   # ISO 286-1 Table 1, IT9 30–50 mm
+        (11, 60.0, 190.0),  # ISO 286-1 Table 1, IT11 50–80 mm
+        (12, 100.0, 350.0),  # ISO 286-1 Table 1, IT12 80–120 mm
+    ],
+)
+def test_it_table(grade: int, size: float, um: float) -> None:
+    assert it_um(grade, size) == um
+
+
+def test_it_grows_with_grade_and_size() -> None:
+    # ISO 286-1: every IT grade is wider than the one below, and no narrower in a larger step
+    for low, high in SIZE_STEPS:
+        values = [it_um(g, high) for g in range(1, 13)]
+        assert values == sorted(values) and len(set(values)) == len(values)
+    for g in range(1, 13):
+        per_step = [it_um(g, high) for _low, high in SIZE_STEPS]
+        assert per_step == sorted(per_step)
+
+
+def test_delta_is_difference_of_grades() -> None:
+    # ISO 286-1, 3.3.2: Δ = ITn − IT(n−1); the Δ table is 0 up to 3 mm
+    for _low, high in SIZE_STEPS:
+        for grade in range(3, 9):
+            expected = 0.0 if high <= 3 else it_um(grade, high) - it_um(grade - 1, high)
+            assert delta_um(grade, high) == pytest.approx(expected)
+
+
+@pytest.mark.parametrize("grade", [0, 13, 19])
+def test_grade_out_of_range(grade: int) -> None:
+    with pytest.raises(FitCodeError):
+        it_um(grade, 6.0)
+
+
+# --- deviations -----------------------------------------------------------------------------
+
+@pytest.mark.parametrize(
+    ("letter", "grade", "size", "upper", "lower"),
+    [
+        ("g", 6, 6.0, -4.0, -12.0),    # ISO 286-2, g6 3–6 mm
+        ("h", 6, 12.0, 0.0, -11.0),    # ISO 286-2, h6 10–18 mm
+        ("k", 6, 8.0, 10.0, 1.0),      # ISO 286-2, k6 6–10 mm
+        ("p", 6, 8.0, 24.0, 15.0),     # ISO 286-2, p6 6–10 mm
+        ("m", 6, 8.0, 15.0, 6.0),      # ISO 286-2, m6 6–10 mm
+        ("n", 6, 8.0, 19.0, 10.0),     # ISO 286-2, n6 6–10 mm
+        ("f", 7, 8.0, -13.0, -28.0),   # ISO 286-2, f7 6–10 mm
+        ("e", 8, 10.0, -25.0, -47.0),  # ISO 286-2, e8 6–10 mm
+        ("k", 6, 2.0, 6.0, 0.0),       # ISO 286-2, k6 up to 3 mm
+        ("k", 6, 20.0, 15.0, 2.0),     # ISO 286-2, k6 18–30 mm
+        ("k", 8, 8.0, 22.0, 0.0),      # ISO 286-1 Table 2: k above IT7 has ei = 0
+        ("js", 6, 8.0, 4.5, -4.5),     # ISO 286-1: js = ± IT/2
+    ],
+)
+def test_shaft_limits(letter: str, grade: int, size: float, upper: float, lower: float) -> None:
+    assert shaft_limits(letter, grade, size) == Limits(upper, lower)
+
+
+@pytest.mark.parametrize(
+    ("letter", "grade", "size", "upper", "lower"),
+    [
+        ("H", 7, 6.0, 12.0, 0.0),     # ISO 286-2, H7 3–6 mm
+        ("H", 7, 12.0, 18.0, 0.0),    # ISO 286-2, H7 10–18 mm
+        ("F", 7, 12.0, 34.0, 16.0),   # ISO 286-2, F7 10–18 mm
+        ("G", 7, 12.0, 24.0, 6.0),    # ISO 286-2, G7 10–18 mm
+        ("E", 8, 8.0, 47.0, 25.0),    # ISO 286-2, E8 6–10 mm
+        ("K", 7, 8.0, 5.0, -10.0),    # ISO 286-2, K7 6–10 mm (with Δ)
+        ("K", 6, 8.0, 2.0, -7.0),     # ISO 286-2, K6 6–10 mm (with Δ)
+        ("M", 7, 8.0, 0.0, -15.0),    # ISO 286-2, M7 6–10 mm (with Δ)
+        ("N", 7, 8.0, -4.0, -19.0),   # ISO 286-2, N7 6–10 mm (with Δ)
+        ("P", 7, 8.0, -9.0, -24.0),   # ISO 286-2, P7 6–10 mm (with Δ)
+        ("P", 7, 5.0, -8.0, -20.0),   # ISO 286-2, P7 3–6 mm (with Δ)
+        ("K", 7, 2.0, 0.0, -10.0),    # ISO 286-2, K7 up to 3 mm (Δ = 0)
+        ("N", 7, 2.0, -4.0, -14.0),   # ISO 286-2, N7 up to 3 mm
+        ("N", 9, 5.0, 0.0, -30.0),    # ISO 286-2, N9 3–6 mm (keyway width tables)
+        ("N", 9, 2.0, -4.0, -29.0),   # ISO 286-2, N9 up to 3 mm
+        ("JS", 9, 6.0, 15.0, -15.0),  # ISO 286-2, JS9 3–6 mm (keyway width tables)
+    ],
+)
+def test_hole_limits(letter: str, grade: int, size: float, upper: float, lower: float) -> None:
+    assert hole_limits(letter, grade, size) == Limits(upper, lower)
+
+
+@pytest.mark.parametrize("letter", ["E", "F", "G", "H"])
+def test_holes_a_to_h_mirror_shafts(letter: str) -> None:
+    # ISO 286-1: for A–H, EI = −es of the shaft with the same letter
+    for _low, high in SIZE_STEPS:
+        for grade in (5, 7, 9):
+            assert hole_limits(letter, grade, high).lower_um == -shaft_limits(letter.lower(), grade, high).upper_um
+
+
+@pytest.mark.parametrize(("letter", "grade"), [("K", 9), ("M", 10), ("K", 2), ("N", 12), ("P", 1)])
+def test_unsupported_hole_classes_say_so(letter: str, grade: int) -> None:
+    with pytest.raises(FitCodeError, match="not supported"):
+        hole_limits(letter, grade, 8.0)
+
+
+def test_n9_not_for_tiny_sizes() -> None:
+    # ISO 286-1, Table 3 footnote: N above IT8 is not used for sizes up to 1 mm
+    with pytest.raises(FitCodeError, match="up to 1 mm"):
+        hole_limits("N", 9, 0.8)
+
+
+# --- fit codes ------------------------------------------------------------------------------
+
+def test_h7_g6_at_6mm() -> None:
+    fit = parse_fit("6 H7/g6")
+    assert fit.hole == Limits(12.0, 0.0)    # ISO 286-2, H7 3–6 mm
+    assert fit.shaft == Limits(-4.0, -12.0)  # ISO 286-2, g6 3–6 mm
+    assert (fit.clearance_min_um, fit.clearance_max_um) == (4.0, 24.0)  # ISO 286-2, H7/g6 at 6 mm
+    assert (fit.hole_code, fit.shaft_code, fit.size_mm) == ("H7", "g6", 6.0)
+
+
+def test_h7_h6_at_12mm() -> None:
+    fit = parse_fit("12 H7/h6")
+    assert fit.hole == Limits(18.0, 0.0)    # ISO 286-2, H7 10–18 mm
+    assert fit.shaft == Limits(0.0, -11.0)  # ISO 286-2, h6 10–18 mm
+    assert (fit.clearance_min_um, fit.clearance_max_um) == (0.0, 29.0)  # ISO 286-2, H7/h6 at 12 mm
+
+
+@pytest.mark.parametrize("code", ["Ø6 H7/g6", "ø6H7/g6", "6mm H7/g6", "6 mm H7 / g6", "  6 H7/g6 "])
+def test_code_spellings(code: str) -> None:
+    assert parse_fit(code) == parse_fit("6 H7/g6")
+
+
+def test_inch_size_and_single_parts() -> None:
+    shaft_only = parse_fit("0.25in h6")
+    assert shaft_only.size_mm == pytest.approx(6.35)  # 1 in = 25.4 mm exactly (1959 agreement)
+    assert shaft_only.shaft == Limits(0.0, -9.0)      # ISO 286-2, h6 6–10 mm
+    assert shaft_only.hole is None and shaft_only.clearance_min_um is None
+    hole_only = parse_fit("6 H7")
+    assert hole_only.hole == Limits(12.0, 0.0) and hole_only.shaft is None  # ISO 286-2, H7 3–6 mm
+    assert hole_only.clearance_max_um is None
+
+
+def test_fit_summary_shape_and_kinds() -> None:
+    summary = fit_summary(parse_fit("6 H7/g6"))
+    assert set(summary) == {"code", "size_mm", "hole", "shaft", "clearance_min_um", "clearance_max_um", "kind"}
+    assert set(summary["hole"]) == {"code", "upper_um", "lower_um", "max_mm", "min_mm"}
+    assert summary["hole"]["max_mm"] == pytest.approx(6.012)  # ISO 286-2, H7 3–6 mm: +12 µm
+    assert summary["shaft"]["min_mm"] == pytest.approx(5.988)  # ISO 286-2, g6 3–6 mm: −12 µm
+    assert summary["kind"] == "clearance"
+    json.dumps(summary)  # plain JSON types only
+    # ISO 286-1 / 286-2 preferred fits: H7/k6 transition, H7/p6 interference at 8 mm
+    assert fit_summary(parse_fit("8 H7/k6"))["kind"] == "transition"
+    assert fit_summary(parse_fit("8 H7/p6"))["kind"] == "interference"
+    single = fit_summary(parse_fit("6 H7"))
+    assert single["shaft"] is None and single["kind"] is None
+
+
+@pytest.mark.parametrize(
+    ("code", "fragment"),
+    [
+        ("6 Q7/g6", "letter 'Q'"),
+        ("200 H7/g6", "up to 120 mm"),
+        ("6 H19", "IT19"),
+        ("6 g6/H7", "hole class"),
+        ("H7/g6", "cannot read"),
+        ("6 H7/g6/f7", "cannot read"),
+        ("6 H7/H7", "hole class"),
+        ("6 K9", "not supported"),
+        ("", "cannot read"),
+    ],
+)
+def test_bad_codes(code: str, fragment: str) -> None:
+    with pytest.raises(FitCodeError, match=fragment) as info:
+        parse_fit(code)
+    assert "\n" not in str(info.value) and "expected" in str(info.value)
+    assert isinstance(info.value, ValueError)
+
+
+HOLES = [("E", g) for g in range(1, 13)] + [("F", g) for g in range(1, 13)] + [("G", g) for g in range(1, 13)] \
+    + [("H", g) for g in range(1, 13)] + [("JS", g) for g in range(1, 13)] \
+    + [(l, g) for l in ("K", "M", "N") for g in range(3, 9)] + [("N", g) for g in range(9, 12)] \
+    + [("P", g) for g in range(3, 13)]
+SHAFTS = [(l, g) for l in ("e", "f", "g", "h", "js", "k", "m", "n", "p") for g in range(1, 13)]
+
+
+@given(
+    size=st.floats(min_value=0.01, max_value=120.0, allow_nan=False),
+    hole=st.sampled_from(HOLES),
+    shaft=st.sampled_from(SHAFTS),
+)
+def test_every_fit_is_consistent(size: float, hole: tuple[str, int], shaft: tuple[str, int]) -> None:
+    assume(not (hole[0] == "N" and hole[1] > 8 and size <= 1.0))  # ISO 286-1: not standardised
+    code = f"{size!r} {hole[0]}{hole[1]}/{shaft[0]}{shaft[1]}"
+    fit = parse_fit(code)
+    assert isinstance(fit, Fit)
+    assert fit.hole is not None and fit.shaft is not None
+    assert fit.hole.upper_um >= fit.hole.lower_um and fit.shaft.upper_um >= fit.shaft.lower_um
+    # band width is the IT grade (ISO 286-1 definition of a tolerance class)
+    assert fit.hole.band_um == pytest.approx(it_um(hole[1], size))
+    assert fit.shaft.band_um == pytest.approx(it_um(shaft[1], size))
+    assert fit.clearance_min_um == pytest.approx(fit.hole.lower_um - fit.shaft.upper_um)
+    assert fit.clearance_max_um == pytest.approx(fit.hole.upper_um - fit.shaft.lower_um)
+    assert fit.clearance_max_um >= fit.clearance_min_um
+
+
+def test_limits_are_frozen_and_validated() -> None:
+    with pytest.raises(ValueError):
+        Limits(-1.0, 1.0)
+    limits = Limits(1.0, 0.0)
+    with pytest.raises(AttributeError):
+        limits.upper_um = 2.0  # type: ignore[misc]
