@@ -34,7 +34,24 @@ def _parser() -> argparse.ArgumentParser:
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("-o", "--out", default="out", help="output folder (default: out)")
     p.set_defaults(run=_build)
+    p = sub.add_parser("fit", help="limits and clearance of an ISO 286 fit, e.g. \"6 H7/g6\"")
+    p.add_argument("code", help='fit code: size, hole and/or shaft, e.g. "6 H7/g6", "12 H7/h6", "0.25in h6"')
+    p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.set_defaults(run=_fit)
     return top
+
+
+def _fit(args: argparse.Namespace) -> int:
+    from .textout import fit_text
+    from .tolerances.iso286 import FitCodeError, fit_summary, parse_fit
+
+    try:
+        fit = parse_fit(args.code)
+    except FitCodeError as exc:
+        raise DesignInputError("fit", "code", str(exc)) from None
+    result = fit_summary(fit)
+    print(json.dumps(result, indent=2) if args.json else fit_text(result))
+    return 0
 
 
 def _check(args: argparse.Namespace) -> int:

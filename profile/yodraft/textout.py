@@ -6,7 +6,7 @@ import math
 from .builder import Resolved
 from .units import MM_PER_INCH
 
-__all__ = ["check_text", "failed_lines"]
+__all__ = ["check_text", "failed_lines", "fit_text"]
 
 
 def _fmt(key: str, value: object) -> str:
@@ -48,4 +48,19 @@ def check_text(resolved: Resolved) -> str:
     lines.append(f"checks: {passed} of {len(resolved.checks)} passed")
     for c in resolved.checks:
         lines.append(f"  {'ok  ' if c.ok else 'FAIL'} {c.name} [{c.feature}.{c.parameter}] {c.message}")
+    return "\n".join(lines)
+
+
+def fit_text(fit: dict) -> str:
+    """An ISO 286 fit as a few lines: each part's deviations and limits, then the clearance range."""
+    lines = [f"fit {fit['code']}"]
+    for label in ("hole", "shaft"):
+        part = fit[label]
+        if part:
+            lines.append(f"  {label:<5} {part['code']:<4} {part['upper_um']:+g} / {part['lower_um']:+g} µm   "
+                         f"Ø{part['min_mm']:.4f} to Ø{part['max_mm']:.4f} mm "
+                         f"[{part['min_mm'] / MM_PER_INCH:.5f} to {part['max_mm'] / MM_PER_INCH:.5f} in]")
+    if fit["clearance_min_um"] is not None:
+        lines.append(f"  clearance {fit['clearance_min_um']:+g} to {fit['clearance_max_um']:+g} µm ({fit['kind']} fit; "
+                     "negative is interference)")
     return "\n".join(lines)
