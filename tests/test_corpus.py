@@ -95,7 +95,7 @@ def test_corpus_is_large_and_categorised() -> None:
                    "unknown catalog names", "unknown fit codes", "duplicate keys", "empty file", "non-UTF-8 file",
                    "binary file", "directory or missing file as DESIGN", "output folder that cannot be written",
                    "design name with path separators, control characters or MTEXT codes", "very long title",
-                   ):
+                   "a design rule"):
         assert needed in categories, needed
 
 

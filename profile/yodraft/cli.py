@@ -9,7 +9,7 @@ from pathlib import Path
 from typing import Any
 
 from . import __version__
-from .errors import DesignInputError, YodraftError
+from .errors import CheckFailure, DesignInputError, YodraftError
 
 __all__ = ["main"]
 
@@ -65,7 +65,9 @@ def _check(args: argparse.Namespace) -> int:
         print(json.dumps(summary(resolved), indent=2, sort_keys=False, ensure_ascii=False))
     else:
         print(check_text(resolved))
-    return 0 if resolved.ok else 1
+    if not resolved.ok:
+        raise CheckFailure(str(args.design), resolved.failed)  # the report is on stdout; one line on stderr
+    return 0
 
 
 def _build(args: argparse.Namespace) -> int:
@@ -75,9 +77,9 @@ def _build(args: argparse.Namespace) -> int:
     if not resolved.ok:
         from .textout import failed_lines
 
-        print("\n".join(failed_lines(resolved)), file=sys.stderr)
-        print("nothing written: fix the failed checks first", file=sys.stderr)
-        return 1
+        print("\n".join(failed_lines(resolved)))
+        print("nothing written: fix the failed checks first")
+        raise CheckFailure(str(args.design), resolved.failed)
     for path in written:
         print(path)
     return 0
