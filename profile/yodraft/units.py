@@ -33,8 +33,12 @@ KINDS: dict[str, tuple[str, str]] = {
     "roughness": ("micrometer", 'a roughness with a unit, e.g. "0.8 um"'),
 }
 
-_NUMBER = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?"
-_UNIT = r"[A-Za-zµμ°][A-Za-z0-9µμ°_]*(?:\s*(?:\*\*|\^|[*/])\s*[A-Za-z0-9µμ°_]+)*"
+# "nan" and "inf" are read as numbers only so that the message can say they are not finite
+_NUMBER = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?|[+-]?(?i:nan|inf(?:inity)?)"
+# unit names joined by * or /, each with an optional one-digit power ("g/cm^3"): a huge power
+# such as "km**400/m**399" would overflow the conversion, and no design quantity needs one
+_FACTOR = r"[A-Za-zµμ°][A-Za-z0-9µμ°_]*(?:\s*(?:\*\*|\^)\s*[1-9])?"
+_UNIT = rf"{_FACTOR}(?:\s*[*/]\s*{_FACTOR})*"
 _PATTERN = re.compile(rf"^\s*({_NUMBER})\s*({_UNIT})\s*$")
 
 
@@ -63,12 +67,15 @@ def parse_quantity(text: object, kind: str) -> float:
     if not match:
         raise UnitError(f"cannot read {text[:60]!r} as a number followed by a unit")
     number, unit = match.groups()
+    if not math.isfinite(float(number)):
+        raise UnitError(f"{text.strip()[:60]!r} is not a finite number")
     unit = unit.replace("^", "**").replace("μ", "u").replace("µ", "u").replace("°", "deg")
     ureg = registry()
     try:
         quantity = ureg.Quantity(float(number), ureg.parse_units(unit))
         value = float(quantity.to(base).magnitude)
-    except (pint.UndefinedUnitError, pint.DimensionalityError, AttributeError, TypeError, ValueError, KeyError, SyntaxError):
+    except (pint.UndefinedUnitError, pint.DimensionalityError, AttributeError, TypeError, ValueError, KeyError, SyntaxError,
+            ArithmeticError):
         raise UnitError(f"{unit!r} is not a unit of {kind}") from None
     if not math.isfinite(value):
         raise UnitError(f"{text[:60]!r} is not a finite number")
