@@ -1,6 +1,7 @@
 """Design file (TOML) → Design: plain floats in mm, g and rad, with key paths kept for messages."""
 from __future__ import annotations
 
+import datetime
 import math
 import re
 import tomllib
@@ -178,11 +179,22 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
     return Design(source, sections, features, frozenset(given), revisions, raw)
 
 
+def _is_date(text: str) -> bool:
+    """YYYY-MM-DD and a real day of the calendar (no 2026-02-30)."""
+    if not DATE_PATTERN.match(text):
+        return False
+    try:
+        datetime.date.fromisoformat(text)
+    except ValueError:
+        return False
+    return True
+
+
 def _check_design_section(values: dict[str, Any], source: str) -> None:
     if not NAME_PATTERN.match(values["name"]):
         raise DesignInputError(source, "design.name", f"{values['name'][:40]!r} cannot name a file",
                                "letters, digits, '.', '_' or '-', starting with a letter or digit, at most 64")
-    if not DATE_PATTERN.match(values["date"]):
+    if not _is_date(values["date"]):
         raise DesignInputError(source, "design.date", f"{values['date']!r} is not a date", "YYYY-MM-DD")
     if not re.match(r"^[A-Za-z0-9]{1,8}$", values["revision"]):
         raise DesignInputError(source, "design.revision", f"{values['revision']!r} is not a revision mark",
@@ -199,7 +211,7 @@ def _read_revisions(items: Any, source: str) -> tuple[Revision, ...]:
         for key in ("letter", "date"):
             if values[key] is None:
                 raise DesignInputError(source, f"{path}.{key}", "is missing", REVISION_SPECS[0 if key == "letter" else 1].expected())
-        if not DATE_PATTERN.match(values["date"]):
+        if not _is_date(values["date"]):
             raise DesignInputError(source, f"{path}.date", f"{values['date']!r} is not a date", "YYYY-MM-DD")
         out.append(Revision(values["letter"], values["date"], values["note"]))
     return tuple(out)
