@@ -131,6 +131,25 @@ def test_every_category_has_a_real_process_run() -> None:
     assert len(SUBPROCESS_CASES) >= 8
 
 
+# ------------------------------------------------------------------ good files in unusual dress
+
+@pytest.mark.parametrize("variant", ["bom", "crlf", "bom+crlf"])
+def test_editor_variants_of_a_good_file_build(variant: str, tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    data = TEMPLATE.read_bytes()
+    if "crlf" in variant:
+        data = data.replace(b"\n", b"\r\n")
+    if "bom" in variant:
+        data = "\ufeff".encode("utf-8") + data  # what some editors put first in a UTF-8 file
+    design = tmp_path / "design.toml"
+    design.write_bytes(data)
+    assert main(["check", str(design)]) == 0, capsys.readouterr().err
+    assert main(["build", str(design), "-o", str(tmp_path / "out")]) == 0
+    plain = tmp_path / "plain.toml"
+    plain.write_bytes(TEMPLATE.read_bytes())
+    assert main(["build", str(plain), "-o", str(tmp_path / "out2")]) == 0
+    assert (tmp_path / "out" / "larchmere-ls56-A.dxf").read_bytes() == (tmp_path / "out2" / "larchmere-ls56-A.dxf").read_bytes()
+
+
 # ------------------------------------------------------------------ nothing runs from input
 
 PACKAGE = ROOT / "profile" / "yodraft"

@@ -131,7 +131,7 @@ def load(path: str | Path) -> Design:
     except OSError as exc:
         raise DesignInputError(name, "", f"cannot be read ({exc.strerror})", "a readable design file") from None
     try:
-        text = data.decode("utf-8")
+        text = data.decode("utf-8-sig")  # an editor's byte-order mark is not part of the design
     except UnicodeDecodeError as exc:
         raise DesignInputError(name, "", f"is not UTF-8 text (byte {exc.start})", "a UTF-8 TOML design file") from None
     return loads(text, name)
