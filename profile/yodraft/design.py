@@ -12,7 +12,7 @@ from typing import Any
 
 from .errors import DesignInputError
 from .features import FEATURES
-from .params import ParamSpec, check_unknown, read_table
+from .params import ParamSpec, check_name, check_unknown, read_table
 
 __all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "NAME_PATTERN"]
 
@@ -166,6 +166,7 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
         given.update(f"{section}.{k}" for k in table)
         sections[section] = values
     _check_design_section(sections["design"], source)
+    _check_catalog_names(sections, source)
     feature_tables = raw.get("features", {})
     if not isinstance(feature_tables, Mapping):
         raise DesignInputError(source, "features", f"got {type(feature_tables).__name__}", "a table of feature tables")
@@ -199,6 +200,21 @@ def _check_design_section(values: dict[str, Any], source: str) -> None:
     if not re.match(r"^[A-Za-z0-9]{1,8}$", values["revision"]):
         raise DesignInputError(source, "design.revision", f"{values['revision']!r} is not a revision mark",
                                "letters or digits, e.g. A or 2")
+
+
+def _check_catalog_names(sections: Mapping[str, Mapping[str, Any]], source: str) -> None:
+    """Material, bearing size and precision class must name catalog rows (checked here, where the key is known)."""
+    from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
+    from .catalog.materials import MATERIALS, lookup_material
+    from .tolerances.bearings import PRECISION_CLASSES, normalise_precision
+
+    check_name(sections["design"]["material"], lookup_material, list(MATERIALS), source, "design.material", "material")
+    bearing = sections["bearing"]
+    if all(bearing[k] is None for k in ("bore", "od", "width")):
+        check_name(bearing["size"], lookup_bearing, list(LETTER_SIZES) + list(BEARINGS), source, "bearing.size",
+                   "bearing")
+    check_name(bearing["precision"], normalise_precision, list(PRECISION_CLASSES), source, "bearing.precision",
+               "precision class")
 
 
 def _read_revisions(items: Any, source: str) -> tuple[Revision, ...]:

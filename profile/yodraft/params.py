@@ -9,14 +9,14 @@ from __future__ import annotations
 import difflib
 import math
 import re
-from collections.abc import Mapping, Sequence
+from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass
 from typing import Any
 
 from .errors import DesignInputError
 from .units import KINDS, UnitError, parse_quantity
 
-__all__ = ["ParamSpec", "read_table", "check_unknown", "describe"]
+__all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "describe"]
 
 _QUANTITY_KINDS = set(KINDS)
 _OTHER_KINDS = {"text", "bool", "number"}
@@ -122,6 +122,22 @@ def check_unknown(table: Mapping[str, Any], known: Sequence[str], file: str, pat
             full = f"{path}.{key}" if path else key
             raise DesignInputError(file, full, f"unknown {what}{_suggest(key, known)}",
                                    "one of " + ", ".join(known))
+
+
+def check_name(value: str, lookup: Callable[[str], Any], options: Sequence[str], file: str, key: str,
+               what: str) -> None:
+    """Raise unless ``lookup(value)`` finds a catalog row, naming ``key`` and the nearest valid name.
+
+    >>> check_name("6062-T6", {"6061-T6": 1}.__getitem__, ["6061-T6"], "a.toml", "design.material", "material")
+    Traceback (most recent call last):
+    ...
+    yodraft.errors.DesignInputError: a.toml: design.material: unknown material '6062-T6'; did you mean '6061-T6'? (expected one of 6061-T6)
+    """
+    try:
+        lookup(value)
+    except (KeyError, ValueError):
+        raise DesignInputError(file, key, f"unknown {what} {value[:40]!r}{_suggest(value, options)}",
+                               "one of " + ", ".join(options)) from None
 
 
 def read_table(table: Any, specs: Sequence[ParamSpec], file: str, path: str) -> dict[str, Any]:
