@@ -13,6 +13,7 @@ import re
 import subprocess
 import sys
 import tomllib
+import unicodedata
 from pathlib import Path
 from typing import Any
 
@@ -79,6 +80,7 @@ def assert_one_clear_line(case: dict[str, Any], code: int, stderr: str) -> None:
     assert len(lines) == 1, f"{case['name']}: expected one stderr line, got {lines!r}"
     line = lines[0]
     assert line.startswith("yodraft: "), line
+    assert not any(unicodedata.category(c) in ("Cc", "Cf") for c in line), f"control character in {line!r}"
     for word in case["words"]:
         assert word.lower() in line.lower(), f"{case['name']}: {word!r} not in {line!r}"
 

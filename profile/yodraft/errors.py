@@ -1,13 +1,28 @@
 """The error family: bad input (exit 2) and a failed design rule (exit 1)."""
 from __future__ import annotations
 
+import unicodedata
 from collections.abc import Sequence
 from typing import TYPE_CHECKING
 
 if TYPE_CHECKING:  # pragma: no cover
     from .checks import Check
 
-__all__ = ["YodraftError", "DesignInputError", "CheckFailure"]
+__all__ = ["YodraftError", "DesignInputError", "CheckFailure", "one_line"]
+
+
+def one_line(text: str) -> str:
+    r"""``text`` as one terminal-safe line: whitespace runs become one space, and control or
+    format characters (an escape sequence in a key name, a right-to-left override) are shown
+    as escapes instead of acting on the terminal.
+
+    >>> one_line("a.toml:\n design.\x1b[31mred: unknown key")
+    'a.toml: design.\\x1b[31mred: unknown key'
+    """
+    text = " ".join(text.split())
+    return "".join(
+        (f"\\x{ord(c):02x}" if ord(c) < 0x100 else f"\\u{ord(c):04x}") if unicodedata.category(c) in ("Cc", "Cf") else c
+        for c in text)
 
 
 class YodraftError(Exception):
@@ -36,7 +51,7 @@ class DesignInputError(YodraftError, ValueError):
         text = f"{self.file}: {self.key}: {self.problem}" if self.key else f"{self.file}: {self.problem}"
         if self.expected:
             text += f" (expected {self.expected})"
-        return " ".join(text.split())  # always one line
+        return one_line(text)
 
 
 class CheckFailure(YodraftError):
@@ -51,4 +66,4 @@ class CheckFailure(YodraftError):
 
     def __str__(self) -> str:
         names = ", ".join(f"{c.name} ({c.feature}.{c.parameter})" for c in self.failed)
-        return f"{self.file}: {len(self.failed)} check(s) failed: {names}"
+        return one_line(f"{self.file}: {len(self.failed)} check(s) failed: {names}")
