@@ -1,0 +1,217 @@
+"""Property tests: every numeric design parameter, within and beyond its bounds.
+
+Whatever value a designer types, yodraft either refuses it with a message that
+names a key (DesignInputError) or a check (a failed Check), or it accepts the
+design, and then the half-profile is one simple counter-clockwise loop inside the
+envelope whose DXF re-reads with no audit errors. The reference for "valid" is
+outside the project: shapely's validity and simplicity tests and ezdxf's recover
+mode and auditor.
+
+The default run is small; set YODRAFT_FUZZ_EXAMPLES to search harder, e.g.
+``YODRAFT_FUZZ_EXAMPLES=2000 pytest tests/test_properties.py``.
+"""
+from __future__ import annotations
+
+import copy
+import io
+import math
+import os
+import tomllib
+from pathlib import Path
+from typing import Any
+
+import ezdxf.recover
+import pytest
+from hypothesis import HealthCheck, event, given, settings
+from hypothesis import strategies as st
+
+import yodraft
+from yodraft.builder import build
+from yodraft.design import SECTIONS, from_dict
+from yodraft.drawing.outline import dxf_bytes, outline_document
+from yodraft.errors import CheckFailure, DesignInputError
+from yodraft.features import FEATURES
+from yodraft.params import ParamSpec
+
+ROOT = Path(__file__).resolve().parents[1]
+TEMPLATE = tomllib.loads((ROOT / "templates" / "string-trick.toml").read_text(encoding="utf-8"))
+MINIMAL = tomllib.loads(yodraft.EXAMPLE)
+EXAMPLES = int(os.environ.get("YODRAFT_FUZZ_EXAMPLES", "40"))
+FUZZ = settings(max_examples=EXAMPLES, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+
+#: the base unit each kind's bounds are held in, as a user would type it
+UNIT = {"length": "mm", "mass": "g", "angle": "rad", "torque": "N*mm", "density": "g/cm^3", "speed": "rpm",
+        "roughness": "um"}
+
+
+def numeric_specs() -> list[tuple[tuple[str, ...], ParamSpec]]:
+    """(key path, spec) of every numeric parameter of a design file."""
+    out = [((section, s.name), s) for section, specs in SECTIONS.items() for s in specs]
+    out += [(("features", name, s.name), s) for name, module in FEATURES.items() for s in module.PARAMS]
+    return [(path, s) for path, s in out if s.kind in UNIT or s.kind == "number"]
+
+
+SPECS = numeric_specs()
+
+
+def test_every_numeric_parameter_is_fuzzed() -> None:
+    # the list is read from the specs themselves, so a new parameter is fuzzed without editing this file
+    paths = {".".join(p) for p, _ in SPECS}
+    assert {"envelope.diameter", "features.rim.thickness", "shop.coating_outward_share",
+            "features.bearing_seat.wall_offset", "analysis.spin_rate"} <= paths
+    assert len(SPECS) >= 40
+
+
+def span(spec: ParamSpec) -> tuple[float, float]:
+    lo = spec.lo if spec.lo is not None else -100.0
+    hi = spec.hi if spec.hi is not None else 100.0
+    width = max(hi - lo, 1.0)
+    return lo - width, hi + width
+
+
+@st.composite
+def value_for(draw: st.DrawFn, spec: ParamSpec, inside: bool) -> Any:
+    """A TOML value for ``spec``: inside its bounds, or anywhere (beyond, on the edge, non-finite)."""
+    if inside:
+        lo = spec.lo if spec.lo is not None else -100.0
+        hi = spec.hi if spec.hi is not None else 100.0
+        x = draw(st.floats(lo, hi, exclude_min=not spec.lo_closed))
+    else:
+        lo, hi = span(spec)
+        edges = [e for e in (spec.lo, spec.hi) if e is not None]
+        x = draw(st.one_of(
+            st.floats(lo, hi),
+            st.sampled_from(edges + [0.0, -0.0, math.nan, math.inf, -math.inf, 1e300, -1e300, 5e-324]),
+            st.sampled_from(edges).map(lambda e: math.nextafter(e, math.inf)) if edges else st.just(1.0),
+            st.sampled_from(edges).map(lambda e: math.nextafter(e, -math.inf)) if edges else st.just(-1.0),
+        ))
+    if spec.kind == "number":
+        return x
+    return f"{x!r} {UNIT[spec.kind]}"
+
+
+@st.composite
+def designs(draw: st.DrawFn, inside: bool = False) -> tuple[dict[str, Any], list[str]]:
+    """A parsed design file (template or minimal) with one to four numeric parameters changed."""
+    raw = copy.deepcopy(draw(st.sampled_from([TEMPLATE, MINIMAL])))
+    chosen = draw(st.lists(st.sampled_from(SPECS), min_size=1, max_size=4, unique_by=lambda ps: ps[0]))
+    keys = []
+    for path, spec in chosen:
+        table = raw
+        for part in path[:-1]:
+            table = table.setdefault(part, {})
+        table[path[-1]] = draw(value_for(spec, inside))
+        keys.append(".".join(path))
+    return raw, keys
+
+
+def assert_valid_accepted(resolved: yodraft.Resolved) -> None:
+    profile = resolved.profile
+    assert profile is not None
+    poly = profile.polygon()
+    assert poly.is_valid and poly.exterior.is_simple, "the loop crosses itself"
+    assert profile.signed_area() > 0, "the loop is not counter-clockwise"
+    z_min, r_min, z_max, r_max = profile.bounds()
+    env = resolved.design["envelope"]
+    assert z_min >= -1e-9 and r_min >= -1e-9
+    assert 2 * r_max <= env["diameter"] + 1e-6 and 2 * z_max <= env["width"] + 1e-6
+    data = dxf_bytes(outline_document(resolved))
+    doc, auditor = ezdxf.recover.read(io.BytesIO(data))
+    assert not auditor.has_errors, [e.message for e in auditor.errors]
+    assert len(doc.modelspace().query("LWPOLYLINE")) == 2
+    try:
+        from yodraft.massprops import body_props
+    except ImportError:  # mass properties not merged yet
+        return
+    density = resolved["material.density_g_cm3"]
+    assert body_props(profile, density).mass_g > 0
+
+
+def judge(raw: dict[str, Any], keys: list[str]) -> str:
+    """Load, build and check one fuzzed design; return "refused", "failed" or "accepted"."""
+    try:
+        resolved = build(from_dict(raw, "fuzz.toml"))
+    except DesignInputError as exc:
+        text = str(exc)
+        assert exc.key, text
+        assert "\n" not in text and text.startswith("fuzz.toml: ")
+        return "refused"
+    if resolved.ok:
+        assert_valid_accepted(resolved)
+        return "accepted"
+    failed = resolved.failed
+    assert failed and all(c.name and c.feature and c.parameter for c in failed)
+    text = str(CheckFailure("fuzz.toml", failed))
+    assert "\n" not in text and failed[0].name in text
+    return "failed"
+
+
+@FUZZ
+@given(designs())
+def test_any_value_is_refused_by_key_failed_by_check_or_drawn(case: tuple[dict[str, Any], list[str]]) -> None:
+    raw, keys = case
+    event(judge(raw, keys))
+
+
+@FUZZ
+@given(designs(inside=True))
+def test_values_inside_their_bounds_always_load(case: tuple[dict[str, Any], list[str]]) -> None:
+    raw, keys = case
+    from_dict(raw, "fuzz.toml")  # no DesignInputError: the bounds the reference states are the bounds enforced
+    event(judge(raw, keys))
+
+
+@FUZZ
+@given(st.sampled_from(SPECS), st.data())
+def test_one_value_beyond_its_bounds_is_refused_at_its_key(spec_path: tuple[tuple[str, ...], ParamSpec],
+                                                           data: st.DataObject) -> None:
+    path, spec = spec_path
+    lo, hi = span(spec)
+    beyond = []
+    if spec.lo is not None:
+        beyond.append(st.floats(lo, spec.lo, exclude_max=spec.lo_closed))
+    if spec.hi is not None:
+        beyond.append(st.floats(spec.hi, hi, exclude_min=True))
+    beyond.append(st.sampled_from([math.nan, math.inf, -math.inf]))
+    x = data.draw(st.one_of(beyond))
+    raw = copy.deepcopy(TEMPLATE)
+    table = raw
+    for part in path[:-1]:
+        table = table.setdefault(part, {})
+    table[path[-1]] = x if spec.kind == "number" else f"{x!r} {UNIT[spec.kind]}"
+    with pytest.raises(DesignInputError) as info:
+        from_dict(raw, "fuzz.toml")
+    assert info.value.key == ".".join(path)
+
+
+def test_the_template_is_accepted_and_drawn() -> None:
+    # the property above must see accepted designs too, or it proves nothing about them
+    assert judge(copy.deepcopy(TEMPLATE), []) == "accepted"
+    assert judge(copy.deepcopy(MINIMAL), []) == "accepted"
+
+
+TEMPLATE_TEXT = (ROOT / "templates" / "string-trick.toml").read_text(encoding="utf-8")
+
+
+@st.composite
+def mutated_template(draw: st.DrawFn) -> str:
+    """The template with a few characters inserted, deleted or replaced, as a slip of the keyboard would."""
+    text = TEMPLATE_TEXT
+    for _ in range(draw(st.integers(1, 3))):
+        at = draw(st.integers(0, len(text)))
+        cut = draw(st.integers(0, 3))
+        new = draw(st.text(st.sampled_from('0123456789.-+e "=[]#\\\n\tmingdeaxz_,{}\'') | st.characters(), max_size=3))
+        text = text[:at] + new + text[at + cut:]
+    return text
+
+
+@FUZZ
+@given(mutated_template())
+def test_a_mistyped_file_is_refused_by_key_or_handled(text: str) -> None:
+    try:
+        design = yodraft.loads(text, "fuzz.toml")
+    except DesignInputError as exc:
+        assert "\n" not in str(exc) and str(exc).startswith("fuzz.toml: ")
+        event("refused")
+        return
+    event(judge(dict(design.raw), []))
