@@ -1,0 +1,146 @@
+"""Atomic, safe output: a killed build leaves the previous drawing intact, and names stay in the output folder.
+
+The reference for "atomic" is POSIX rename(2) as used by os.replace: the name
+points at the old file or the new one, never at a half-written one.
+"""
+from __future__ import annotations
+
+import os
+import signal
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from yodraft.cli import main
+from yodraft.errors import DesignInputError
+from yodraft.output import output_path, prepare_directory, safe_stem, write_atomic
+
+ROOT = Path(__file__).resolve().parents[1]
+TEMPLATE = ROOT / "templates" / "string-trick.toml"
+OLD = b"previous drawing\n" * 1000
+SIZE = 16 * 1024 * 1024  # large enough that a write takes a while
+
+# The child writes through write_atomic. "halfway": the file object writes half the data,
+# says so and hangs (a slow disk); "replace": the data is complete and the child hangs just
+# before the rename; "loop": it rewrites the file forever with two alternating contents.
+CHILD = r"""
+import os, sys, time
+from pathlib import Path
+from yodraft.output import write_atomic
+
+path, mode, size = Path(sys.argv[1]), sys.argv[2], int(sys.argv[3])
+versions = [b"A" * size, b"B" * size]
+if mode == "halfway":
+    real_fdopen = os.fdopen
+
+    class Hanging:
+        def __init__(self, handle): self.handle = handle
+        def __enter__(self): return self
+        def __exit__(self, *exc): self.handle.close()
+        def write(self, data):
+            self.handle.write(data[: len(data) // 2]); self.handle.flush()
+            print("half", flush=True); time.sleep(120)
+        def flush(self): self.handle.flush()
+        def fileno(self): return self.handle.fileno()
+
+    os.fdopen = lambda fd, mode: Hanging(real_fdopen(fd, mode))
+elif mode == "replace":
+    real_replace = os.replace
+
+    def hanging_replace(src, dst):
+        print("replace", flush=True); time.sleep(120)
+
+    os.replace = hanging_replace
+print("start", flush=True)
+i = 0
+while True:
+    write_atomic(path, versions[i % 2])
+    i += 1
+    if mode != "loop":
+        break
+"""
+
+
+def run_child(target: Path, mode: str, wait_for: str, delay: float = 0.0) -> None:
+    env = dict(os.environ, PYTHONPATH=str(ROOT / "profile"))
+    child = subprocess.Popen([sys.executable, "-c", CHILD, str(target), mode, str(SIZE)], stdout=subprocess.PIPE,
+                             env=env, text=True)
+    try:
+        assert child.stdout is not None
+        while True:
+            line = child.stdout.readline()
+            assert line, "the child ended before it was killed"
+            if line.strip() == wait_for:
+                break
+        time.sleep(delay)
+    finally:
+        child.send_signal(signal.SIGKILL)
+        child.wait(timeout=30)
+    assert child.returncode == -signal.SIGKILL
+
+
+@pytest.mark.parametrize("mode, wait_for", [("halfway", "half"), ("replace", "replace")])
+def test_a_killed_write_leaves_the_previous_file(tmp_path: Path, mode: str, wait_for: str) -> None:
+    target = tmp_path / "larchmere-ls56-A.dxf"
+    target.write_bytes(OLD)
+    run_child(target, mode, wait_for)
+    assert target.read_bytes() == OLD
+    # the half-written temporary file is hidden and never under the final name
+    others = [p.name for p in tmp_path.iterdir() if p != target]
+    assert all(name.startswith(".larchmere-ls56-A.dxf.") and name.endswith(".part") for name in others), others
+    if mode == "halfway":
+        assert others, "the child should have been killed mid-write"
+
+
+@pytest.mark.parametrize("delay", [0.0, 0.05, 0.2, 0.45])
+def test_killing_a_rewrite_loop_never_leaves_a_partial_file(tmp_path: Path, delay: float) -> None:
+    target = tmp_path / "larchmere-ls56-A.dxf"
+    target.write_bytes(OLD)
+    run_child(target, "loop", "start", delay)
+    data = target.read_bytes()
+    assert data == OLD or data in (b"A" * SIZE, b"B" * SIZE), f"partial file of {len(data)} bytes"
+
+
+def test_write_atomic_replaces_and_leaves_no_temporary(tmp_path: Path) -> None:
+    target = tmp_path / "a.dxf"
+    write_atomic(target, b"one")
+    write_atomic(target, b"two")
+    assert target.read_bytes() == b"two"
+    assert [p.name for p in tmp_path.iterdir()] == ["a.dxf"]
+
+
+def test_prepare_directory_refuses_what_cannot_hold_files(tmp_path: Path) -> None:
+    (tmp_path / "file").write_bytes(b"x")
+    for bad in (tmp_path / "file", tmp_path / "file" / "sub", Path("/proc/yodraft-test")):
+        with pytest.raises(DesignInputError):
+            prepare_directory(bad)
+    assert prepare_directory(tmp_path / "new" / "deeper").is_dir()
+
+
+# ------------------------------------------------------------------ names stay inside the output folder
+
+@settings(max_examples=300, deadline=None)
+@given(st.text(max_size=300), st.text(max_size=20))
+def test_any_name_gives_a_plain_file_name_inside_the_folder(name: str, revision: str) -> None:
+    stem = safe_stem(name, revision)
+    assert stem and stem not in (".", "..") and not stem.startswith(".")
+    assert all(c.isascii() and (c.isalnum() or c in "._-") for c in stem), stem
+    folder = Path("/tmp/yodraft-out")
+    assert output_path(folder, f"{stem}.dxf").parent == folder.resolve()
+
+
+@pytest.mark.parametrize("bad", ["../x.dxf", "a/b.dxf", "/etc/passwd", "..", ".", "", "a/../../b"])
+def test_output_path_refuses_names_that_leave_the_folder(bad: str, tmp_path: Path) -> None:
+    with pytest.raises(ValueError):
+        output_path(tmp_path, bad)
+
+
+@pytest.mark.parametrize("name", ["../../etc/larchmere", "a/b", "a\\b", "..", "x\x00y", "larch\\Pmere", "{\\fArial;x}"])
+def test_a_design_name_with_path_parts_never_escapes(name: str) -> None:
+    stem = safe_stem(name, "A")
+    assert "/" not in stem and "\\" not in stem and "\x00" not in stem and not stem.startswith(".")
