@@ -114,6 +114,18 @@ def test_write_atomic_replaces_and_leaves_no_temporary(tmp_path: Path) -> None:
     assert [p.name for p in tmp_path.iterdir()] == ["a.dxf"]
 
 
+def test_a_symlink_under_the_output_name_is_replaced_not_followed(tmp_path: Path) -> None:
+    outside = tmp_path / "outside.dxf"
+    outside.write_bytes(OLD)
+    out = tmp_path / "out"
+    out.mkdir()
+    (out / "larchmere-ls56-A.dxf").symlink_to(outside)
+    assert main(["build", str(TEMPLATE), "-o", str(out)]) == 0
+    assert outside.read_bytes() == OLD, "the build wrote through a link to outside the output folder"
+    written = out / "larchmere-ls56-A.dxf"
+    assert not written.is_symlink() and written.read_bytes().startswith(b"  0\nSECTION")
+
+
 def test_prepare_directory_refuses_what_cannot_hold_files(tmp_path: Path) -> None:
     (tmp_path / "file").write_bytes(b"x")
     for bad in (tmp_path / "file", tmp_path / "file" / "sub", Path("/proc/yodraft-test")):

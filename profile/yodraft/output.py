@@ -42,9 +42,18 @@ def safe_stem(name: str, revision: str) -> str:
 
 
 def output_path(directory: Path, filename: str) -> Path:
-    """``directory / filename``, refusing any name that would leave the directory."""
+    """``directory / filename``, refusing any name that would leave the directory.
+
+    The name itself is not resolved: a link already standing under that name is
+    replaced by the new file, never followed out of the folder.
+
+    >>> output_path(Path("/tmp"), "x-A.dxf")
+    PosixPath('/tmp/x-A.dxf')
+    """
     directory = Path(directory).resolve()
-    target = (directory / filename).resolve()
+    if filename in ("", ".", "..") or "/" in filename or "\\" in filename or "\x00" in filename:
+        raise ValueError(f"output name {filename!r} leaves {directory}")
+    target = directory / filename
     if target.parent != directory:
         raise ValueError(f"output name {filename!r} leaves {directory}")
     return target
