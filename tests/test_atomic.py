@@ -114,6 +114,17 @@ def test_write_atomic_replaces_and_leaves_no_temporary(tmp_path: Path) -> None:
     assert [p.name for p in tmp_path.iterdir()] == ["a.dxf"]
 
 
+def test_an_output_name_taken_by_a_folder_is_one_line_and_keeps_the_folder(tmp_path: Path,
+                                                                            capsys: pytest.CaptureFixture[str]) -> None:
+    out = tmp_path / "out"
+    (out / "larchmere-ls56-A.dxf").mkdir(parents=True)
+    code = main(["build", str(TEMPLATE), "-o", str(out)])
+    err = capsys.readouterr().err
+    assert code == 2 and len(err.splitlines()) == 1 and "larchmere-ls56-A.dxf" in err, err
+    assert (out / "larchmere-ls56-A.dxf").is_dir()
+    assert [p.name for p in out.iterdir()] == ["larchmere-ls56-A.dxf"]
+
+
 def test_a_symlink_under_the_output_name_is_replaced_not_followed(tmp_path: Path) -> None:
     outside = tmp_path / "outside.dxf"
     outside.write_bytes(OLD)

@@ -14,20 +14,33 @@ __all__ = ["write_atomic", "safe_stem", "output_path", "prepare_directory", "bui
 
 
 def write_atomic(path: Path, data: bytes) -> None:
-    """Write ``data`` to ``path`` so that a reader sees the old file or the new one, never half of one."""
+    """Write ``data`` to ``path`` so that a reader sees the old file or the new one, never half of one.
+
+    The data goes to a hidden temporary file in the same folder, is flushed to disk and
+    then renamed over ``path``. A name that cannot be written (a folder stands there, the
+    disk is full) is a DesignInputError naming the file; the old file is left as it was.
+    """
+    from .errors import DesignInputError
+
     path = Path(path)
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".part", dir=path.parent)
+    try:
+        fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".part", dir=path.parent)
+    except OSError as exc:
+        raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})", "a writable output folder") from None
     try:
         with os.fdopen(fd, "wb") as handle:
             handle.write(data)
             handle.flush()
             os.fsync(handle.fileno())
         os.replace(tmp, path)
-    except BaseException:
+    except BaseException as exc:
         try:
             os.unlink(tmp)
         except FileNotFoundError:
             pass
+        if isinstance(exc, OSError):
+            raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})",
+                                   "a file name free of folders in a writable output folder") from None
         raise
 
 
