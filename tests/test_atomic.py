@@ -151,10 +151,20 @@ def test_prepare_directory_refuses_what_cannot_hold_files(tmp_path: Path) -> Non
 @given(st.text(max_size=300), st.text(max_size=20))
 def test_any_name_gives_a_plain_file_name_inside_the_folder(name: str, revision: str) -> None:
     stem = safe_stem(name, revision)
-    assert stem and stem not in (".", "..") and not stem.startswith(".")
+    assert stem and stem not in (".", "..") and stem[0] not in ".-"
     assert all(c.isascii() and (c.isalnum() or c in "._-") for c in stem), stem
+    assert len(f"{stem}.sheet.dxf".encode()) <= 255  # NAME_MAX on common file systems
     folder = Path("/tmp/yodraft-out")
     assert output_path(folder, f"{stem}.dxf").parent == folder.resolve()
+
+
+@pytest.mark.parametrize("name, revision", [("x" * 300, "A"), ("ø" * 200, "B" * 300), ("-rf", "A"), ("", ""),
+                                            ("...", "..."), ("-", "-")])
+def test_long_or_odd_names_still_make_a_writable_file(name: str, revision: str, tmp_path: Path) -> None:
+    stem = safe_stem(name, revision)
+    assert stem[0] not in ".-"
+    write_atomic(output_path(tmp_path, f"{stem}.sheet.dxf"), b"x")
+    assert [p.name for p in tmp_path.iterdir()] == [f"{stem}.sheet.dxf"]
 
 
 @pytest.mark.parametrize("bad", ["../x.dxf", "a/b.dxf", "/etc/passwd", "..", ".", "", "a/../../b"])

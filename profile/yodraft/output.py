@@ -44,14 +44,23 @@ def write_atomic(path: Path, data: bytes) -> None:
         raise
 
 
+#: longest stem, leaving room for suffixes such as ".sheet.dxf" under the usual 255-byte name limit
+STEM_MAX = 100
+
+
 def safe_stem(name: str, revision: str) -> str:
     """A file stem ``<name>-<revision>`` with anything but letters, digits, '.', '_' and '-' replaced.
 
+    It never starts with '.' (a hidden file) or '-' (read as an option by shell tools)
+    and is at most STEM_MAX characters long.
+
     >>> safe_stem("ls56/../x", "B")
     'ls56_.._x-B'
+    >>> safe_stem("-rf", "A"), safe_stem("", "")
+    ('rf-A', 'design')
     """
-    clean = re.sub(r"[^A-Za-z0-9._-]", "_", f"{name}-{revision}").lstrip(".")
-    return clean or "design"
+    clean = re.sub(r"[^A-Za-z0-9._-]", "_", f"{name[:STEM_MAX]}-{revision[:20]}").lstrip(".-")
+    return clean[:STEM_MAX] or "design"
 
 
 def output_path(directory: Path, filename: str) -> Path:
