@@ -206,14 +206,14 @@ def _show(value: Any, unit: str) -> str:
         return "—"
     if _number(value):
         text = f"{value:.6g}" if unit != "µm" else f"{value:.3g}"
-        return f"{text} {unit}".rstrip()
+        return f"{text}{unit}" if unit == "°" else f"{text} {unit}".rstrip()
     if isinstance(value, list):
         return "; ".join(str(v) for v in value) or "(none)"
     return str(value)
 
 
 def _signed(delta: float, unit: str) -> str:
-    return f"{delta:+.6g} {unit}".rstrip()
+    return f"{delta:+.6g}{unit}" if unit == "°" else f"{delta:+.6g} {unit}".rstrip()
 
 
 def diff_text(d: DesignDiff, limit: int | None = None) -> str:
