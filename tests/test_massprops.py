@@ -297,3 +297,16 @@ def test_parallel_axis_under_translation(shape, dz):
     # parallel-axis theorem: I about z = 0 = I about the mass centre + m z̄²
     expect = a.ixx_cg_g_mm2 + a.mass_g * (a.z_centroid_mm + dz) ** 2
     assert b.ixx_g_mm2 == pytest.approx(expect, rel=1e-9, abs=1e-9)
+
+
+@pytest.mark.parametrize("pieces", [2, 3])
+@pytest.mark.parametrize("d", [-2.5, -1.0, 0.7, 2.9])
+def test_clip_of_circle_is_a_circular_segment(pieces, d):
+    # circular segment beyond a chord at distance d from the centre: A = a² acos(d/a) − d √(a² − d²)
+    # (standard mensuration formula)
+    big, a = 20.0, 3.0
+    cut = clipped_section_integrals(circle(4.0, big, a, pieces), big + d)
+    expect = a**2 * math.acos(d / a) - d * math.sqrt(a**2 - d**2)
+    assert rel(cut.a, expect) < 1e-12
+    # its centroid lies 2 (a² − d²)^(3/2) / (3 A) from the centre (standard centroid table)
+    assert rel(cut.r1 / cut.a - big, 2 * (a**2 - d**2) ** 1.5 / (3 * expect)) < 1e-9
