@@ -40,6 +40,13 @@ def _parser() -> argparse.ArgumentParser:
     p.add_argument("code", help='fit code: size, hole and/or shaft, e.g. "6 H7/g6", "12 H7/h6", "0.25in h6"')
     p.add_argument("--json", action="store_true", help="print one JSON object")
     p.set_defaults(run=_fit)
+    p = sub.add_parser("solve", help="move one parameter until the design hits a target mass, Izz or gap")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--target", required=True, help='what to hit, e.g. mass=66g, izz=30000g*mm^2, gap=4.2mm')
+    p.add_argument("--vary", required=True, help="numeric parameter to move, e.g. features.rim.width")
+    p.add_argument("-o", "--out", help="where to write the solved design (default: beside it, named by the new revision)")
+    p.add_argument("--date", help="date of the new revision, YYYY-MM-DD (default: the design's date of issue)")
+    p.set_defaults(run=_solve)
     _add_revising(sub)
     return top
 
@@ -188,6 +195,58 @@ def _watch(args: argparse.Namespace) -> int:
                 print(f"{label}:\n" + diff_text(event.changes, limit=20), flush=True)
     except KeyboardInterrupt:
         pass
+    return 0
+
+
+def _solve(args: argparse.Namespace) -> int:
+    from .design import DATE_PATTERN, load, loads
+    from .solve import TARGETS, find_spec, quantity_text, solve
+    from .textout import failed_lines
+    from .tomledit import add_revision, bump_revision, set_key
+    from .units import parse_quantity, UnitError
+
+    design = load(args.design)
+    name, _, text = args.target.partition("=")
+    if name not in TARGETS or not text:
+        raise DesignInputError(args.design, "--target", f"cannot read {args.target!r}",
+                               "mass=<mass>, izz=<g*mm^2> or gap=<length>, e.g. mass=66g")
+    kind = TARGETS[name][0]
+    try:
+        goal = (parse_quantity(text, "inertia") if kind == "inertia" else parse_quantity(text, kind))
+    except UnitError as exc:
+        raise DesignInputError(args.design, "--target", str(exc), f"a {name} with a unit") from None
+    parts, spec = find_spec(args.vary, args.design)
+    if args.date is not None and not DATE_PATTERN.match(args.date):
+        raise DesignInputError(args.design, "--date", f"{args.date!r} is not a date", "YYYY-MM-DD")
+    try:
+        result = solve(design, name, goal, args.vary)
+    except ValueError as exc:
+        if isinstance(exc, DesignInputError):
+            raise
+        print(f"yodraft: {args.design}: {exc}", file=sys.stderr)
+        return 1
+    if not result.resolved.ok:
+        print("\n".join(failed_lines(result.resolved)), file=sys.stderr)
+        print(f"yodraft: {args.design}: the solved design breaks the checks above; nothing written", file=sys.stderr)
+        return 1
+    source = Path(args.design)
+    revision = bump_revision(design.revision)
+    out = Path(args.out) if args.out else source.with_name(f"{source.stem}-{revision}.toml")
+    if out.exists() or out.resolve() == source.resolve():
+        raise DesignInputError(str(out), "", "already exists", "a new file name for the solved design (-o)")
+    value_text = quantity_text(result.value, spec)
+    note = f"{'.'.join(parts)} solved to {value_text} for {name} {text}"
+    new = set_key(source.read_text(encoding="utf-8"), ".".join(parts[:-1]), parts[-1], value_text,
+                  f"solved for {name} {text}")
+    new = set_key(new, "design", "revision", revision)
+    new = add_revision(new, revision, args.date or design["design"]["date"], note)
+    loads(new, str(out))  # the text written must read back
+    from .output import write_atomic
+
+    write_atomic(out, new.encode("utf-8"))
+    print(f"{'.'.join(parts)} = {value_text}: {name} {result.achieved:.4f} (target {goal:g}) after "
+          f"{result.evaluations} trials; every check passes")
+    print(out)
     return 0
 
 

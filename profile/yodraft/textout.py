@@ -35,7 +35,9 @@ def check_text(resolved: Resolved) -> str:
         lines.append(f"  {label:<10} Ø{part.nominal_mm:.4f} ± {part.tolerance_mm:.4f} mm "
                      f"[{part.nominal_mm / MM_PER_INCH:.4f} ± {part.tolerance_mm / MM_PER_INCH:.4f} in]  "
                      f"turn to Ø{part.precoat_mm:.4f} before coating  "
-                     f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm")
+                     f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm worst case, "
+                     f"{part.rss_min_mm * 1000:.1f} to {part.rss_max_mm * 1000:.1f} µm RSS, "
+                     f"P(no slide) {part.p_no_slide:.2g}")
     lines.append("")
     lines.append("resolved dimensions (* derived)")
     for name, feature in resolved.features.items():

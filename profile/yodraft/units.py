@@ -30,6 +30,7 @@ KINDS: dict[str, tuple[str, str]] = {
     "torque": ("newton * millimeter", 'a torque with a unit, e.g. "0.02 N*mm"'),
     "density": ("gram / centimeter ** 3", 'a density with a unit, e.g. "2.70 g/cm^3"'),
     "speed": ("revolution / minute", 'a spin rate with a unit, e.g. "10000 rpm"'),
+    "inertia": ("gram * millimeter ** 2", 'a moment of inertia with a unit, e.g. "30000 g*mm^2"'),
     "roughness": ("micrometer", 'a roughness with a unit, e.g. "0.8 um"'),
 }
 
