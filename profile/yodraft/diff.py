@@ -28,7 +28,7 @@ ABS_TOL = 1e-9  # mm, g …: far below anything a lathe or a scale resolves
 #: summary keys that say where a design came from, not what it is
 IGNORED = ("design.source",)
 # longest suffix first: "_g_mm2" before "_mm2" before "_g"
-_UNITS = (("_g_mm2", "g·mm²"), ("_g_cm3", "g/cm³"), ("_n_mm", "N·mm"), ("_rad_s", "rad/s"), ("_mm2", "mm²"),
+_UNITS = (("_kg_m2_per_s", "kg·m²/s"), ("_m_s2", "m/s²"), ("_mm_s", "mm/s"), ("_g_mm2", "g·mm²"), ("_g_mm", "g·mm"), ("_g_cm3", "g/cm³"), ("_n_mm", "N·mm"), ("_rad_s", "rad/s"), ("_mm2", "mm²"),
           ("_mm3", "mm³"), ("_mm", "mm"), ("_um", "µm"), ("_deg", "°"), ("_rpm", "rpm"), ("_g", "g"),
           ("_j", "J"), ("_mj", "mJ"), ("_s", "s"), ("_pct", "%"), ("_n", "N"))
 
@@ -93,7 +93,8 @@ def unit_of(key: str) -> str:
 
 
 def flatten(tree: Mapping[str, Any], prefix: str = "") -> dict[str, Any]:
-    """Nested dicts to dotted keys; short lists of numbers to ``key[i]``; other lists kept whole."""
+    """Nested dicts to dotted keys; short lists of numbers to ``key[i]``; lists of tables to
+    ``key[label].field`` (label: the table's "part" or "name", else its index); other lists kept whole."""
     out: dict[str, Any] = {}
     for key, value in tree.items():
         path = f"{prefix}.{key}" if prefix else str(key)
@@ -102,6 +103,10 @@ def flatten(tree: Mapping[str, Any], prefix: str = "") -> dict[str, Any]:
         elif isinstance(value, (list, tuple)) and value and all(_number(v) for v in value) and len(value) <= 4:
             for i, v in enumerate(value):
                 out[f"{path}[{i}]"] = v
+        elif isinstance(value, (list, tuple)) and value and all(isinstance(v, Mapping) for v in value) \
+                and key != "checks":
+            for i, v in enumerate(value):
+                out.update(flatten(v, f"{path}[{v.get('part', v.get('name', i))}]"))
         else:
             out[path] = value
     return out

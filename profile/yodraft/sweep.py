@@ -21,7 +21,6 @@ from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, Any
 
-from .diff import flatten
 from .errors import DesignInputError, YodraftError
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -178,10 +177,17 @@ def _variant_design(base: "Design", assignments: Sequence[tuple[str, float]]) ->
 
 
 def _outputs(data: Mapping[str, Any]) -> dict[str, float | None]:
-    flat = flatten(data)
-    keys = [k for k in OUTPUT_KEYS if k in flat] + [k for k in flat if k.endswith("rim_share") and k not in OUTPUT_KEYS]
-    return {k: (float(flat[k]) if isinstance(flat[k], (int, float)) and not isinstance(flat[k], bool) else None)
-            for k in keys}
+    """The OUTPUT_KEYS found in a summary, then any "<section>.<...>rim_share" key (no full flatten: it is hot)."""
+    found: dict[str, Any] = {}
+    for key in OUTPUT_KEYS:
+        section, _, leaf = key.partition(".")
+        table = data.get(section)
+        if isinstance(table, Mapping) and leaf in table:
+            found[key] = table[leaf]
+    for section, table in data.items():
+        if isinstance(table, Mapping) and section != "features":
+            found.update({f"{section}.{k}": v for k, v in table.items() if k.endswith("rim_share")})
+    return {k: (float(v) if isinstance(v, (int, float)) and not isinstance(v, bool) else None) for k, v in found.items()}
 
 
 def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float]) -> Variant:
