@@ -106,7 +106,9 @@ def flatten(tree: Mapping[str, Any], prefix: str = "") -> dict[str, Any]:
         elif isinstance(value, (list, tuple)) and value and all(isinstance(v, Mapping) for v in value) \
                 and key != "checks":
             for i, v in enumerate(value):
-                out.update(flatten(v, f"{path}[{v.get('part', v.get('name', i))}]"))
+                label = next((f for f in ("part", "name") if isinstance(v.get(f), str)), None)
+                rest = {k: x for k, x in v.items() if k != label}
+                out.update(flatten(rest, f"{path}[{v[label] if label else i}]"))
         else:
             out[path] = value
     return out
