@@ -47,8 +47,17 @@ def _parser() -> argparse.ArgumentParser:
     p.add_argument("-o", "--out", help="where to write the solved design (default: beside it, named by the new revision)")
     p.add_argument("--date", help="date of the new revision, YYYY-MM-DD (default: the design's date of issue)")
     p.set_defaults(run=_solve)
+    p = sub.add_parser("keys", help="print the design-file reference: every key, what it takes and its default")
+    p.set_defaults(run=_keys)
     _add_revising(sub)
     return top
+
+
+def _keys(args: argparse.Namespace) -> int:
+    from .reference import reference_markdown
+
+    print(reference_markdown(), end="")
+    return 0
 
 
 def _add_revising(sub: Any) -> None:

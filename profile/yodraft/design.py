@@ -79,7 +79,7 @@ REVISION_SPECS = (
     ParamSpec("date", "text", "date of the revision, YYYY-MM-DD", max_length=10),
     ParamSpec("note", "text", "what changed", "", max_length=200),
 )
-_REQUIRED = {"design": ("name",), "envelope": ("diameter", "width")}
+REQUIRED = {"design": ("name",), "envelope": ("diameter", "width")}
 
 
 @dataclass(frozen=True)
@@ -159,7 +159,7 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
     for section, specs in SECTIONS.items():
         table = raw.get(section, {})
         values = read_table(table, specs, source, section)
-        for key in _REQUIRED.get(section, ()):
+        for key in REQUIRED.get(section, ()):
             if values[key] is None:
                 spec = next(s for s in specs if s.name == key)
                 raise DesignInputError(source, f"{section}.{key}", "is missing", spec.expected())

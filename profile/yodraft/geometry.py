@@ -19,7 +19,7 @@ import shapely
 __all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "GeometryError"]
 
 Point = tuple[float, float]
-CLOSE_TOL = 1e-9
+CLOSE_TOL_MM = 1e-6  # ends closer than this meet
 
 
 class GeometryError(ValueError):
@@ -118,7 +118,7 @@ class Profile:
         if len(self.segments) < 2:
             raise GeometryError("a profile needs at least two segments")
         for a, b in zip(self.segments, self.segments[1:] + self.segments[:1]):
-            if _dist(a.end, b.start) > CLOSE_TOL * max(1.0, abs(a.end[0]) + abs(a.end[1])) * 1e3:
+            if _dist(a.end, b.start) > CLOSE_TOL_MM:
                 raise GeometryError(f"loop is open between {a.end} and {b.start}")
 
     @classmethod

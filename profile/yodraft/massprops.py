@@ -160,11 +160,6 @@ class AssemblyProps:
 # --------------------------------------------------------------------- section integrals
 
 
-def _is_arc(s: Line | Arc) -> bool:
-    # by shape, not class: the same module may be imported under two names (doctest collection)
-    return hasattr(s, "sweep")
-
-
 def _arc_r_min(rc: float, a: float, t0: float, dt: float) -> float:
     """Least radius reached by an arc: its lowest point if the sweep passes it, else an end."""
     lo, hi = (t0, t0 + dt) if dt > 0 else (t0 + dt, t0)
@@ -191,7 +186,7 @@ def _split(profile: Profile) -> tuple[np.ndarray, np.ndarray, float]:
     arcs: list[float] = []
     r_min = math.inf
     for s in profile.segments:
-        if _is_arc(s):
+        if isinstance(s, Arc):
             zc, rc = s.center
             _add_arc(arcs, zc, rc, s.radius, s.start_angle, s.sweep)
             r_arc = _arc_r_min(rc, s.radius, s.start_angle, s.sweep)
@@ -295,7 +290,7 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[np.ndarray, np.ndarray
     lines: list[float] = []
     arcs: list[float] = []
     for s in profile.segments:
-        if not _is_arc(s):
+        if not isinstance(s, Arc):
             (z0, r0), (z1, r1) = s.start, s.end
             ts = [0.0, 1.0]
             if (r0 - r_cut) * (r1 - r_cut) < 0:
