@@ -5,7 +5,8 @@ from dataclasses import dataclass
 
 from .balance import BalanceResult, balance
 from .builder import Resolved
-from .massprops import AssemblyProps, BodyProps, PointPart, assemble, body_props, cylinder_part, mirrored_part, ring_mass_g, ring_part
+from .massprops import (AssemblyProps, BodyProps, PointPart, assemble, body_props, clipped_section_integrals,
+                        cylinder_part, mirrored_part, ring_mass_g, ring_part)
 from .spin import SpinMetrics, spin_metrics
 
 __all__ = ["Analysis", "analyse", "AXLE_DENSITY_G_CM3"]
@@ -61,8 +62,9 @@ def analyse(resolved: Resolved) -> Analysis:
     half = body_props(profile, density)
     parts, axle_length = small_parts(resolved)
     assembly = assemble(half, parts)
+    rim = clipped_section_integrals(profile, a["rim_radius_ratio"] * profile.bounds()[3])
     spin = spin_metrics(profile, density, assembly, string_radius_mm=v["bearing.od"] / 2, rpm=a["spin_rate"],
-                        drag_torque_n_mm=a["drag_torque"], rim_radius_fraction=a["rim_radius_ratio"])
+                        drag_torque_n_mm=a["drag_torque"], rim_radius_fraction=a["rim_radius_ratio"], rim_integrals=rim)
     bal = balance(profile, density, grade_mm_s=a["balance_grade"], rpm=a["spin_rate"],
-                  rim_radius_fraction=a["rim_radius_ratio"])
+                  rim_radius_fraction=a["rim_radius_ratio"], half=half, rim_integrals=rim)
     return Analysis(half, assembly, spin, bal, axle_length)

@@ -16,7 +16,7 @@ import math
 from dataclasses import dataclass
 
 from .geometry import Profile
-from .massprops import body_props, clipped_section_integrals, props_from_integrals
+from .massprops import BodyProps, SectionIntegrals, body_props, clipped_section_integrals, props_from_integrals
 
 __all__ = ["BalanceResult", "balance", "permissible_specific_unbalance_mm", "floor_to_step"]
 
@@ -79,23 +79,28 @@ def balance(
     runout_mm: float | None = None,
     rim_radius_fraction: float = 0.8,
     runout_step_mm: float = 0.001,
+    half: BodyProps | None = None,
+    rim_integrals: SectionIntegrals | None = None,
 ) -> BalanceResult:
     """Balance figures of one half turned from ``profile``.
 
     ``runout_mm`` defaults to the runout tolerance the grade allows;
     ``within_grade`` says whether that runout keeps the half's unbalance at or
-    below the permissible residual unbalance.
+    below the permissible residual unbalance. ``half`` and ``rim_integrals`` may
+    pass in what the caller has already integrated.
     """
     if runout_mm is not None and not (runout_mm >= 0 and math.isfinite(runout_mm)):
         raise ValueError(f"runout must be ≥ 0 mm, got {runout_mm}")
     if not (0 <= rim_radius_fraction < 1):
         raise ValueError(f"rim radius fraction must be in [0, 1), got {rim_radius_fraction}")
     e_per = permissible_specific_unbalance_mm(grade_mm_s, rpm)
-    half = body_props(profile, density_g_cm3)
+    half = half if half is not None else body_props(profile, density_g_cm3)
     tol = floor_to_step(2 * e_per, runout_step_mm)
     t = tol if runout_mm is None else runout_mm
     r_cut = rim_radius_fraction * profile.bounds()[3]
-    rim_mass = props_from_integrals(clipped_section_integrals(profile, r_cut), density_g_cm3).mass_g
+    if rim_integrals is None:
+        rim_integrals = clipped_section_integrals(profile, r_cut)
+    rim_mass = props_from_integrals(rim_integrals, density_g_cm3).mass_g
     u_per = half.mass_g * e_per
     u_runout = half.mass_g * t / 2
     return BalanceResult(

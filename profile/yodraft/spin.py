@@ -16,7 +16,7 @@ import math
 from dataclasses import dataclass
 
 from .geometry import Profile
-from .massprops import AssemblyProps, PointPart, clipped_section_integrals, props_from_integrals
+from .massprops import AssemblyProps, PointPart, SectionIntegrals, clipped_section_integrals, props_from_integrals
 
 __all__ = ["SpinMetrics", "spin_metrics", "part_izz_outside", "rpm_to_rad_s", "STANDARD_GRAVITY_M_S2", "KG_M2_PER_G_MM2"]
 
@@ -94,10 +94,13 @@ def spin_metrics(
     rpm: float = 10_000.0,
     drag_torque_n_mm: float | None = None,
     rim_radius_fraction: float = 0.8,
+    rim_integrals: SectionIntegrals | None = None,
 ) -> SpinMetrics:
     """Spin figures of ``assembly``, whose halves are turned from ``profile``.
 
     ``string_radius_mm`` is where the string wraps: the bearing's outside radius.
+    ``rim_integrals`` may pass in the profile's section integrals clipped at the
+    rim radius when the caller already has them.
     The descent on the string is a = g / (1 + I / (m r²)); spin-down time is
     t = Izz ω₀ / τ for a steady bearing drag torque τ.
     """
@@ -111,7 +114,9 @@ def spin_metrics(
         raise ValueError(f"drag torque must be > 0 N·mm, got {drag_torque_n_mm}")
     outer = profile.bounds()[3]
     r_cut = rim_radius_fraction * outer
-    rim_half = props_from_integrals(clipped_section_integrals(profile, r_cut), density_g_cm3).izz_g_mm2
+    if rim_integrals is None:
+        rim_integrals = clipped_section_integrals(profile, r_cut)
+    rim_half = props_from_integrals(rim_integrals, density_g_cm3).izz_g_mm2
     rim_izz = 2 * rim_half + sum(part_izz_outside(p, r_cut) for p in assembly.parts)
     izz, ixx, m = assembly.izz_g_mm2, assembly.ixx_g_mm2, assembly.total_g
     omega = rpm_to_rad_s(rpm)
