@@ -102,9 +102,11 @@ def _dimension(block, resolved: Resolved, scale: float) -> None:  # type: ignore
          tolerance_text(fit.wall.nominal_mm, fit.wall.tolerance_mm, inch), {"dimtp": fit.wall.tolerance_mm,
                                                                              "dimtm": fit.wall.tolerance_mm}),
     ]
-    x = z_left - 6.0 * k
+    x = z_left
+    step = 6.0  # paper mm to the first line; then each lane clears the text of the one inside it
     for keys, at, text, extra in lanes:
-        x -= (11.0 if extra else 6.0) * k
+        x -= step * k
+        step = 14.0 if extra else 7.0
         an.half_diameter(keys, at, x, text=text, extra={"dimdec": 5, **extra},
                          text_r=at[1] / 2 if extra else None)
     # groove depths inside their grooves

@@ -66,7 +66,7 @@ class Annotator:
             text_r = sign * (r - (ARROW_SIZE + 1.5) * self.k - length / 2)
         side = -1.0 if x_line <= z else 1.0
         lines = text.count("\\P") + 1
-        gap = (1.0 + TEXT_HEIGHT * (0.5 + 0.8 * (lines - 1))) * self.k
+        gap = (1.0 + TEXT_HEIGHT * (0.5 + 1.05 * (lines - 1))) * self.k
         loc = (x_line - gap if not lower else x_line + gap, text_r)
         dim = self.layout.add_linear_dim(
             base=(x_line, 0.0), p1=p_near, p2=p_far, angle=90, text=text, dimstyle=DIMSTYLE,

@@ -1,9 +1,12 @@
 """The SVG preview of the sheet at true scale (ezdxf's drawing add-on, no extra dependency)."""
 from __future__ import annotations
 
+import random
+
 from ezdxf.addons.drawing import Frontend, RenderContext, layout, svg
 from ezdxf.addons.drawing.config import BackgroundPolicy, ColorPolicy, Configuration, LineweightPolicy
 from ezdxf.document import Drawing
+from ezdxf.math import BoundingBox2d
 
 __all__ = ["svg_bytes"]
 
@@ -14,12 +17,15 @@ def svg_bytes(doc: Drawing, layout_name: str, paper: tuple[float, float]) -> byt
     backend = svg.SVGBackend()
     config = Configuration(background_policy=BackgroundPolicy.WHITE, color_policy=ColorPolicy.BLACK,
                            lineweight_policy=LineweightPolicy.ABSOLUTE)
-    Frontend(RenderContext(doc), backend, config=config).draw_layout(psp, finalize=True)
+    # the hatch renderer nudges pattern origins by a random amount; a fixed seed keeps the
+    # preview byte-identical between builds, and the caller's random state is put back
+    state = random.getstate()
+    try:
+        random.seed(0)
+        Frontend(RenderContext(doc), backend, config=config).draw_layout(psp, finalize=True)
+    finally:
+        random.setstate(state)
     page = layout.Page(paper[0], paper[1], layout.Units.mm, margins=layout.Margins.all(0))
     settings = layout.Settings(fit_page=False, scale=1.0)
-    box = layout.BoundingBox2d([(0, 0), paper]) if hasattr(layout, "BoundingBox2d") else None
-    from ezdxf.math import BoundingBox2d
-
     text = backend.get_string(page, settings=settings, render_box=BoundingBox2d([(0, 0), paper]))
-    del box
     return text.encode("utf-8")
