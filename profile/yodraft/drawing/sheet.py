@@ -93,7 +93,7 @@ def _main_view(psp: BaseLayout, resolved: Resolved, scale: float) -> tuple[tuple
     vp = psp.add_viewport(center=centre, size=(w, h), view_center_point=mcentre, view_height=h / scale,
                           dxfattribs={"layer": "viewport"})
     vp.dxf.flags = vp.dxf.flags | 16384  # locked display
-    _label(psp, (centre[0], y0 + 2.0), f"SECTION ({_scale_text(scale)}), datum face B = outer face")
+    _label(psp, (centre[0], y0 - 8.0), f"SECTION ({_scale_text(scale)}), datum face B = outer face")
     return centre, mcentre
 
 
