@@ -77,13 +77,13 @@ def build_outputs(design_path: Path, directory: Path, force: bool = False) -> tu
     """
     from .builder import build
     from .design import load
-    from .drawing.outline import dxf_bytes, outline_document
+    from .drawing.drawing import render_files
 
     resolved = build(load(design_path))
     if not resolved.ok:
         return [], resolved
     stem = safe_stem(resolved.design.name, resolved.design.revision)
-    files = {f"{stem}.dxf": dxf_bytes(outline_document(resolved))}
+    files = render_files(resolved, stem)
     directory = prepare_directory(directory)
     files.update(revision.guard(directory, stem, resolved, force))
     written = []
