@@ -118,7 +118,7 @@ def test_an_output_name_taken_by_a_folder_is_one_line_and_keeps_the_folder(tmp_p
                                                                             capsys: pytest.CaptureFixture[str]) -> None:
     out = tmp_path / "out"
     (out / "larchmere-ls56-A.dxf").mkdir(parents=True)
-    code = main(["build", str(TEMPLATE), "-o", str(out)])
+    code = main(["build", str(TEMPLATE), "-o", str(out), "--force"])
     err = capsys.readouterr().err
     assert code == 2 and len(err.splitlines()) == 1 and "larchmere-ls56-A.dxf" in err, err
     assert (out / "larchmere-ls56-A.dxf").is_dir()
@@ -131,7 +131,7 @@ def test_a_symlink_under_the_output_name_is_replaced_not_followed(tmp_path: Path
     out = tmp_path / "out"
     out.mkdir()
     (out / "larchmere-ls56-A.dxf").symlink_to(outside)
-    assert main(["build", str(TEMPLATE), "-o", str(out)]) == 0
+    assert main(["build", str(TEMPLATE), "-o", str(out), "--force"]) == 0
     assert outside.read_bytes() == OLD, "the build wrote through a link to outside the output folder"
     written = out / "larchmere-ls56-A.dxf"
     assert not written.is_symlink() and written.read_bytes().startswith(b"  0\nSECTION")

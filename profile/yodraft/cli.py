@@ -33,12 +33,230 @@ def _parser() -> argparse.ArgumentParser:
     p = sub.add_parser("build", help="check a design, then write its drawing into out/")
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("-o", "--out", default="out", help="output folder (default: out)")
+    p.add_argument("--force", action="store_true",
+                   help="overwrite a drawing of the same revision even if its geometry changed")
     p.set_defaults(run=_build)
     p = sub.add_parser("fit", help="limits and clearance of an ISO 286 fit, e.g. \"6 H7/g6\"")
     p.add_argument("code", help='fit code: size, hole and/or shaft, e.g. "6 H7/g6", "12 H7/h6", "0.25in h6"')
     p.add_argument("--json", action="store_true", help="print one JSON object")
     p.set_defaults(run=_fit)
+    p = sub.add_parser("solve", help="move one parameter until the design hits a target mass, Izz or gap")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--target", required=True, help='what to hit, e.g. mass=66g, izz=30000g*mm^2, gap=4.2mm')
+    p.add_argument("--vary", required=True, help="numeric parameter to move, e.g. features.rim.width")
+    p.add_argument("-o", "--out", help="where to write the solved design (default: beside it, named by the new revision)")
+    p.add_argument("--date", help="date of the new revision, YYYY-MM-DD (default: the design's date of issue)")
+    p.set_defaults(run=_solve)
+    p = sub.add_parser("keys", help="print the design-file reference: every key, what it takes and its default")
+    p.set_defaults(run=_keys)
+    _add_revising(sub)
     return top
+
+
+def _keys(args: argparse.Namespace) -> int:
+    from .reference import reference_markdown
+
+    print(reference_markdown(), end="")
+    return 0
+
+
+def _add_revising(sub: Any) -> None:
+    """Subcommands for revising and exploring: templates, new, report, diff, sweep, watch."""
+    p = sub.add_parser("templates", help="list the starter designs")
+    p.set_defaults(run=_templates)
+    p = sub.add_parser("new", help="write a new design file from a starter design")
+    p.add_argument("file", help="design file to create (never overwritten)")
+    p.add_argument("-t", "--template", required=True, help="starter design name (see 'yodraft templates')")
+    p.add_argument("--name", help="design.name of the new design (default: the template's)")
+    p.set_defaults(run=_new)
+    p = sub.add_parser("report", help="the design report: inputs, dimensions, fits, mass, checks, cautions")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--format", choices=("md", "json"), default="md", help="Markdown (default) or JSON")
+    p.add_argument("-o", "--output", help="write the report to this file instead of printing it")
+    p.set_defaults(run=_report)
+    p = sub.add_parser("diff", help="what changed between two designs: inputs, derived values, checks")
+    p.add_argument("a", help="old design file")
+    p.add_argument("b", help="new design file")
+    p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.set_defaults(run=_diff)
+    p = sub.add_parser("sweep", help="resolve and check a grid of variants over one or two parameters")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--vary", action="append", required=True, metavar="KEY=START:STOP:COUNT",
+                   help="e.g. features.rim.width=6mm:3mm:4; give once or twice")
+    p.add_argument("--csv", help="write the CSV here (default: print it)")
+    p.add_argument("--plot", help="write an SVG plot of the outputs here")
+    p.add_argument("--jobs", type=int, help="worker processes (default: one per core)")
+    p.set_defaults(run=_sweep)
+    p = sub.add_parser("watch", help="rebuild the drawing each time the design file is saved")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("-o", "--out", default="out", help="output folder (default: out)")
+    p.add_argument("--interval", type=float, default=0.25, help="seconds between polls (default: 0.25)")
+    p.add_argument("--max-builds", type=int, help="stop after this many builds")
+    p.add_argument("--timeout", type=float, help="stop after this many seconds")
+    p.add_argument("--force", action="store_true", help="as for build: overwrite a drawing whose geometry changed")
+    p.set_defaults(run=_watch)
+
+
+def _write_or_print(text: str, target: str | None) -> None:
+    if target is None:
+        print(text, end="" if text.endswith("\n") else "\n")
+        return
+    from .output import write_atomic
+
+    path = Path(target)
+    if path.is_dir():
+        raise DesignInputError(target, "", "is a folder", "a file name")
+    if not path.parent.is_dir():
+        raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+    write_atomic(path, text.encode("utf-8"))
+    print(path, file=sys.stderr)
+
+
+def _templates(args: argparse.Namespace) -> int:
+    from .templates import list_templates
+
+    items = list_templates()
+    if not items:
+        raise DesignInputError("templates", "", "no templates folder found", "templates/*.toml beside profile/")
+    width = max(len(t.name) for t in items)
+    for t in items:
+        print(f"{t.name:<{width}}  {t.description}")
+    return 0
+
+
+def _new(args: argparse.Namespace) -> int:
+    from .templates import new_design
+
+    print(new_design(Path(args.file), args.template, args.name))
+    return 0
+
+
+def _report(args: argparse.Namespace) -> int:
+    from .builder import build
+    from .design import load
+    from .report import report_data, report_markdown
+
+    resolved = build(load(args.design))
+    data = report_data(resolved)
+    text = json.dumps(data, indent=2, ensure_ascii=False) + "\n" if args.format == "json" else report_markdown(data)
+    _write_or_print(text, args.output)
+    return 0 if resolved.ok else 1
+
+
+def _diff(args: argparse.Namespace) -> int:
+    from .builder import build
+    from .design import load
+    from .diff import diff, diff_text
+
+    result = diff(build(load(args.a)), build(load(args.b)))
+    print(json.dumps(result.as_dict(), indent=2, ensure_ascii=False) if args.json else diff_text(result))
+    return 0
+
+
+def _progress(done: int, total: int) -> None:
+    filled = round(30 * done / total)
+    end = "\n" if done == total else ""
+    print(f"\r[{'#' * filled}{'.' * (30 - filled)}] {done}/{total}", end=end, file=sys.stderr, flush=True)
+
+
+def _sweep(args: argparse.Namespace) -> int:
+    from .design import load
+    from .sweep import csv_text, parse_vary, svg_plot, sweep
+
+    design = load(args.design)
+    axes = [parse_vary(text, design) for text in args.vary]
+    if len(axes) > 2:
+        raise DesignInputError("--vary", "", f"given {len(axes)} times", "one or two --vary options")
+    if args.jobs is not None and args.jobs < 1:
+        raise DesignInputError("--jobs", "", f"got {args.jobs}", "at least 1")
+    for target in (args.csv, args.plot):
+        if target is not None and not Path(target).parent.is_dir():
+            raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+    result = sweep(design, axes, workers=args.jobs, progress=_progress if sys.stderr.isatty() else None)
+    _write_or_print(csv_text(result), args.csv)
+    if args.plot:
+        _write_or_print(svg_plot(result), args.plot)
+    print(f"{result.passed} of {len(result.variants)} variants pass every check", file=sys.stderr)
+    return 0 if result.passed else 1
+
+
+def _watch(args: argparse.Namespace) -> int:
+    from .diff import diff_text
+    from .watch import watch
+
+    for name, value in (("--max-builds", args.max_builds), ("--timeout", args.timeout), ("--interval", args.interval)):
+        if value is not None and value <= 0:
+            raise DesignInputError(name, "", f"got {value}", "a positive number")
+    print(f"watching {args.design} (Ctrl-C to stop)", flush=True)
+    try:
+        for event in watch(Path(args.design), Path(args.out), interval=args.interval, max_builds=args.max_builds,
+                           timeout=args.timeout, force=args.force):
+            if event.kind == "built":
+                print("built: " + ", ".join(str(p) for p in event.written), flush=True)
+            elif event.kind == "failed":
+                print(f"check failed; last good outputs kept in {args.out}", flush=True)
+                for line in event.failed:
+                    print(f"  FAILED {line}", flush=True)
+            else:
+                print(f"not built: {event.message}", flush=True)
+            if event.changes is not None and not event.changes.same:
+                label = "changed since the last good build" if event.kind == "failed" else "changed"
+                print(f"{label}:\n" + diff_text(event.changes, limit=20), flush=True)
+    except KeyboardInterrupt:
+        pass
+    return 0
+
+
+def _solve(args: argparse.Namespace) -> int:
+    from .design import DATE_PATTERN, load, loads
+    from .solve import TARGETS, find_spec, quantity_text, solve
+    from .textout import failed_lines
+    from .tomledit import add_revision, bump_revision, set_key
+    from .units import parse_quantity, UnitError
+
+    design = load(args.design)
+    name, _, text = args.target.partition("=")
+    if name not in TARGETS or not text:
+        raise DesignInputError(args.design, "--target", f"cannot read {args.target!r}",
+                               "mass=<mass>, izz=<g*mm^2> or gap=<length>, e.g. mass=66g")
+    kind = TARGETS[name][0]
+    try:
+        goal = (parse_quantity(text, "inertia") if kind == "inertia" else parse_quantity(text, kind))
+    except UnitError as exc:
+        raise DesignInputError(args.design, "--target", str(exc), f"a {name} with a unit") from None
+    parts, spec = find_spec(args.vary, args.design)
+    if args.date is not None and not DATE_PATTERN.match(args.date):
+        raise DesignInputError(args.design, "--date", f"{args.date!r} is not a date", "YYYY-MM-DD")
+    try:
+        result = solve(design, name, goal, args.vary)
+    except ValueError as exc:
+        if isinstance(exc, DesignInputError):
+            raise
+        print(f"yodraft: {args.design}: {exc}", file=sys.stderr)
+        return 1
+    if not result.resolved.ok:
+        print("\n".join(failed_lines(result.resolved)), file=sys.stderr)
+        print(f"yodraft: {args.design}: the solved design breaks the checks above; nothing written", file=sys.stderr)
+        return 1
+    source = Path(args.design)
+    revision = bump_revision(design.revision)
+    out = Path(args.out) if args.out else source.with_name(f"{source.stem}-{revision}.toml")
+    if out.exists() or out.resolve() == source.resolve():
+        raise DesignInputError(str(out), "", "already exists", "a new file name for the solved design (-o)")
+    value_text = quantity_text(result.value, spec)
+    note = f"{'.'.join(parts)} solved to {value_text} for {name} {text}"
+    new = set_key(source.read_text(encoding="utf-8"), ".".join(parts[:-1]), parts[-1], value_text,
+                  f"solved for {name} {text}")
+    new = set_key(new, "design", "revision", revision)
+    new = add_revision(new, revision, args.date or design["design"]["date"], note)
+    loads(new, str(out))  # the text written must read back
+    from .output import write_atomic
+
+    write_atomic(out, new.encode("utf-8"))
+    print(f"{'.'.join(parts)} = {value_text}: {name} {result.achieved:.4f} (target {goal:g}) after "
+          f"{result.evaluations} trials; every check passes")
+    print(out)
+    return 0
 
 
 def _fit(args: argparse.Namespace) -> int:
@@ -73,7 +291,7 @@ def _check(args: argparse.Namespace) -> int:
 def _build(args: argparse.Namespace) -> int:
     from .output import build_outputs
 
-    written, resolved = build_outputs(Path(args.design), Path(args.out))
+    written, resolved = build_outputs(Path(args.design), Path(args.out), force=args.force)
     if not resolved.ok:
         from .textout import failed_lines
 

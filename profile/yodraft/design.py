@@ -69,7 +69,8 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
     ),
     "analysis": (
         ParamSpec("spin_rate", "speed", "reference spin rate for energy, momentum and balance", 10000.0, 1.0, 100000.0),
-        ParamSpec("drag_torque", "torque", "bearing drag torque for the spin-down estimate", 0.002, 0.0, 100.0),
+        ParamSpec("drag_torque", "torque", "drag torque of bearing and string in a sleep, for the spin-down estimate (a rough default: measure yours)",
+                  0.2, 0.0, 100.0),
         ParamSpec("balance_grade", "number", "ISO 21940-11 balance quality grade G (mm/s)", 6.3, 0.0, 4000.0),
         ParamSpec("rim_radius_ratio", "number", "rim-weight share counts Izz outside this share of the outer radius", 0.8, 0.0, 1.0),
     ),
@@ -79,7 +80,7 @@ REVISION_SPECS = (
     ParamSpec("date", "text", "date of the revision, YYYY-MM-DD", max_length=10),
     ParamSpec("note", "text", "what changed", "", max_length=200),
 )
-_REQUIRED = {"design": ("name",), "envelope": ("diameter", "width")}
+REQUIRED = {"design": ("name",), "envelope": ("diameter", "width")}
 
 
 @dataclass(frozen=True)
@@ -159,7 +160,7 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
     for section, specs in SECTIONS.items():
         table = raw.get(section, {})
         values = read_table(table, specs, source, section)
-        for key in _REQUIRED.get(section, ()):
+        for key in REQUIRED.get(section, ()):
             if values[key] is None:
                 spec = next(s for s in specs if s.name == key)
                 raise DesignInputError(source, f"{section}.{key}", "is missing", spec.expected())

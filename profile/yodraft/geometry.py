@@ -10,6 +10,7 @@ loop; flattening (for shapely and previews) is the only approximation.
 """
 from __future__ import annotations
 
+import functools
 import math
 from dataclasses import dataclass
 from typing import Union
@@ -19,7 +20,7 @@ import shapely
 __all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "GeometryError"]
 
 Point = tuple[float, float]
-CLOSE_TOL = 1e-9
+CLOSE_TOL_MM = 1e-6  # ends closer than this meet
 
 
 class GeometryError(ValueError):
@@ -118,7 +119,7 @@ class Profile:
         if len(self.segments) < 2:
             raise GeometryError("a profile needs at least two segments")
         for a, b in zip(self.segments, self.segments[1:] + self.segments[:1]):
-            if _dist(a.end, b.start) > CLOSE_TOL * max(1.0, abs(a.end[0]) + abs(a.end[1])) * 1e3:
+            if _dist(a.end, b.start) > CLOSE_TOL_MM:
                 raise GeometryError(f"loop is open between {a.end} and {b.start}")
 
     @classmethod
@@ -149,23 +150,27 @@ class Profile:
                 total += 0.5 * seg.radius**2 * (seg.sweep - math.sin(seg.sweep))
         return total
 
-    def bounds(self) -> tuple[float, float, float, float]:
-        """Exact (z_min, r_min, z_max, r_max), arcs included."""
+    @functools.cached_property
+    def _bounds(self) -> tuple[float, float, float, float]:
         zs: list[float] = []
         rs: list[float] = []
         for seg in self.segments:
-            for p in (seg.start, seg.end):
-                zs.append(p[0])
-                rs.append(p[1])
+            zs.append(seg.start[0])
+            rs.append(seg.start[1])
             if isinstance(seg, Arc):
-                for k in range(-8, 9):
-                    a = k * math.pi / 2
-                    lo, hi = sorted((seg.start_angle, seg.end_angle))
-                    if lo < a < hi:
-                        z, r = seg.point_at(a)
-                        zs.append(z)
-                        rs.append(r)
+                # an arc reaches past its ends where it passes a quarter-turn direction
+                lo, hi = sorted((seg.start_angle, seg.end_angle))
+                k = math.ceil(lo / (math.pi / 2))
+                while k * math.pi / 2 < hi:
+                    z, r = seg.point_at(k * math.pi / 2)
+                    zs.append(z)
+                    rs.append(r)
+                    k += 1
         return min(zs), min(rs), max(zs), max(rs)
+
+    def bounds(self) -> tuple[float, float, float, float]:
+        """Exact (z_min, r_min, z_max, r_max), arcs included."""
+        return self._bounds
 
     def mirrored(self) -> "Profile":
         """The mirror image about the spin axis, reversed so it is again counter-clockwise."""

@@ -7,6 +7,8 @@ import tempfile
 from pathlib import Path
 from typing import TYPE_CHECKING
 
+from . import revision
+
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
 
@@ -97,22 +99,24 @@ def prepare_directory(directory: Path) -> Path:
     return directory
 
 
-def build_outputs(design_path: Path, directory: Path) -> tuple[list[Path], "Resolved"]:
+def build_outputs(design_path: Path, directory: Path, force: bool = False) -> tuple[list[Path], "Resolved"]:
     """Load, resolve and check a design; when every check passes, write its drawings into ``directory``.
 
     Every file is rendered in memory first, then each is written atomically, so a
-    failed check or a bad input leaves the folder as it was.
+    failed check or a bad input leaves the folder as it was. A drawing of the same
+    revision with other geometry is not overwritten unless ``force`` (see yodraft.revision).
     """
     from .builder import build
     from .design import load
-    from .drawing.outline import dxf_bytes, outline_document
+    from .drawing.drawing import render_files
 
     resolved = build(load(design_path))
     if not resolved.ok:
         return [], resolved
     stem = safe_stem(resolved.design.name, resolved.design.revision)
-    files = {f"{stem}.dxf": dxf_bytes(outline_document(resolved))}
+    files = render_files(resolved, stem)
     directory = prepare_directory(directory)
+    files.update(revision.guard(directory, stem, resolved, force))
     written = []
     for name, data in files.items():
         path = output_path(directory, name)

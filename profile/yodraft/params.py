@@ -16,13 +16,13 @@ from typing import Any
 from .errors import DesignInputError
 from .units import KINDS, UnitError, parse_quantity
 
-__all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "describe"]
+__all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "describe", "DISPLAY_UNITS"]
 
 _QUANTITY_KINDS = set(KINDS)
 _OTHER_KINDS = {"text", "bool", "number"}
 _CONTROL = re.compile(r"[\x00-\x1f\x7f]")
 # how a bound is shown to the user, per kind: (divisor from the base unit, unit text)
-_SHOW = {"length": (1.0, "mm"), "angle": (math.pi / 180, "deg"), "mass": (1.0, "g"), "torque": (1.0, "N*mm"),
+DISPLAY_UNITS = {"length": (1.0, "mm"), "angle": (math.pi / 180, "deg"), "mass": (1.0, "g"), "torque": (1.0, "N*mm"),
          "density": (1.0, "g/cm^3"), "speed": (1.0, "rpm"), "roughness": (1.0, "um"), "number": (1.0, "")}
 
 
@@ -63,7 +63,7 @@ class ParamSpec:
         else:
             text = f"a text of at most {self.max_length} characters"
         if self.lo is not None or self.hi is not None:
-            div, unit = _SHOW.get(self.kind, (1.0, ""))
+            div, unit = DISPLAY_UNITS.get(self.kind, (1.0, ""))
             parts = []
             if self.lo is not None:
                 parts.append(f"{'at least' if self.lo_closed else 'above'} {self.lo / div:g} {unit}".rstrip())

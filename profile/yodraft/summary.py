@@ -4,6 +4,7 @@ from __future__ import annotations
 import math
 from typing import Any
 
+from .analysis import analyse
 from .builder import Resolved
 
 __all__ = ["summary", "resolved_dimensions"]
@@ -48,8 +49,46 @@ def summary(resolved: Resolved) -> dict[str, Any]:
             "wall_precoat_bore_mm": fit.wall.precoat_mm,
             "clearance_min_mm": fit.post.clearance_min_mm, "clearance_max_mm": fit.post.clearance_max_mm,
             "wall_clearance_min_mm": fit.wall.clearance_min_mm, "wall_clearance_max_mm": fit.wall.clearance_max_mm,
+            "clearance_rss_min_mm": fit.post.rss_min_mm, "clearance_rss_max_mm": fit.post.rss_max_mm,
+            "wall_clearance_rss_min_mm": fit.wall.rss_min_mm, "wall_clearance_rss_max_mm": fit.wall.rss_max_mm,
+            "post_p_no_slide": fit.post.p_no_slide, "wall_p_no_slide": fit.wall.p_no_slide,
+            "coating_growth_mm": fit.post.nominal_mm - fit.post.precoat_mm,
+            "masked": bool(d["shop"]["mask_seat"]),
         },
         "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
+        **(_mass_sections(resolved) if resolved.profile is not None else {}),
         "features": resolved_dimensions(resolved),
         "checks": [c.as_dict() for c in resolved.checks],
+    }
+
+
+def _mass_sections(resolved: Resolved) -> dict[str, Any]:
+    a = analyse(resolved)
+    s, b = a.spin, a.balance
+    return {
+        "mass": {
+            "half_g": a.half.mass_g, "half_izz_g_mm2": a.half.izz_g_mm2, "half_ixx_g_mm2": a.half.ixx_g_mm2,
+            "half_volume_mm3": a.half.volume_mm3, "half_surface_mm2": a.half.surface_mm2,
+            "half_section_area_mm2": a.half.area_mm2, "half_z_centroid_mm": a.half.z_centroid_mm,
+            "total_g": a.assembly.total_g, "izz_g_mm2": a.assembly.izz_g_mm2, "ixx_g_mm2": a.assembly.ixx_g_mm2,
+            "target_g": resolved.values["envelope.target_mass"],
+            "axle_length_mm": a.axle_length_mm,
+            "budget": [{"part": line.name, "count": line.count, "each_g": line.mass_each_g, "total_g": line.mass_total_g}
+                       for line in a.assembly.budget],
+        },
+        "spin": {
+            "rpm": s.rpm, "radius_of_gyration_mm": s.radius_of_gyration_mm, "rim_cut_radius_mm": s.rim_cut_radius_mm,
+            "rim_share": s.rim_share, "stability_ratio": s.stability_ratio,
+            "descent_acceleration_m_s2": s.descent_acceleration_m_s2,
+            "angular_momentum_kg_m2_per_s": s.angular_momentum_kg_m2_per_s, "kinetic_energy_j": s.kinetic_energy_j,
+            "drag_torque_n_mm": s.drag_torque_n_mm, "spin_down_s": s.spin_down_s,
+        },
+        "balance": {
+            "grade_mm_s": b.grade_mm_s, "rpm": b.rpm,
+            "permissible_specific_unbalance_um": b.permissible_specific_unbalance_um,
+            "permissible_unbalance_g_mm": b.permissible_unbalance_g_mm,
+            "runout_tolerance_mm": b.runout_tolerance_mm,
+            "unbalance_from_runout_g_mm": b.unbalance_from_runout_g_mm,
+            "rim_band_mass_g": b.rim_band_mass_g, "rim_unbalance_from_runout_g_mm": b.rim_unbalance_from_runout_g_mm,
+        },
     }

@@ -30,12 +30,15 @@ def check_text(resolved: Resolved) -> str:
              f"{v['bearing.width']:.4f} mm, {v['bearing.precision']}; material {v['material.name']} "
              f"({v['material.density_g_cm3']:.2f} g/cm³)", ""]
     fit = resolved.features["bearing_seat"].extra["seat_fit"]
-    lines.append("bearing seat fit (worst case, finished sizes)")
+    masked = d["shop"]["mask_seat"] or d["shop"]["coating"] == "none"
+    lines.append("bearing seat fit (finished sizes" + ("; seat masked or uncoated)" if masked else ")"))
     for label, part in (("post", fit.post), ("wall bore", fit.wall)):
+        precoat = "" if masked else f"turn to Ø{part.precoat_mm:.4f} before coating  "
         lines.append(f"  {label:<10} Ø{part.nominal_mm:.4f} ± {part.tolerance_mm:.4f} mm "
-                     f"[{part.nominal_mm / MM_PER_INCH:.4f} ± {part.tolerance_mm / MM_PER_INCH:.4f} in]  "
-                     f"turn to Ø{part.precoat_mm:.4f} before coating  "
-                     f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm")
+                     f"[{part.nominal_mm / MM_PER_INCH:.4f} ± {part.tolerance_mm / MM_PER_INCH:.4f} in]  {precoat}"
+                     f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm worst case, "
+                     f"{part.rss_min_mm * 1000:.1f} to {part.rss_max_mm * 1000:.1f} µm RSS, "
+                     f"P(no slide) {part.p_no_slide:.2g}")
     lines.append("")
     lines.append("resolved dimensions (* derived)")
     for name, feature in resolved.features.items():

@@ -1,0 +1,70 @@
+"""Mass properties, spin metrics and balance of a resolved design: one half, the small parts, the assembly."""
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from .balance import BalanceResult, balance
+from .builder import Resolved
+from .massprops import (AssemblyProps, BodyProps, PointPart, assemble, body_props, clipped_section_integrals,
+                        cylinder_part, mirrored_part, ring_mass_g, ring_part)
+from .spin import SpinMetrics, spin_metrics
+
+__all__ = ["Analysis", "analyse", "AXLE_DENSITY_G_CM3"]
+
+AXLE_DENSITY_G_CM3 = 7.85  # carbon steel set screw, from memory
+PITCH_DIAMETER_FACTOR = 0.649519  # d2 = d − 0.649519 P (ISO 724)
+
+
+@dataclass(frozen=True)
+class Analysis:
+    """What the design weighs and how it spins, before any metal is cut."""
+
+    half: BodyProps
+    assembly: AssemblyProps
+    spin: SpinMetrics
+    balance: BalanceResult
+    axle_length_mm: float
+
+
+def small_parts(resolved: Resolved) -> tuple[list[PointPart], float]:
+    """The bearing, the axle and the two response pads placed where they sit, and the axle length.
+
+    The axle spans the post spacing and runs into each half's thread short of the
+    full-thread depth by one pitch (common practice, no published source).
+    """
+    v = resolved.values
+    parts_spec = resolved.design["parts"]
+    bearing = ring_part("bearing", v["bearing.mass"], v["bearing.bore"] / 2, v["bearing.od"] / 2, v["bearing.width"], 0.0)
+    pad_class = resolved.features["pad_groove"].extra["pad"]
+    r_in, r_out = v["pad_groove.inner_diameter"] / 2, v["pad_groove.pad_diameter"] / 2
+    depth = v["pad_groove.depth"]
+    pad_mass = parts_spec["pad_mass"]
+    if pad_mass is None:
+        pad_mass = ring_mass_g(pad_class.pad_density_g_cm3, r_in, r_out, depth)
+    pad = ring_part("response pad", pad_mass, r_in, r_out, depth, v["pad_groove.face_z"] + depth / 2)
+    axle_length = v["bearing_seat.spacing"] + 2 * (v["axle_bore.thread_depth"] - v["axle_bore.pitch"])
+    axle_r = (v["axle_bore.major_diameter"] - PITCH_DIAMETER_FACTOR * v["axle_bore.pitch"]) / 2
+    axle_mass = parts_spec["axle_mass"]
+    if axle_mass is None:
+        axle_mass = ring_mass_g(AXLE_DENSITY_G_CM3, 0.0, axle_r, axle_length)
+    axle = cylinder_part("axle", axle_mass, axle_r, axle_length, 0.0)
+    return [bearing, axle, pad, mirrored_part(pad)], axle_length
+
+
+def analyse(resolved: Resolved) -> Analysis:
+    """Mass, inertia, spin metrics and balance of ``resolved`` (its profile must exist)."""
+    profile = resolved.profile
+    if profile is None:
+        raise ValueError("the design has no closed profile to analyse")
+    v = resolved.values
+    a = resolved.design["analysis"]
+    density = v["material.density_g_cm3"]
+    half = body_props(profile, density)
+    parts, axle_length = small_parts(resolved)
+    assembly = assemble(half, parts)
+    rim = clipped_section_integrals(profile, a["rim_radius_ratio"] * profile.bounds()[3])
+    spin = spin_metrics(profile, density, assembly, string_radius_mm=v["bearing.od"] / 2, rpm=a["spin_rate"],
+                        drag_torque_n_mm=a["drag_torque"], rim_radius_fraction=a["rim_radius_ratio"], rim_integrals=rim)
+    bal = balance(profile, density, grade_mm_s=a["balance_grade"], rpm=a["spin_rate"],
+                  rim_radius_fraction=a["rim_radius_ratio"], half=half, rim_integrals=rim)
+    return Analysis(half, assembly, spin, bal, axle_length)

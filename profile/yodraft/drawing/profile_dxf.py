@@ -1,0 +1,23 @@
+"""The half-profile for CAM: one closed LWPOLYLINE of true lines and arcs (as bulges), no dimensions or hatch.
+
+Origin on the spin axis at datum face B (the outer face): x = z − z_B (negative into the part), y = r.
+"""
+from __future__ import annotations
+
+from ezdxf.document import Drawing
+
+from ..builder import Resolved
+from .outline import add_loop, new_document
+from .section import datum_face_z
+
+__all__ = ["profile_document"]
+
+
+def profile_document(resolved: Resolved) -> Drawing:
+    """Model space with the turned half-profile alone on layer ``outline``."""
+    d = resolved.design
+    doc = new_document(d["design"]["date"], f"{d.name}-{d.revision}:profile")
+    doc.layers.add("outline", color=7, lineweight=50)
+    assert resolved.profile is not None
+    add_loop(doc.modelspace(), resolved.profile, "outline", dz=-datum_face_z(resolved))
+    return doc

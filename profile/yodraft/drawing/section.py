@@ -1,0 +1,158 @@
+"""Model space: the section of one half at 1:1 (x = z, y = r), its mirror, hatching, axis, thread and dimensions."""
+from __future__ import annotations
+
+import math
+
+from ezdxf.layouts import BaseLayout
+
+from ..builder import Resolved
+from ..geometry import Arc, Profile
+from .dimensions import DIA, Annotator
+from .locate import corner, on_face, on_radius
+from .outline import add_loop
+
+__all__ = ["draw_section", "add_hatch", "dimension_section", "HATCH_SPACING", "datum_face_z", "thread_callout"]
+
+HATCH_SPACING = 3.0  # mm on paper, ISO 128-50 (at least 0.7 mm) (from memory)
+LANE = 7.0  # mm on paper between stacked dimension lines
+FIRST = 9.0  # mm on paper from the outline to the first dimension line
+
+
+def datum_face_z(resolved: Resolved) -> float:
+    """z of datum face B, the outer (back) face: faced first, every axial position is measured from it."""
+    return float(resolved["rim.face_z"])
+
+
+def add_hatch(layout: BaseLayout, profile: Profile, scale: float, layer: str = "hatch") -> None:
+    """Hatch the loop at 45° with exact arc edges, spaced ``HATCH_SPACING`` on paper."""
+    hatch = layout.add_hatch(dxfattribs={"layer": layer, "color": 256})
+    spacing = HATCH_SPACING / scale
+    hatch.set_pattern_fill("section-45", color=256, angle=0.0, scale=1.0, style=1, pattern_type=0,
+                           definition=[[45.0, (0.0, 0.0), (-spacing * math.sqrt(0.5), spacing * math.sqrt(0.5)), []]])
+    points = []
+    for seg in profile.segments:
+        bulge = seg.bulge if isinstance(seg, Arc) else 0.0
+        points.append((seg.start[0], seg.start[1], bulge))
+    hatch.paths.add_polyline_path(points, is_closed=True, flags=1)
+
+
+def thread_callout(resolved: Resolved) -> str:
+    """The thread designation as ISO 965-1 writes it, e.g. ``M4×0.7-6H``."""
+    d = resolved.features["axle_bore"].dims
+    return f"{str(d['thread']).replace('x', '×')}-{d['tolerance_class']}"
+
+
+def draw_section(layout: BaseLayout, resolved: Resolved, scale: float) -> None:
+    """The loop and its mirror on ``outline``, hatched, the axis, and the tapped thread (ISO 6410-1)."""
+    profile = resolved.profile
+    assert profile is not None
+    add_loop(layout, profile, "outline")
+    add_loop(layout, profile.mirrored(), "outline")
+    add_hatch(layout, profile, scale)
+    add_hatch(layout, profile.mirrored(), scale)
+    z_min, _, z_max, _ = profile.bounds()
+    over = 4.0 / scale
+    layout.add_line((z_min - over, 0.0), (z_max + over, 0.0),
+                    dxfattribs={"layer": "centre", "ltscale": 1.0 / scale})
+    v = resolved.values
+    z0 = v["bearing_seat.post_face_z"]
+    r = v["axle_bore.major_diameter"] / 2
+    end = z0 + v["axle_bore.thread_depth"]
+    for sign in (1.0, -1.0):
+        layout.add_line((z0, sign * r), (end, sign * r), dxfattribs={"layer": "thread"})
+    # thread limit: a wide line across to the major diameter
+    layout.add_line((end, -r), (end, r), dxfattribs={"layer": "thread", "lineweight": 50})
+
+
+def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> None:
+    """Every main-view dimension; the bearing-seat ones live in the enlarged detail."""
+    profile = resolved.profile
+    assert profile is not None
+    v = resolved.values
+    an = Annotator(layout, scale)
+    k = an.k
+    z_min, _, z_max, R = profile.bounds()
+    # diameters on the outer side, stacked outward by size
+    right = [
+        (("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),
+        (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
+        (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
+        (("rim.diameter",), on_radius(profile, v["rim.diameter"] / 2)),
+    ]
+    for i, (keys, at) in enumerate(right):
+        an.half_diameter(keys, at, z_max + (FIRST + LANE * i) * k)
+    # diameters on the gap side that the detail does not carry
+    wall_z = v["bearing_seat.wall_face_z"]
+    left = [
+        (("pad_groove.inner_diameter", "bearing_seat.wall_outside_diameter"),
+         on_radius(profile, v["pad_groove.inner_diameter"] / 2, prefer="min")),
+        (("pad_groove.outer_diameter",), on_radius(profile, v["pad_groove.outer_diameter"] / 2, prefer="min")),
+        (("catch_zone.start_diameter",), corner(profile, (v["bearing_seat.wall_face_z"], v["catch_zone.start_diameter"] / 2))),
+    ]
+    for i, (keys, at) in enumerate(left):
+        an.half_diameter(keys, at, z_min - (FIRST + LANE * i) * k)
+    pad_r0, pad_r1 = v["pad_groove.inner_diameter"] / 2, v["pad_groove.outer_diameter"] / 2
+    pad0 = corner(profile, (wall_z, pad_r0))
+    pad1 = corner(profile, (v["pad_groove.bottom_z"], pad_r0))
+    an.linear(("pad_groove.depth",), pad0, pad1, base=(wall_z, (pad_r0 + pad_r1) / 2))
+    # the thread on the mirror half, where no other diameter runs
+    r_t = v["axle_bore.major_diameter"] / 2
+    z0 = v["bearing_seat.post_face_z"]
+    an.half_diameter(("axle_bore.major_diameter",), (z0, r_t), z_min - FIRST * k,
+                     text="M<>" + thread_callout(resolved)[len(f"M{v['axle_bore.major_diameter']:g}"):],
+                     lower=True, text_r=-(r_t + (3.0 + 14.0) * k))
+    end = z0 + v["axle_bore.thread_depth"]
+    an.linear(("axle_bore.thread_depth",), (z0, -r_t), (end, -r_t), base=(z0, -0.5 * v["axle_bore.tap_drill"] + 0.2),
+              text="<>", text_at=((z0 + end) / 2, -0.5 * v["axle_bore.tap_drill"] + 0.2 + 2.6 * k))
+    # axial positions from datum face B (the outer face), stacked below the mirror half
+    zb = datum_face_z(resolved)
+    b = on_face(profile, zb)
+    b_low = (b[0], -b[1])
+    rows = [
+        (("bearing_seat.seat_face_z",), on_face(profile, v["bearing_seat.seat_face_z"], prefer="min")),
+        (("bearing_seat.wall_face_z",), corner(profile, (v["bearing_seat.wall_face_z"], v["catch_zone.start_diameter"] / 2))),
+        (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, v["bearing_seat.post_face_z"], prefer="min")),
+    ]
+    for i, (keys, p) in enumerate(rows):
+        an.linear(keys, (p[0], -p[1]), b_low, base=(zb, -R - (FIRST + LANE * i) * k))
+    # rim band and cup above the upper half
+    band0 = corner(profile, (v["catch_zone.end_z"], R))
+    band1 = corner(profile, (v["rim.face_z"], R))
+    an.linear(("rim.width",), band0, band1, base=(zb, R + FIRST * k))
+    cup0 = corner(profile, (v["rim.floor_z"], v["rim.cup_diameter"] / 2))
+    cup1 = corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))
+    an.linear(("rim.cup_depth",), cup0, cup1, base=(zb, cup0[1] - 4.5 * LANE * k))
+    hub = on_radius(profile, v["rim.hub_diameter"] / 2)
+    floor = corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))
+    an.linear(("rim.hub_height",), (floor[0], floor[1]), (hub[0], hub[1]),
+              base=(hub[0], hub[1] + 1.6 * LANE * k))
+    # catch-zone angle from the gap plane, at the catch zone's start
+    start = corner(profile, (v["bearing_seat.wall_face_z"], v["catch_zone.start_diameter"] / 2))
+    tip = corner(profile, (v["catch_zone.end_z"], R))
+    up = (start[0], start[1] + 10.0)
+    an.angle(("catch_zone.angle",), start, tip, up, radius=0.55 * math.dist(start, tip))
+    # cup floor cone from the gap plane
+    fl0 = floor
+    fl1 = cup0
+    an.angle(("rim.floor_angle",), fl0, fl1, (fl0[0], fl0[1] + 10.0), radius=0.45 * math.dist(fl0, fl1))
+    # edge radii, text out in the air beside each corner
+    for key, direction in (("rim.edge_radius", 45.0), ("rim.lip_radius", -20.0), ("catch_zone.edge_radius", 100.0),
+                           ("rim.cup_radius", 200.0)):
+        arc = _arc_for(profile, v[key], key, resolved)
+        mid = arc.start_angle + arc.sweep / 2
+        ang = math.degrees(mid) if key != "rim.cup_radius" else math.degrees(mid)
+        out = arc.radius + 10.0 * k
+        at = (arc.center[0] + out * math.cos(math.radians(ang)), arc.center[1] + out * math.sin(math.radians(ang)))
+        an.radius((key,), arc.center, arc.radius, ang, at)
+
+
+def _arc_for(profile: Profile, radius: float, key: str, resolved: Resolved) -> Arc:
+    v = resolved.values
+    near = {
+        "rim.edge_radius": (v["rim.face_z"], v["rim.diameter"] / 2),
+        "rim.lip_radius": (v["rim.face_z"], v["rim.cup_diameter"] / 2),
+        "catch_zone.edge_radius": (v["catch_zone.end_z"], v["rim.diameter"] / 2),
+        "rim.cup_radius": (v["rim.floor_z"], v["rim.cup_diameter"] / 2),
+    }[key]
+    arcs = [s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - radius) < 1e-9]
+    return min(arcs, key=lambda a: math.dist(a.center, near))

@@ -1,0 +1,134 @@
+"""The design report kept with the drawing: inputs, resolved dimensions, fits, mass and spin, checks, cautions.
+
+``report_data`` is the ``check --json`` summary plus the revision history, the
+inputs as written and the cautions; ``report_markdown`` renders it to read on its
+own. Summary sections this module does not know by name (added by later modules)
+are rendered as generic tables, so nothing in the summary is left out.
+"""
+from __future__ import annotations
+
+from collections.abc import Mapping
+from typing import TYPE_CHECKING, Any
+
+from .diff import flatten, unit_of
+
+if TYPE_CHECKING:  # pragma: no cover
+    from .builder import Resolved
+
+__all__ = ["report_data", "report_markdown", "cautions"]
+
+_KNOWN = ("ok", "design", "revisions", "inputs", "envelope", "profile", "bearing", "bearing_seat", "material",
+          "features", "checks", "cautions")
+
+
+def _written_inputs(raw: Mapping[str, Any]) -> dict[str, Any]:
+    """Every key the design file sets, as written, keyed by its path (revisions left to their own table)."""
+    return {k: v for k, v in flatten({k: v for k, v in raw.items() if k != "revisions"}).items()}
+
+
+def cautions(resolved: "Resolved", data: Mapping[str, Any]) -> list[str]:
+    """Points the designer or the machinist should read before turning the part (from the results, not rules)."""
+    out: list[str] = [str(c) for c in data.get("cautions", [])]
+    d = resolved.design
+    shop = d["shop"]
+    seat = data["bearing_seat"]
+    if shop["coating"] != "none" and not shop["mask_seat"]:
+        out.append(f"seat not masked: turn the post to Ø{seat['post_precoat_diameter_mm']:.4f} mm and the wall bore "
+                   f"to Ø{seat['wall_precoat_bore_mm']:.4f} mm before {shop['coating']}")
+    derived = sorted(f"{n}.{k}" for n, f in resolved.features.items() for k in f.derived)
+    if derived:
+        out.append("derived by yodraft, not given in the file: " + ", ".join(derived))
+    mass = data.get("mass", {})
+    target = data["envelope"].get("target_mass_g")
+    if target is not None and isinstance(mass.get("total_g"), (int, float)):
+        out.append(f"predicted assembled mass {mass['total_g']:.2f} g against the target {target:.2f} g "
+                   f"({mass['total_g'] - target:+.2f} g)")
+    if not d.revisions:
+        out.append("no [[revisions]] history in the design file")
+    elif d.revision not in [r.letter for r in d.revisions]:
+        out.append(f"revision {d.revision} has no entry in the [[revisions]] history")
+    for c in resolved.failed:
+        out.append(f"check failed: {c.name} [{c.feature}.{c.parameter}] {c.message}")
+    return out
+
+
+def report_data(resolved: "Resolved") -> dict[str, Any]:
+    """The report as one JSON-ready dict: the check summary plus revisions, inputs and cautions."""
+    from .summary import summary
+
+    data = summary(resolved)
+    data["revisions"] = [{"letter": r.letter, "date": r.date, "note": r.note} for r in resolved.design.revisions]
+    data["inputs"] = _written_inputs(resolved.design.raw)
+    data["cautions"] = cautions(resolved, data)
+    return data
+
+
+def _cell(value: Any, unit: str = "") -> str:
+    if isinstance(value, bool):
+        return "yes" if value else "no"
+    if isinstance(value, float):
+        return f"{value:.6g} {unit}".rstrip()
+    if isinstance(value, list):
+        return ", ".join(_cell(v, unit) for v in value) or "—"
+    if value is None:
+        return "—"
+    return str(value).replace("|", "\\|")
+
+
+def _table(header: tuple[str, ...], rows: list[tuple[Any, ...]]) -> list[str]:
+    lines = ["| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
+    lines += ["| " + " | ".join(str(c) for c in row) + " |" for row in rows]
+    return lines + [""]
+
+
+def _key_table(tree: Mapping[str, Any]) -> list[str]:
+    flat = flatten(tree)
+    return _table(("quantity", "value"), [(k, _cell(v, unit_of(k))) for k, v in flat.items()])
+
+
+def report_markdown(data: Mapping[str, Any]) -> str:
+    """The report as Markdown that reads on its own."""
+    d = data["design"]
+    title = f"# {d['name']} rev {d['revision']}" + (f" — {d['title']}" if d.get("title") else "")
+    passed = sum(c["ok"] for c in data["checks"])
+    lines = [title, "", f"Design file: `{d['source']}` · checks: {passed} of {len(data['checks'])} passed"
+             f" · {'ready to draw' if data['ok'] else 'NOT ready: a check failed'}", ""]
+    lines += ["## Revisions", ""]
+    lines += _table(("rev", "date", "note"), [(r["letter"], r["date"], _cell(r["note"])) for r in data["revisions"]]) \
+        if data["revisions"] else ["(no revision history)", ""]
+    lines += ["## Inputs (as written)", ""] + _table(("key", "value"), [(k, _cell(v)) for k, v in data["inputs"].items()])
+    lines += ["## Envelope and profile", ""] + _key_table({"envelope": data["envelope"], "profile": data["profile"]})
+    b, m = data["bearing"], data["material"]
+    lines += ["## Bearing and material", "",
+              f"Bearing {b['designation']} {b['bore_mm']:.3f} × {b['od_mm']:.3f} × {b['width_mm']:.4f} mm, "
+              f"{b['precision']} (bore {b['bore_deviation_um'][0]:+g}/{b['bore_deviation_um'][1]:+g} µm, "
+              f"outside diameter {b['od_deviation_um'][0]:+g}/{b['od_deviation_um'][1]:+g} µm). "
+              f"Material {m['name']}, {m['density_g_cm3']:.3f} g/cm³.", ""]
+    s = data["bearing_seat"]
+    lines += ["## Fit table (bearing seat, worst case, finished sizes)", ""]
+    lines += _table(("part", "nominal", "tolerance", "turn before coating", "clearance min", "clearance max"), [
+        ("post", f"Ø{s['post_diameter_mm']:.4f} mm", f"± {s['post_tolerance_mm']:.4f} mm",
+         f"Ø{s['post_precoat_diameter_mm']:.4f} mm", f"{s['clearance_min_mm'] * 1000:.1f} µm",
+         f"{s['clearance_max_mm'] * 1000:.1f} µm"),
+        ("wall bore", f"Ø{s['wall_bore_mm']:.4f} mm", f"± {s['wall_tolerance_mm']:.4f} mm",
+         f"Ø{s['wall_precoat_bore_mm']:.4f} mm", f"{s['wall_clearance_min_mm'] * 1000:.1f} µm",
+         f"{s['wall_clearance_max_mm'] * 1000:.1f} µm")])
+    lines += ["## Resolved dimensions (* derived)", ""]
+    for name, feature in data["features"].items():
+        derived = set(feature.get("derived", []))
+        rows = []
+        for key, value in feature.get("dimensions", {}).items():
+            base = key.rsplit("_", 1)[0] if unit_of(key) else key
+            rows.append((("* " if base in derived else "") + key, _cell(value, unit_of(key))))
+        lines += [f"### {name}", ""] + _table(("dimension", "value"), rows)
+    for section in [k for k in data if k not in _KNOWN]:  # mass, spin, balance … as they land
+        value = data[section]
+        heading = {"mass": "Mass budget", "spin": "Spin metrics", "balance": "Balance"}.get(section, section)
+        lines += [f"## {heading}", ""]
+        lines += _key_table(value) if isinstance(value, Mapping) else [_cell(value), ""]
+    lines += ["## Checks", ""]
+    lines += _table(("", "check", "where", "result"), [
+        ("ok" if c["ok"] else "**FAIL**", c["name"], f"{c['feature']}.{c['parameter']}", _cell(c["message"]))
+        for c in data["checks"]])
+    lines += ["## Cautions", ""] + ([f"- {c}" for c in data["cautions"]] or ["(none)"]) + [""]
+    return "\n".join(lines)

@@ -1,0 +1,177 @@
+"""Solving for a target: move one numeric parameter until the design hits a mass, an Izz or a gap.
+
+A bracketing root finder (expand from the current value until the target is
+crossed, then the Illinois variant of regula falsi) keeps every trial inside
+the parameter's own bounds, so each trial is a design the builder accepts.
+"""
+from __future__ import annotations
+
+import copy
+import math
+from collections.abc import Callable, Mapping
+from dataclasses import dataclass
+from typing import Any
+
+from .analysis import analyse
+from .builder import Resolved, build
+from .design import SECTIONS, Design, from_dict
+from .errors import DesignInputError
+from .features import FEATURES
+from .params import ParamSpec
+
+__all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "with_value", "quantity_text"]
+
+#: what can be aimed at: name -> (kind of the target value, how to read it off a resolved design, tolerance)
+TARGETS: dict[str, tuple[str, Callable[[Resolved], float], float]] = {
+    "mass": ("mass", lambda r: analyse(r).assembly.total_g, 0.001),
+    "izz": ("inertia", lambda r: analyse(r).assembly.izz_g_mm2, 0.5),
+    "gap": ("length", lambda r: r["bearing_seat.gap"], 1e-5),
+}
+_UNIT_OF_KIND = {"length": "mm", "angle": "deg", "mass": "g", "torque": "N*mm", "density": "g/cm^3",
+                 "speed": "rpm", "roughness": "um"}
+
+
+@dataclass(frozen=True)
+class SolveResult:
+    """The answer: the value found (base units), what the design then measures, and how it got there."""
+
+    key: str
+    value: float
+    achieved: float
+    target: float
+    evaluations: int
+    resolved: Resolved
+    design: Design
+
+
+def find_spec(key: str, source: str) -> tuple[list[str], ParamSpec]:
+    """The TOML path and spec of a numeric design key such as "features.rim.width" (or "rim.width")."""
+    parts = key.split(".")
+    if parts[0] in FEATURES:
+        parts = ["features"] + parts
+    specs: tuple[ParamSpec, ...] = ()
+    if len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
+        specs = FEATURES[parts[1]].PARAMS
+    elif len(parts) == 2 and parts[0] in SECTIONS:
+        specs = SECTIONS[parts[0]]
+    spec = next((s for s in specs if s.name == parts[-1]), None)
+    if spec is None or spec.kind in ("text", "bool"):
+        raise DesignInputError(source, key, "is not a numeric design parameter",
+                               "a key path such as features.rim.width or features.rim.thickness")
+    return parts, spec
+
+
+def quantity_text(value: float, spec: ParamSpec) -> Any:
+    """``value`` (base units) as a design-file value: a quantity string, or a plain number."""
+    if spec.kind == "number":
+        return round(value, 9)
+    if spec.kind == "angle":
+        return f"{math.degrees(value):.6f} deg"
+    return f"{value:.6f} {_UNIT_OF_KIND[spec.kind]}"
+
+
+def with_value(design: Design, parts: list[str], spec: ParamSpec, value: float) -> Design:
+    """A copy of ``design`` with the parameter at ``parts`` set to ``value`` (base units)."""
+    raw = copy.deepcopy(dict(design.raw))
+    table: dict[str, Any] = raw
+    for name in parts[:-1]:
+        table = table.setdefault(name, {})
+    table[parts[-1]] = quantity_text(value, spec)
+    return from_dict(raw, design.source)
+
+
+def _current(design: Design, parts: list[str], spec: ParamSpec) -> float | None:
+    section: Mapping[str, Any] = design.features[parts[1]] if parts[0] == "features" else design[parts[0]]
+    value = section[parts[-1]]
+    if value is None:
+        resolved = build(design)
+        value = resolved.values.get(f"{parts[1]}.{parts[-1]}" if parts[0] == "features" else ".".join(parts))
+    return value if isinstance(value, float) else None
+
+
+def solve(design: Design, target: str, goal: float, key: str, max_evaluations: int = 80) -> SolveResult:
+    """Find the value of ``key`` within its bounds at which ``target`` (mass, izz or gap) equals ``goal``.
+
+    Raises DesignInputError when the key or target is unknown, and ValueError
+    (with the closest value reached and why) when no value in the bounds gets there.
+    """
+    if target not in TARGETS:
+        raise DesignInputError(design.source, "--target", f"unknown target {target!r}", "mass, izz or gap")
+    _, measure, tol = TARGETS[target]
+    parts, spec = find_spec(key, design.source)
+    lo = spec.lo if spec.lo is not None else -1e6
+    hi = spec.hi if spec.hi is not None else 1e6
+    x0 = _current(design, parts, spec)
+    if x0 is None:
+        raise DesignInputError(design.source, key, "has no value to start from", "give it a value in the design file")
+    count = 0
+    best: tuple[float, float, float] | None = None  # (|error|, x, measured)
+
+    def f(x: float) -> float | None:
+        nonlocal count, best
+        count += 1
+        try:
+            candidate = with_value(design, parts, spec, x)
+            resolved = build(candidate)
+            if resolved.profile is None:
+                return None
+            got = measure(resolved)
+        except (DesignInputError, ValueError):
+            return None
+        if best is None or abs(got - goal) < best[0]:
+            best = (abs(got - goal), x, got)
+        return got - goal
+
+    e0 = f(x0)
+    if e0 is None:
+        raise ValueError(f"{key} = {x0:g} gives no valid profile to start from")
+    a, fa = x0, e0
+    b, fb = a, fa
+    if abs(fa) > tol:
+        # try both directions, growing the step until the sign changes or the bounds stop us
+        step = max(abs(x0) * 0.05, 0.05)
+        found = False
+        for direction in (1.0, -1.0):
+            x_prev, f_prev, h = x0, e0, step
+            while count < max_evaluations:
+                x = min(hi, max(lo + 1e-9 if not spec.lo_closed else lo, x_prev + direction * h))
+                if x == x_prev:
+                    break
+                fx = f(x)
+                if fx is None:
+                    break
+                if fx == 0 or (fx > 0) != (f_prev > 0):
+                    a, fa, b, fb, found = x_prev, f_prev, x, fx, True
+                    break
+                x_prev, f_prev, h = x, fx, h * 2
+            if found:
+                break
+        if not found:
+            assert best is not None
+            raise ValueError(f"no value of {key} within its bounds and a valid profile reaches {target} {goal:g}; "
+                             f"closest {best[2]:.4f} at {quantity_text(best[1], spec)}")
+        side = 0
+        while abs(fb) > tol and count < max_evaluations and abs(b - a) > 1e-12:
+            x = b - fb * (b - a) / (fb - fa)
+            fx = f(x)
+            if fx is None:
+                x = (a + b) / 2
+                fx = f(x)
+                if fx is None:
+                    break
+            if (fx > 0) == (fb > 0):
+                b, fb = x, fx
+                if side == -1:
+                    fa /= 2
+                side = -1
+            else:
+                a, fa = b, fb
+                b, fb = x, fx
+                if side == 1:
+                    fa /= 2
+                side = 1
+        if abs(fb) > tol:
+            raise ValueError(f"{key}: could not close on {target} {goal:g} within {max_evaluations} trials")
+    solved = with_value(design, parts, spec, b)
+    resolved = build(solved)
+    return SolveResult(key, b, measure(resolved), goal, count, resolved, solved)

@@ -1,0 +1,353 @@
+"""Sweeps: a grid over one or two design parameters, each variant resolved and checked (no drawings).
+
+A variant is the base design with the varied keys replaced; failed variants are
+kept with the checks that failed. Outputs are read from the ``check --json``
+summary (gap, clearances, mass, Izz, rim share … whichever are present). Large
+grids are split into chunks run across processes.
+
+>>> from yodraft import loads, EXAMPLE
+>>> axis = parse_vary("rim.width=6mm:8mm:3", loads(EXAMPLE))
+>>> axis.key, [round(v, 3) for v in axis.values()]
+('features.rim.width', [6.0, 7.0, 8.0])
+"""
+from __future__ import annotations
+
+import math
+import os
+import re
+import sys
+from collections.abc import Callable, Mapping, Sequence
+from concurrent.futures import ProcessPoolExecutor
+from dataclasses import dataclass, replace
+from typing import TYPE_CHECKING, Any
+
+from .errors import DesignInputError, YodraftError
+
+if TYPE_CHECKING:  # pragma: no cover
+    from .design import Design
+
+__all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text", "svg_plot",
+           "OUTPUT_KEYS", "MAX_VARIANTS"]
+
+MAX_VARIANTS = 100_000
+#: summary keys a sweep reports when present, in column order; keys ending in "rim_share" are added too
+OUTPUT_KEYS = ("profile.gap_mm", "profile.outer_diameter_mm", "profile.width_mm", "bearing_seat.clearance_min_mm",
+               "bearing_seat.clearance_max_mm", "mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2")
+# how each kind is shown in CSV columns and on the plot: (factor from the base unit, unit text, column suffix)
+_SHOW = {"length": (1.0, "mm", "_mm"), "angle": (180 / math.pi, "deg", "_deg"), "mass": (1.0, "g", "_g"),
+         "density": (1.0, "g/cm^3", "_g_cm3"), "speed": (1.0, "rpm", "_rpm"), "torque": (1.0, "N*mm", "_n_mm"),
+         "roughness": (1.0, "um", "_um"), "number": (1.0, "", "")}
+_VARY = re.compile(r"^\s*([A-Za-z0-9_.]+)\s*=\s*([^:]+):([^:]+):\s*([^:]*?)\s*$")
+
+
+@dataclass(frozen=True)
+class Axis:
+    """One varied parameter: design key path, kind, and ``count`` values from ``start`` to ``stop`` (base units)."""
+
+    key: str
+    kind: str
+    start: float
+    stop: float
+    count: int
+
+    def values(self) -> list[float]:
+        """The grid values, evenly spaced, both ends included."""
+        step = (self.stop - self.start) / (self.count - 1)
+        return [self.start + i * step for i in range(self.count - 1)] + [self.stop]
+
+    @property
+    def unit(self) -> str:
+        return _SHOW[self.kind][1]
+
+    @property
+    def column(self) -> str:
+        """CSV column name: the key with its unit suffix, e.g. ``features.rim.width_mm``."""
+        return self.key + _SHOW[self.kind][2]
+
+    def shown(self, value: float) -> float:
+        """A base-unit value in the unit of the column (degrees for angles)."""
+        return value * _SHOW[self.kind][0]
+
+
+@dataclass(frozen=True)
+class Variant:
+    """One grid point: the varied values (column units), whether every check passed, which failed, the outputs."""
+
+    index: int
+    inputs: tuple[float, ...]
+    ok: bool
+    failed: tuple[str, ...]
+    outputs: Mapping[str, float | None]
+
+
+@dataclass(frozen=True)
+class SweepResult:
+    """A finished sweep: its axes and every variant in grid order (first axis slowest)."""
+
+    design_name: str
+    axes: tuple[Axis, ...]
+    variants: tuple[Variant, ...]
+
+    @property
+    def passed(self) -> int:
+        return sum(v.ok for v in self.variants)
+
+    @property
+    def output_keys(self) -> list[str]:
+        keys: list[str] = []
+        for v in self.variants:
+            keys += [k for k in v.outputs if k not in keys]
+        return keys
+
+
+def _spec(key: str):
+    """(section or "features", table name, ParamSpec) of a design key path, or None."""
+    from .design import SECTIONS
+    from .features import FEATURES
+
+    parts = key.split(".")
+    if len(parts) == 2 and parts[0] in FEATURES:
+        parts = ["features"] + parts
+    if len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
+        specs, where = FEATURES[parts[1]].PARAMS, ("features", parts[1])
+    elif len(parts) == 2 and parts[0] in SECTIONS:
+        specs, where = SECTIONS[parts[0]], (parts[0], parts[0])
+    else:
+        return None
+    spec = next((s for s in specs if s.name == parts[-1]), None)
+    return None if spec is None else (where[0], where[1], spec)
+
+
+def parse_vary(text: str, design: "Design") -> Axis:
+    """Read ``KEY=START:STOP:COUNT`` (e.g. ``features.rim.width=6mm:3mm:4``) against the design's key specs."""
+    where = "--vary"
+    m = _VARY.match(text)
+    if not m:
+        raise DesignInputError(where, text[:60], "cannot be read", "KEY=START:STOP:COUNT, e.g. features.rim.width=6mm:3mm:4")
+    key, start_text, stop_text, count_text = m.groups()
+    found = _spec(key)
+    if found is None:
+        raise DesignInputError(where, key, "is not a design key",
+                               "a key path such as features.rim.width or shop.fit_clearance")
+    section, table, spec = found
+    full = f"features.{table}.{spec.name}" if section == "features" else f"{section}.{spec.name}"
+    if spec.kind not in _SHOW:
+        raise DesignInputError(where, full, f"is a {spec.kind} setting and cannot be swept",
+                               "a quantity with units or a plain number")
+    values = []
+    for raw in (start_text.strip(), stop_text.strip()):
+        if spec.kind == "number":
+            try:
+                raw_value: Any = float(raw)
+            except ValueError:
+                raise DesignInputError(where, full, f"got {raw[:40]!r}", spec.expected()) from None
+        else:
+            raw_value = raw
+        values.append(spec.read(raw_value, where, full))
+    if not re.fullmatch(r"\d+", count_text):
+        raise DesignInputError(where, full, f"count {count_text[:20]!r} is not a whole number", "a COUNT of at least 2")
+    count = int(count_text)
+    if count < 2 or count > MAX_VARIANTS:
+        raise DesignInputError(where, full, f"count {count} is out of range", f"a COUNT from 2 to {MAX_VARIANTS}")
+    if values[0] == values[1]:
+        raise DesignInputError(where, full, "START equals STOP", "two different end values")
+    return Axis(full, spec.kind, values[0], values[1], count)
+
+
+def _variant_design(base: "Design", assignments: Sequence[tuple[str, float]]) -> "Design":
+    """The base design with each key path set to a value (base units); the parsed TOML is updated alike."""
+    sections = dict(base.sections)
+    features = dict(base.features)
+    raw = dict(base.raw)
+    for key, value in assignments:
+        parts = key.split(".")
+        kind = _spec(key)[2].kind
+        factor, unit, _ = _SHOW[kind]
+        written = value if kind == "number" else f"{value * factor:.12g} {unit}"
+        if parts[0] == "features":
+            features[parts[1]] = {**features[parts[1]], parts[2]: value}
+            tables = dict(raw.get("features", {}))
+            tables[parts[1]] = {**tables.get(parts[1], {}), parts[2]: written}
+            raw["features"] = tables
+        else:
+            sections[parts[0]] = {**sections[parts[0]], parts[1]: value}
+            raw[parts[0]] = {**raw.get(parts[0], {}), parts[1]: written}
+    keys = frozenset(k for k, _ in assignments)
+    return replace(base, sections=sections, features=features, given=base.given | keys, raw=raw)
+
+
+def _outputs(data: Mapping[str, Any]) -> dict[str, float | None]:
+    """The OUTPUT_KEYS found in a summary, then any "<section>.<...>rim_share" key (no full flatten: it is hot)."""
+    found: dict[str, Any] = {}
+    for key in OUTPUT_KEYS:
+        section, _, leaf = key.partition(".")
+        table = data.get(section)
+        if isinstance(table, Mapping) and leaf in table:
+            found[key] = table[leaf]
+    for section, table in data.items():
+        if isinstance(table, Mapping) and section != "features":
+            found.update({f"{section}.{k}": v for k, v in table.items() if k.endswith("rim_share")})
+    return {k: (float(v) if isinstance(v, (int, float)) and not isinstance(v, bool) else None) for k, v in found.items()}
+
+
+def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float]) -> Variant:
+    """Resolve and check one variant; an input the builder rejects makes it a failed variant, not an error."""
+    from .builder import build
+    from .summary import summary
+
+    assignments = list(zip([a.key for a in axes], values))
+    shown = tuple(a.shown(v) for a, v in zip(axes, values))
+    try:
+        resolved = build(_variant_design(base, assignments))
+    except (YodraftError, ValueError) as exc:
+        return Variant(index, shown, False, (f"input: {exc}",), {})
+    failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
+    return Variant(index, shown, resolved.ok, failed, _outputs(summary(resolved)))
+
+
+def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:
+    return [run_variant(base, axes, i, vals) for i, vals in points]
+
+
+def _context():
+    import multiprocessing
+
+    # fork shares the already imported modules with the workers (no second start-up) where it is safe
+    if sys.platform == "linux" and "fork" in multiprocessing.get_all_start_methods():
+        return multiprocessing.get_context("fork")
+    return None
+
+
+def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
+          progress: Callable[[int, int], None] | None = None) -> SweepResult:
+    """Run every grid point of one or two axes; ``progress(done, total)`` is called as variants finish."""
+    if not 1 <= len(axes) <= 2:
+        raise DesignInputError("--vary", "", f"got {len(axes)} axes", "one or two --vary options")
+    if len({a.key for a in axes}) != len(axes):
+        raise DesignInputError("--vary", axes[0].key, "is varied twice", "two different keys")
+    total = math.prod(a.count for a in axes)
+    if total > MAX_VARIANTS:
+        raise DesignInputError("--vary", "", f"{total} variants is too many", f"at most {MAX_VARIANTS}")
+    grids = [a.values() for a in axes]
+    if len(axes) == 1:
+        points = [(i, (v,)) for i, v in enumerate(grids[0])]
+    else:
+        points = [(i * len(grids[1]) + j, (u, v)) for i, u in enumerate(grids[0]) for j, v in enumerate(grids[1])]
+    workers = workers if workers is not None else min(os.cpu_count() or 1, 8)
+    done: list[Variant] = []
+    if workers <= 1 or total < 64:
+        for i, vals in points:
+            done.append(run_variant(base, axes, i, vals))
+            if progress:
+                progress(len(done), total)
+    else:
+        size = max(16, math.ceil(total / (workers * 8)))
+        chunks = [points[k:k + size] for k in range(0, total, size)]
+        with ProcessPoolExecutor(max_workers=workers, mp_context=_context()) as pool:
+            for result in pool.map(_run_chunk, [base] * len(chunks), [tuple(axes)] * len(chunks), chunks):
+                done.extend(result)
+                if progress:
+                    progress(len(done), total)
+    done.sort(key=lambda v: v.index)
+    return SweepResult(base.name, tuple(axes), tuple(done))
+
+
+def _num(v: float | None) -> str:
+    return "" if v is None else f"{v:.10g}"
+
+
+def csv_text(result: SweepResult) -> str:
+    """The sweep as CSV: index, varied inputs, ok, failed checks (``;``-separated), then the outputs."""
+    import csv
+    import io
+
+    keys = result.output_keys
+    out = io.StringIO()
+    writer = csv.writer(out, lineterminator="\n")
+    writer.writerow(["index"] + [a.column for a in result.axes] + ["ok", "failed"] + keys)
+    for v in result.variants:
+        writer.writerow([v.index] + [_num(x) for x in v.inputs] + ["true" if v.ok else "false", "; ".join(v.failed)]
+                        + [_num(v.outputs.get(k)) for k in keys])
+    return out.getvalue()
+
+
+def _ticks(lo: float, hi: float, n: int = 5) -> list[float]:
+    if hi <= lo:
+        return [lo]
+    raw = (hi - lo) / n
+    mag = 10 ** math.floor(math.log10(raw))
+    step = next(m * mag for m in (1, 2, 2.5, 5, 10) if m * mag >= raw)
+    first = math.ceil(lo / step - 1e-9) * step
+    return [first + i * step for i in range(int((hi - first) / step + 1e-9) + 1)]
+
+
+_PALETTE = ("#1f5fa8", "#c8102e", "#2e8b57", "#8a5a00", "#6a3d9a", "#00838f", "#5d4037", "#ad1457")
+
+
+def svg_plot(result: SweepResult, keys: Sequence[str] | None = None) -> str:
+    """An SVG of each output against the first varied parameter; one line per value of the second.
+
+    Filled dots pass every check; hollow dots are variants with a failed check.
+    """
+    from xml.sax.saxutils import escape
+
+    keys = [k for k in (keys or result.output_keys) if any(v.outputs.get(k) is not None for v in result.variants)]
+    ax = result.axes[0]
+    w, ph, left, right, top, gap = 720, 200, 80, 30, 50, 60
+    height = top + max(1, len(keys)) * (ph + gap)
+    parts = [f'<svg xmlns="http://www.w3.org/2000/svg" width="{w}" height="{height}" viewBox="0 0 {w} {height}" '
+             'font-family="sans-serif" font-size="11">',
+             f'<rect width="{w}" height="{height}" fill="white"/>',
+             f'<text x="{left}" y="22" font-size="14">{escape(result.design_name)}: sweep of {escape(ax.column)} '
+             f'({result.passed} of {len(result.variants)} variants pass)</text>']
+    if len(result.axes) == 2:
+        parts.append(f'<text x="{left}" y="38">one line per {escape(result.axes[1].column)}; '
+                     'hollow dot: a check failed</text>')
+    else:
+        parts.append(f'<text x="{left}" y="38">hollow dot: a check failed</text>')
+    xs = [v.inputs[0] for v in result.variants]
+    x_lo, x_hi = min(xs), max(xs)
+    pw = w - left - right
+    groups: dict[float, list[Variant]] = {}
+    for v in result.variants:
+        groups.setdefault(v.inputs[1] if len(v.inputs) > 1 else 0.0, []).append(v)
+    for p, key in enumerate(keys):
+        y0 = top + p * (ph + gap) + 10
+        ys = [v.outputs[key] for v in result.variants if v.outputs.get(key) is not None]
+        y_lo, y_hi = min(ys), max(ys)
+        if y_hi - y_lo < 1e-12 * max(1.0, abs(y_hi)):
+            y_lo, y_hi = y_lo - 0.5 * max(abs(y_lo) * 0.01, 1e-6), y_hi + 0.5 * max(abs(y_hi) * 0.01, 1e-6)
+
+        def sx(x: float) -> float:
+            return left + (x - x_lo) / ((x_hi - x_lo) or 1.0) * pw
+
+        def sy(y: float) -> float:
+            return y0 + ph - (y - y_lo) / (y_hi - y_lo) * ph
+
+        parts.append(f'<rect x="{left}" y="{y0}" width="{pw}" height="{ph}" fill="none" stroke="#444"/>')
+        parts.append(f'<text x="{left}" y="{y0 - 4}" font-size="12">{escape(key)}</text>')
+        for t in _ticks(y_lo, y_hi):
+            parts.append(f'<line x1="{left - 4}" y1="{sy(t):.2f}" x2="{left + pw}" y2="{sy(t):.2f}" stroke="#ddd"/>')
+            parts.append(f'<text x="{left - 6}" y="{sy(t) + 4:.2f}" text-anchor="end">{t:.6g}</text>')
+        for t in _ticks(x_lo, x_hi):
+            parts.append(f'<line x1="{sx(t):.2f}" y1="{y0}" x2="{sx(t):.2f}" y2="{y0 + ph + 4}" stroke="#ddd"/>')
+            parts.append(f'<text x="{sx(t):.2f}" y="{y0 + ph + 16}" text-anchor="middle">{t:.6g}</text>')
+        parts.append(f'<text x="{left + pw}" y="{y0 + ph + 30}" text-anchor="end">{escape(ax.column)}</text>')
+        for g, (label, members) in enumerate(groups.items()):
+            colour = _PALETTE[g % len(_PALETTE)]
+            pts = [(sx(v.inputs[0]), sy(v.outputs[key]), v.ok) for v in members if v.outputs.get(key) is not None]
+            if len(pts) > 1:
+                path = " ".join(f"{x:.2f},{y:.2f}" for x, y, _ in pts)
+                parts.append(f'<polyline points="{path}" fill="none" stroke="{colour}" stroke-width="1.5"/>')
+            if len(pts) <= 200:
+                for x, y, ok in pts:
+                    fill = colour if ok else "white"
+                    parts.append(f'<circle cx="{x:.2f}" cy="{y:.2f}" r="3" fill="{fill}" stroke="{colour}"/>')
+            if len(result.axes) == 2 and p == 0 and g < 12:
+                lx = left + pw - 150
+                ly = y0 + 14 + 14 * g
+                parts.append(f'<line x1="{lx}" y1="{ly - 4}" x2="{lx + 18}" y2="{ly - 4}" stroke="{colour}" '
+                             'stroke-width="2"/>')
+                parts.append(f'<text x="{lx + 22}" y="{ly}">{label:.6g} {escape(result.axes[1].unit)}</text>')
+    parts.append("</svg>")
+    return "\n".join(parts) + "\n"

@@ -1,0 +1,96 @@
+"""Starter designs: list them and write a new design file from one.
+
+The templates are the ``*.toml`` files of the ``templates/`` folder beside the
+``profile/`` source root (where an editable install finds them). A copy shipped
+inside the package as ``yodraft/templates/`` (package data) is used when that
+folder is absent. Each template's first comment line is its one-line description.
+"""
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass
+from importlib import resources
+from pathlib import Path
+
+from .errors import DesignInputError
+
+__all__ = ["Template", "template_dir", "list_templates", "find_template", "new_design"]
+
+
+@dataclass(frozen=True)
+class Template:
+    """One starter design: its name (the file stem), file and one-line description."""
+
+    name: str
+    path: Path
+    description: str
+
+
+def template_dir() -> Path | None:
+    """The folder holding the starter designs, or None when none can be found."""
+    beside = Path(__file__).resolve().parents[2] / "templates"
+    if beside.is_dir():
+        return beside
+    shipped = resources.files("yodraft") / "templates"
+    if shipped.is_dir():
+        return Path(str(shipped))
+    return None
+
+
+def _description(text: str) -> str:
+    for line in text.splitlines():
+        stripped = line.strip()
+        if stripped.startswith("#"):
+            return stripped.lstrip("#").strip()
+        if stripped:
+            break
+    return ""
+
+
+def list_templates(folder: Path | None = None) -> list[Template]:
+    """Every starter design, sorted by name."""
+    folder = template_dir() if folder is None else folder
+    if folder is None:
+        return []
+    return [Template(p.stem, p, _description(p.read_text(encoding="utf-8"))) for p in sorted(folder.glob("*.toml"))]
+
+
+def find_template(name: str, folder: Path | None = None) -> Template:
+    """The template called ``name`` (with or without ``.toml``); DesignInputError naming the choices if none."""
+    stem = name[:-5] if name.endswith(".toml") else name
+    templates = list_templates(folder)
+    for t in templates:
+        if t.name == stem:
+            return t
+    names = ", ".join(t.name for t in templates) or "none found"
+    raise DesignInputError("new", "--template", f"no template {name!r}", f"one of {names}")
+
+
+def new_design(path: Path, template: str, name: str | None = None, folder: Path | None = None) -> Path:
+    """Write a new design file at ``path`` from a template, refusing to overwrite anything.
+
+    ``name`` replaces the template's ``design.name`` (so output files do not clash).
+    The result is read back before it is written, so a bad name is reported, not saved.
+    """
+    from .design import NAME_PATTERN, loads
+
+    path = Path(path)
+    text = find_template(template, folder).path.read_text(encoding="utf-8")
+    if name is not None:
+        if not NAME_PATTERN.match(name):
+            raise DesignInputError("new", "--name", f"{name[:40]!r} cannot name a file",
+                                   "letters, digits, '.', '_' or '-', starting with a letter or digit")
+        text, n = re.subn(r'(?m)^(name\s*=\s*)"[^"\n]*"', lambda m: f'{m.group(1)}"{name}"', text, count=1)
+        if n != 1:
+            raise DesignInputError(str(path), "design.name", "the template has no name line to replace", "")
+    design = loads(text, str(path))
+    if name is not None and design.name != name:
+        raise DesignInputError(str(path), "design.name", "the template's first name line is not design.name", "")
+    try:
+        with open(path, "x", encoding="utf-8", newline="\n") as handle:
+            handle.write(text)
+    except FileExistsError:
+        raise DesignInputError(str(path), "", "already exists; not overwritten", "a new file name") from None
+    except OSError as exc:
+        raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})", "a writable path") from None
+    return path

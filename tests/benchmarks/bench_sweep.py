@@ -1,0 +1,52 @@
+"""Benchmark: a 2,000-variant sweep (no drawings) against one `yodraft check` of the same design.
+
+Target (issue 6): the sweep takes at most 3 × one check. Both are timed as whole
+processes (start-up included), best of a few runs; the ratio is printed, not asserted.
+
+    PYTHONPATH=profile python tests/benchmarks/bench_sweep.py [--runs N] [--jobs N]
+"""
+from __future__ import annotations
+
+import argparse
+import os
+import subprocess
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parents[2]
+DESIGN = ROOT / "templates" / "string-trick.toml"
+# 40 × 50 = 2,000 variants over rim width and rim thickness, some of which fail a check
+VARY = ["--vary", "features.rim.width=6mm:10mm:40", "--vary", "features.rim.thickness=2.5mm:5mm:50"]
+
+
+def timed(argv: list[str]) -> float:
+    env = dict(os.environ, PYTHONPATH=str(ROOT / "profile"))
+    start = time.perf_counter()
+    done = subprocess.run([sys.executable, "-m", "yodraft", *argv], env=env, capture_output=True, text=True)
+    elapsed = time.perf_counter() - start
+    if done.returncode not in (0, 1):
+        raise SystemExit(f"yodraft {' '.join(argv)} failed: {done.stderr.strip()}")
+    return elapsed
+
+
+def main() -> None:
+    parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    parser.add_argument("--runs", type=int, default=3)
+    parser.add_argument("--jobs", type=int, default=None, help="sweep worker processes (default: one per core)")
+    args = parser.parse_args()
+    jobs = ["--jobs", str(args.jobs)] if args.jobs else []
+    with tempfile.TemporaryDirectory() as tmp:
+        csv = str(Path(tmp) / "sweep.csv")
+        check = min(timed(["check", str(DESIGN)]) for _ in range(args.runs))
+        sweep = min(timed(["sweep", str(DESIGN), *VARY, "--csv", csv, *jobs]) for _ in range(args.runs))
+        rows = sum(1 for _ in open(csv, encoding="utf-8")) - 1
+    print(f"cores: {os.cpu_count()}, load average: {os.getloadavg()[0]:.2f}")
+    print(f"one check:               {check:.3f} s")
+    print(f"sweep of {rows} variants: {sweep:.3f} s ({(sweep - check) / rows * 1000:.2f} ms per variant beyond start-up)")
+    print(f"ratio sweep / check:     {sweep / check:.2f} (target <= 3)")
+
+
+if __name__ == "__main__":
+    main()

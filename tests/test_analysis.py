@@ -1,0 +1,75 @@
+"""Mass of a template against the outline drawn in its DXF, and the target-mass solve."""
+from __future__ import annotations
+
+import math
+from pathlib import Path
+
+import ezdxf
+import pytest
+import shapely
+
+import yodraft
+from conftest import TEMPLATES
+from yodraft.analysis import analyse
+from yodraft.cli import main
+from yodraft.solve import solve
+
+
+def test_mass_equals_pappus_on_the_drawn_outline(tmp_path: Path) -> None:
+    assert main(["build", str(TEMPLATES / "string-trick.toml"), "-o", str(tmp_path)]) == 0
+    doc = ezdxf.readfile(tmp_path / "larchmere-ls56-A.dxf")
+    upper = [e for e in doc.modelspace().query("LWPOLYLINE[layer=='outline']")
+             if min(v.y for v in ezdxf.path.make_path(e).flattening(0.01)) >= -1e-9]
+    assert len(upper) == 1
+    poly = shapely.Polygon([(v.x, v.y) for v in ezdxf.path.make_path(upper[0]).flattening(0.0005)])
+    resolved = yodraft.build(yodraft.load(TEMPLATES / "string-trick.toml"))
+    density = resolved["material.density_g_cm3"] * 1e-3
+    # Pappus's centroid theorem: V = 2π ȳ A, so m = 2π ρ ∫ r dA
+    expected = 2 * math.pi * density * poly.area * poly.centroid.y
+    assert analyse(resolved).half.mass_g == pytest.approx(expected, rel=1e-3)
+
+
+def test_assembly_adds_the_small_parts() -> None:
+    resolved = yodraft.build(yodraft.load(TEMPLATES / "string-trick.toml"))
+    a = analyse(resolved)
+    assert a.assembly.total_g == pytest.approx(sum(line.mass_total_g for line in a.assembly.budget), rel=1e-12)
+    assert a.assembly.total_g > 2 * a.half.mass_g
+    assert a.assembly.izz_g_mm2 > 2 * a.half.izz_g_mm2
+
+
+def test_solve_reaches_66_g_and_passes(tmp_path: Path) -> None:
+    design = yodraft.load(TEMPLATES / "string-trick.toml")
+    result = solve(design, "mass", 66.0, "features.rim.thickness")
+    assert result.resolved.ok
+    assert analyse(result.resolved).assembly.total_g == pytest.approx(66.0, abs=0.01)
+
+
+def test_solve_command_writes_a_new_file_that_checks(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    before = source.read_bytes()
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 0
+    assert source.read_bytes() == before
+    solved = tmp_path / "st-B.toml"
+    design = yodraft.load(solved)
+    assert design.revision == "B" and design.revisions[-1].letter == "B"
+    resolved = yodraft.build(design)
+    assert resolved.ok and analyse(resolved).assembly.total_g == pytest.approx(66.0, abs=0.01)
+    # a second solve would overwrite the first: refused
+    capsys.readouterr()
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 2
+
+
+def test_solve_out_of_reach_names_closest(capsys: pytest.CaptureFixture[str], tmp_path: Path) -> None:
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    assert main(["solve", str(source), "--target", "mass=500g", "--vary", "features.rim.thickness"]) == 1
+    assert "closest" in capsys.readouterr().err
+    assert not (tmp_path / "st-B.toml").exists()
+
+
+def test_solve_gap() -> None:
+    design = yodraft.load(TEMPLATES / "string-trick.toml")
+    result = solve(design, "gap", 4.0, "features.bearing_seat.wall_offset")
+    # gap = bearing width − 2 × offset → offset = (4.7625 − 4.0) / 2  # common practice, no published source
+    assert result.value == pytest.approx((4.7625 - 4.0) / 2, abs=1e-5)

@@ -1,0 +1,130 @@
+"""The first end-to-end path: trade values, derived dimensions and the named checks."""
+from __future__ import annotations
+
+import math
+
+import pytest
+
+import yodraft
+from yodraft.tomledit import set_key
+
+IN = 25.4  # exact, international yard and pound agreement (1959)
+
+
+def build_text(text: str) -> yodraft.Resolved:
+    return yodraft.build(yodraft.loads(text, "t.toml"))
+
+
+def failed(resolved: yodraft.Resolved) -> set[str]:
+    return {f"{c.feature}.{c.parameter}" for c in resolved.failed}
+
+
+def test_size_c_gap_and_post_length(string_trick_text: str) -> None:
+    r = build_text(string_trick_text)
+    assert r.ok, [c.message for c in r.failed]
+    # size C = R188: width 3/16 in  # common practice, no published source
+    assert r["bearing.width"] == pytest.approx(0.1875 * IN, abs=1e-12)
+    # gap = bearing width − 2 × 0.2 mm offset = 4.3625 mm  # common practice, no published source
+    assert r["bearing_seat.gap"] == pytest.approx(4.3625, abs=1e-9)
+    # post length = (4.7625 − 1) / 2 = 1.88125 mm  # common practice, no published source
+    assert r["bearing_seat.post_length"] == pytest.approx(1.88125, abs=1e-9)
+
+
+def test_worst_case_post_from_trade_example(string_trick_text: str) -> None:
+    text = set_key(string_trick_text, "bearing", "bore_tolerance", "0.0001 in")
+    text = set_key(text, "shop", "coating", "none")
+    r = build_text(text)
+    # bore 0.25 in −0.0001, lathe ±0.0002 in, clearance 0.0005 in → post 0.2492 ± 0.0002 in
+    # common practice, no published source
+    assert r["bearing_seat.post_diameter"] / IN == pytest.approx(0.2492, abs=1e-9)
+    assert r["bearing_seat.post_tolerance"] / IN == pytest.approx(0.0002, abs=1e-12)
+
+
+def test_default_design_passes() -> None:
+    assert yodraft.build(yodraft.loads(yodraft.EXAMPLE)).ok
+
+
+@pytest.mark.parametrize("name", ["string-trick", "undersized", "wide-heavy"])
+def test_templates_pass_and_stay_inside_envelope(name: str) -> None:
+    from conftest import TEMPLATES
+
+    r = yodraft.build(yodraft.load(TEMPLATES / f"{name}.toml"))
+    assert r.ok, [(c.name, c.message) for c in r.failed]
+    z_min, r_min, z_max, r_max = r.profile.bounds()
+    assert 2 * r_max <= r["envelope.diameter"] + 1e-9
+    assert 2 * z_max <= r["envelope.width"] + 1e-9
+    assert z_min >= 0 and r_min >= 0
+    poly = r.profile.polygon()
+    assert poly.is_valid and poly.exterior.is_simple
+
+
+@pytest.mark.parametrize(("table", "key", "value", "where"), [
+    ("features.rim", "diameter", '"58 mm"', "rim.diameter"),                  # outside the envelope
+    ("features.rim", "overall_width", '"46 mm"', "rim.overall_width"),        # outside the envelope
+    ("features.pad_groove", "inner_diameter", '"12 mm"', "pad_groove.inner_diameter"),  # overlaps the wall
+    ("features.pad_groove", "inner_diameter", '"13.2 mm"', "pad_groove.inner_diameter"),  # too-thin wall
+    ("features.bearing_seat", "wall_offset", '"-0.2 mm"', "bearing_seat.wall_offset"),  # gap ≥ bearing width
+    ("features.axle_bore", "thread_depth", '"5 mm"', "axle_bore.thread_depth"),  # short engagement
+    ("features.rim", "cup_depth", '"12 mm"', "rim.cup_depth"),                # cup reaches the axle bore
+    ("features.catch_zone", "start_diameter", '"18 mm"', "catch_zone.start_diameter"),  # over the pad groove
+    ("features.rim", "edge_radius", '"9 mm"', "rim.edge_radius"),             # radius does not fit
+])
+def test_each_rule_fails_by_name(string_trick_text: str, table: str, key: str, value: str, where: str) -> None:
+    import tomllib
+
+    text = set_key(string_trick_text, table, key, tomllib.loads(f"v = {value}")["v"])
+    r = build_text(text)
+    assert not r.ok
+    assert where in failed(r), sorted(failed(r))
+
+
+def test_pinned_values_that_disagree_fail_a_named_check(string_trick_text: str) -> None:
+    text = set_key(string_trick_text, "features.catch_zone", "angle", "20 deg")
+    r = build_text(text)
+    assert "catch_zone.angle" in failed(r)
+
+
+def test_larger_bearing_moves_inner_features_out_and_keeps_the_rim(string_trick_text: str) -> None:
+    small = build_text(string_trick_text)
+    text = set_key(string_trick_text, "bearing", "size", "688ZZ")  # 8 x 16 x 5 mm, ISO 15 (from memory)
+    text = text.replace('pad_class = "19 mm"', 'pad_class = "21 mm"')
+    big = build_text(text)
+    for key in ("bearing_seat.post_diameter", "bearing_seat.wall_bore", "pad_groove.inner_diameter",
+                "pad_groove.outer_diameter", "catch_zone.start_diameter"):
+        assert big[key] > small[key] + 0.5, key
+    for key in ("rim.diameter", "rim.overall_width", "rim.thickness", "rim.cup_diameter", "envelope.diameter",
+                "envelope.width", "catch_zone.rim_width"):
+        assert big[key] == small[key], key
+
+
+def test_changing_one_feature_leaves_unrelated_ones(string_trick_text: str) -> None:
+    a = build_text(string_trick_text)
+    b = build_text(set_key(string_trick_text, "features.pad_groove", "depth", "1.6 mm"))
+    changed = {k for k in a.values if a.values[k] != b.values[k]}
+    assert changed == {"pad_groove.depth", "pad_groove.bottom_z"}
+
+
+def test_catch_zone_angle_follows_rim_width(string_trick_text: str) -> None:
+    r = build_text(string_trick_text)
+    run = r["rim.diameter"] / 2 - r["catch_zone.start_diameter"] / 2
+    rise = r["catch_zone.end_z"] - r["bearing_seat.wall_face_z"]
+    assert r["catch_zone.angle"] == pytest.approx(math.atan2(rise, run), rel=1e-12)
+    assert r["catch_zone.end_z"] == pytest.approx(r["rim.face_z"] - 8.0, abs=1e-12)
+
+
+def test_angle_alone_derives_the_rim_width(string_trick_text: str) -> None:
+    text = string_trick_text.replace('width = "8 mm"\n', "", 1)
+    text = set_key(text, "features.catch_zone", "angle", "30 deg")
+    r = build_text(text)
+    assert r["catch_zone.angle"] == pytest.approx(math.radians(30), abs=1e-12)
+    assert r["catch_zone.rim_width"] == pytest.approx(
+        r["rim.face_z"] - r["bearing_seat.wall_face_z"]
+        - (r["rim.diameter"] - r["catch_zone.start_diameter"]) / 2 * math.tan(math.radians(30)), abs=1e-9)
+
+
+def test_thread_minor_diameter_and_tap_drill() -> None:
+    from yodraft.catalog.threads import lookup_thread
+
+    m4 = lookup_thread("M4x0.7")
+    assert m4.tap_drill_mm == pytest.approx(3.3)  # ISO 2306 tap drill for M4
+    assert m4.minor_mm == pytest.approx(3.242, abs=5e-4)  # ISO 724 basic minor diameter D1

@@ -1,0 +1,225 @@
+"""The shop drawing: re-read with ezdxf's recover, every dimension measured from the geometry, blocks, determinism."""
+from __future__ import annotations
+
+import io
+import math
+from pathlib import Path
+
+import ezdxf
+import pytest
+import shapely
+from ezdxf import recover
+
+from yodraft.builder import build
+from yodraft.design import load
+from yodraft.drawing.detail import DETAIL_BLOCK
+from yodraft.drawing.dimensions import tags_of
+from yodraft.drawing.drawing import render_files, sheet_data
+from yodraft.drawing.mtext import escape
+from yodraft.drawing.notes import SheetData
+
+TEMPLATE = Path(__file__).resolve().parents[1] / "templates" / "string-trick.toml"
+STEM = "larchmere-ls56-A"
+
+
+@pytest.fixture(scope="module")
+def resolved():
+    return build(load(TEMPLATE))
+
+
+@pytest.fixture(scope="module")
+def files(resolved):
+    return render_files(resolved, STEM)
+
+
+def _read(data: bytes):
+    doc, auditor = recover.read(io.BytesIO(data))
+    return doc, auditor
+
+
+def _dims(doc):
+    out = {}
+    layouts = [doc.modelspace(), doc.blocks.get(DETAIL_BLOCK)]
+    for layout in layouts:
+        for dim in layout.query("DIMENSION"):
+            for key in tags_of(dim):
+                out.setdefault(key, []).append(dim)
+    return out
+
+
+def _expected(r) -> dict[str, float]:
+    """Model values each dimension must measure (mm, angles in degrees)."""
+    v = r.values
+    zb = v["rim.face_z"]
+    return {
+        "rim.diameter": v["rim.diameter"], "rim.cup_diameter": v["rim.cup_diameter"],
+        "rim.hub_diameter": v["rim.hub_diameter"], "rim.floor_diameter": v["rim.floor_diameter"],
+        "rim.width": v["rim.width"], "rim.cup_depth": v["rim.cup_depth"], "rim.hub_height": v["rim.hub_height"],
+        "rim.floor_angle": math.degrees(v["rim.floor_angle"]),
+        "catch_zone.start_diameter": v["catch_zone.start_diameter"],
+        "catch_zone.angle": math.degrees(v["catch_zone.angle"]),
+        "pad_groove.inner_diameter": v["pad_groove.inner_diameter"],
+        "pad_groove.outer_diameter": v["pad_groove.outer_diameter"], "pad_groove.depth": v["pad_groove.depth"],
+        "bearing_seat.wall_bore": v["bearing_seat.wall_bore"],
+        "bearing_seat.wall_outside_diameter": v["pad_groove.inner_diameter"],
+        "bearing_seat.seat_face_diameter": v["bearing_seat.seat_face_diameter"],
+        "bearing_seat.post_diameter": v["bearing_seat.post_diameter"],
+        "bearing_seat.seat_face_z": zb - v["bearing_seat.seat_face_z"],
+        "bearing_seat.wall_face_z": zb - v["bearing_seat.wall_face_z"],
+        "bearing_seat.post_face_z": zb - v["bearing_seat.post_face_z"],
+        "profile.half_width": zb - v["bearing_seat.post_face_z"],
+        "bearing_seat.post_length": v["bearing_seat.post_length"],
+        "bearing_seat.wall_offset": v["bearing_seat.wall_offset"],
+        "vent_groove.depth": v["vent_groove.depth"],
+        "axle_bore.major_diameter": v["axle_bore.major_diameter"],
+        "axle_bore.thread_depth": v["axle_bore.thread_depth"],
+        "rim.edge_radius": v["rim.edge_radius"], "rim.lip_radius": v["rim.lip_radius"],
+        "rim.cup_radius": v["rim.cup_radius"], "catch_zone.edge_radius": v["catch_zone.edge_radius"],
+    }
+
+
+def test_sheet_recovers_without_audit_errors(files):
+    doc, auditor = _read(files[f"{STEM}.dxf"])
+    assert not auditor.has_errors, [str(e.message) for e in auditor.errors]
+    assert doc.dxfversion == "AC1027"  # R2013
+    assert doc.header["$INSUNITS"] == 4  # millimetres, DXF reference
+
+
+def test_every_listed_dimension_measures_the_model(files, resolved):
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    dims = _dims(doc)
+    for key, value in _expected(resolved).items():
+        assert key in dims, f"no dimension for {key}"
+        for dim in dims[key]:
+            assert dim.get_geometry_block() is not None, f"{key} is not rendered"
+            # the angular measurement is in degrees, the linear ones in mm
+            assert dim.get_measurement() == pytest.approx(value, abs=1e-6), key
+
+
+def test_toleranced_diameters_show_the_fit_limits(files, resolved):
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    dims = _dims(doc)
+    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    for key, f in (("bearing_seat.post_diameter", fit.post), ("bearing_seat.wall_bore", fit.wall)):
+        dim = dims[key][0]
+        text = " ".join(t.plain_text() for t in dim.get_geometry_block().query("MTEXT"))
+        nominal = float(text.split("Ø")[1].split()[0])
+        tol = float(text.split("±")[1].split()[0])
+        assert nominal + tol == pytest.approx(f.max_mm, abs=5e-6)
+        assert nominal - tol == pytest.approx(f.min_mm, abs=5e-6)
+        assert f"[{f.nominal_mm / 25.4:.5f}" in text  # inch bearing: inch value in brackets
+        assert dim.dimstyle_override if hasattr(dim, "dimstyle_override") else True
+
+
+def test_hatch_area_equals_section_area(files, resolved):
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    area = 0.0
+    for hatch in doc.modelspace().query("HATCH"):
+        for p in hatch.paths:
+            path = ezdxf.path.from_hatch_boundary_path(p)
+            area += shapely.Polygon([(q.x, q.y) for q in path.flattening(0.001)]).area
+    expected = 2 * resolved.profile.signed_area()
+    assert area == pytest.approx(expected, rel=1e-3)
+
+
+def test_outline_is_the_loop_and_its_mirror(files, resolved):
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    loops = doc.modelspace().query("LWPOLYLINE[layer=='outline']")
+    assert len(loops) == 2
+    areas = sorted(ezdxf.path.make_path(e).has_curves and shapely.Polygon(
+        [(q.x, q.y) for q in ezdxf.path.make_path(e).flattening(0.001)]).area for e in loops)
+    assert areas[0] == pytest.approx(resolved.profile.signed_area(), rel=1e-4)
+
+
+def _block_texts(doc) -> str:
+    psp = doc.paperspace("sheet")
+    return "\n".join(t.plain_text() for t in psp.query("MTEXT"))
+
+
+def test_title_and_note_blocks(files, resolved):
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    text = _block_texts(doc)
+    data = sheet_data(resolved)
+    for needle in ("LS-56 string-trick yo-yo, one half", "LTC-0056", "Larchmere Turning Co.", "6061-T6",
+                   f"{data.half_mass_g:.1f} g", "ISO 2768-m", "Date of issue", "2026-11-20", "Approved by",
+                   "Document type", "Identification number", "ISO 13715", "Ra 0.8", f"{data.runout_mm:.3f}",
+                   "First issue for prototype", "Prototype and verify", "toy-safety"):
+        assert needle in text, needle
+    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    assert f"{fit.post.max_mm:.5f}" in text and f"{fit.post.min_mm / 25.4:.5f}" in text
+    assert f"{fit.post.precoat_mm:.5f}" in text  # coated, not masked: pre-coat sizes
+
+
+def test_mass_and_runout_come_from_the_data_given(resolved):
+    files = render_files(resolved, STEM, SheetData(half_mass_g=12.345, runout_mm=0.034, balance_grade=2.5,
+                                                   spin_rate_rpm=9000))
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    text = _block_texts(doc)
+    assert "12.3 g" in text and "0.034" in text and "G2.5" in text
+
+
+def test_profile_dxf_is_one_closed_loop_of_the_upper_half(files, resolved):
+    doc, auditor = _read(files[f"{STEM}-profile.dxf"])
+    assert not auditor.has_errors
+    msp = doc.modelspace()
+    assert len(msp) == 1
+    (loop,) = msp.query("LWPOLYLINE")
+    assert loop.closed
+    zb = resolved["rim.face_z"]
+    got = shapely.Polygon([(q.x + zb, q.y) for q in ezdxf.path.make_path(loop).flattening(0.0005)])
+    want = resolved.profile.polygon(0.0005)
+    assert got.symmetric_difference(want).area < 1e-4 * want.area
+    assert max(q.x for q in ezdxf.path.make_path(loop).flattening(0.01)) == pytest.approx(0.0, abs=1e-9)
+    assert min(q.y for q in ezdxf.path.make_path(loop).flattening(0.01)) == pytest.approx(0.0, abs=1e-9)
+
+
+def _text_box(text) -> shapely.Polygon:
+    """The rotated box of a dimension's middle-centred MTEXT, from ezdxf's own text-extent estimate."""
+    from ezdxf.tools.text_size import estimate_mtext_extents
+
+    width, height = estimate_mtext_extents(text)
+    assert text.dxf.attachment_point == 5
+    c = text.dxf.insert
+    angle = math.radians(text.get_rotation())
+    ux, uy = math.cos(angle), math.sin(angle)
+    corners = [(sx * width / 2, sy * height / 2) for sx, sy in ((-1, -1), (1, -1), (1, 1), (-1, 1))]
+    return shapely.Polygon([(c.x + a * ux - b * uy, c.y + a * uy + b * ux) for a, b in corners])
+
+
+def test_dimension_text_does_not_overlap(files):
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    for layout in (doc.modelspace(), doc.blocks.get(DETAIL_BLOCK)):
+        boxes = [(tags_of(dim), _text_box(t)) for dim in layout.query("DIMENSION")
+                 for t in dim.get_geometry_block().query("MTEXT")]
+        assert len(boxes) > 5
+        for i, (ka, a) in enumerate(boxes):
+            for kb, b in boxes[i + 1:]:
+                assert a.intersection(b).area < 1e-9, f"{ka} text overlaps {kb}"
+
+
+def test_text_and_arrow_sizes_on_paper(files, resolved):
+    """3.5 mm text and 3 mm arrows on paper: dimscale × size × view scale (ISO 3098-1 / ISO 129-1)."""
+    from yodraft.drawing.detail import detail_region, detail_scale  # noqa: F401
+    from yodraft.drawing.sheet import view_scale
+
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    style = doc.dimstyles.get("iso-section")
+    scale = view_scale(resolved)
+    for dim in doc.modelspace().query("DIMENSION"):
+        for t in dim.get_geometry_block().query("MTEXT"):
+            assert t.dxf.char_height * scale == pytest.approx(3.5, rel=1e-6)
+    assert style.dxf.dimtxt == 3.5 and 2.5 <= style.dxf.dimasz <= 3.5
+
+
+def test_two_builds_give_identical_bytes(resolved, files):
+    again = render_files(build(load(TEMPLATE)), STEM)
+    for name in files:
+        assert files[name] == again[name], name
+    assert files[f"{STEM}.svg"].startswith(b"<?xml") and b"<path" in files[f"{STEM}.svg"]
+
+
+def test_mtext_escape_round_trip():
+    from ezdxf.tools.text import plain_mtext
+
+    raw = r"A\B {x} ; ^"
+    assert plain_mtext(escape(raw)) == raw

@@ -1,0 +1,58 @@
+"""yodraft report: Markdown that reads on its own and JSON that follows the check --json contract."""
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+
+from conftest import TEMPLATES, set_in
+from yodraft.cli import main
+
+
+@pytest.mark.parametrize("template", sorted(p.stem for p in TEMPLATES.glob("*.toml")))
+def test_json_report_is_the_summary_plus_history(template: str, capsys: pytest.CaptureFixture[str]) -> None:
+    path = str(TEMPLATES / f"{template}.toml")
+    assert main(["check", path, "--json"]) == 0
+    summary = json.loads(capsys.readouterr().out)
+    assert main(["report", path, "--format", "json"]) == 0
+    report = json.loads(capsys.readouterr().out)
+    for key, value in summary.items():
+        assert report[key] == value
+    assert {"revisions", "inputs", "cautions"} <= set(report)
+    assert report["revisions"] and all({"letter", "date", "note"} == set(r) for r in report["revisions"])
+    assert report["inputs"]["design.name"] == summary["design"]["name"]
+
+
+def test_markdown_report_sections(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    target = tmp_path / "ls56.md"
+    assert main(["report", str(TEMPLATES / "string-trick.toml"), "-o", str(target)]) == 0
+    text = target.read_text(encoding="utf-8")
+    for heading in ("## Revisions", "## Inputs (as written)", "## Fit table", "## Resolved dimensions",
+                    "## Mass budget", "## Spin metrics", "## Balance", "## Checks", "## Cautions"):
+        assert heading in text
+    assert "| A | 2026-11-20 | First issue for prototype |" in text
+    assert "| features.rim.width | 8 mm |" in text
+    # worst-case clearance of the post in the bearing bore, as a designer would add it up by hand:
+    # smallest bore (nominal + lower deviation) minus largest post (nominal + tolerance)
+    assert main(["check", str(TEMPLATES / "string-trick.toml"), "--json"]) == 0
+    s = json.loads(capsys.readouterr().out)
+    clearance = (s["bearing"]["bore_mm"] + s["bearing"]["bore_deviation_um"][1] / 1000
+                 - s["bearing_seat"]["post_diameter_mm"] - s["bearing_seat"]["post_tolerance_mm"])
+    assert f"{clearance * 1000:.1f} µm" in text
+    assert f"| total_g | {s['mass']['total_g']:.6g} g |" in text
+    assert "seat not masked" in text  # the template anodizes without masking the seat
+
+
+def test_failed_check_report_exit_1_and_lists_it(tmp_path: Path, string_trick_text: str,
+                                                 capsys: pytest.CaptureFixture[str]) -> None:
+    path = tmp_path / "thin.toml"
+    path.write_text(set_in(string_trick_text, "features.rim", "thickness", "1 mm"), encoding="utf-8")
+    assert main(["report", str(path)]) == 1
+    out = capsys.readouterr().out
+    assert "**FAIL**" in out and "NOT ready" in out and "check failed:" in out
+
+
+def test_report_to_missing_folder_exit_2(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["report", str(TEMPLATES / "string-trick.toml"), "-o", str(tmp_path / "no" / "r.md")]) == 2
+    assert "does not exist" in capsys.readouterr().err

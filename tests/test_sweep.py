@@ -1,0 +1,87 @@
+"""yodraft sweep: a grid of variants, failed ones kept, CSV and SVG; bad --vary is one line and exit 2."""
+from __future__ import annotations
+
+import csv
+import io
+import xml.etree.ElementTree as ET
+from pathlib import Path
+
+import pytest
+
+from conftest import TEMPLATES, set_in
+from yodraft import build, load, loads, summary
+from yodraft.cli import main
+from yodraft.sweep import parse_vary, sweep
+
+DESIGN = str(TEMPLATES / "string-trick.toml")
+
+
+@pytest.mark.parametrize("vary, words", [
+    ("rim.width=6mm:3mm:0", "count 0 is out of range"),
+    ("rim.width=6mm:3mm:1", "count 1 is out of range"),
+    ("rim.width=6mm:3mm:x", "is not a whole number"),
+    ("rim.widht=6mm:3mm:4", "is not a design key"),
+    ("features.nothing.width=6mm:3mm:4", "is not a design key"),
+    ("rim.width=6g:3g:4", "is not a unit of length"),
+    ("rim.width=6:3:4", "as a number followed by a unit"),
+    ("rim.width=6mm:3mm", "cannot be read"),
+    ("design.name=1mm:2mm:3", "cannot be swept"),
+    ("rim.width=6mm:6mm:3", "START equals STOP"),
+])
+def test_bad_vary_one_line_exit_2(capsys: pytest.CaptureFixture[str], vary: str, words: str) -> None:
+    assert main(["sweep", DESIGN, "--vary", vary]) == 2
+    err = capsys.readouterr().err.strip()
+    assert words in err and len(err.splitlines()) == 1
+
+
+def test_sweep_keeps_failed_variants(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    out, plot = tmp_path / "s.csv", tmp_path / "s.svg"
+    code = main(["sweep", DESIGN, "--vary", "features.rim.thickness=1mm:8mm:8", "--csv", str(out), "--plot", str(plot)])
+    err = capsys.readouterr().err
+    assert code == 0
+    rows = list(csv.DictReader(io.StringIO(out.read_text(encoding="utf-8"))))
+    assert [float(r["features.rim.thickness_mm"]) for r in rows] == pytest.approx([1, 2, 3, 4, 5, 6, 7, 8])
+    failed = [r for r in rows if r["ok"] == "false"]
+    assert failed and len(failed) < len(rows)
+    assert all(r["failed"] for r in failed) and "[rim." in failed[0]["failed"]
+    assert f"{len(rows) - len(failed)} of {len(rows)} variants pass" in err
+    assert "[#" not in err  # no progress bar when stderr is not a terminal
+    for key in ("profile.gap_mm", "mass.total_g", "mass.izz_g_mm2", "spin.rim_share"):
+        assert key in rows[0]
+    passing = [r for r in rows if r["ok"] == "true"]
+    masses = [float(r["mass.total_g"]) for r in passing]
+    assert masses == sorted(masses)  # a thicker rim adds metal
+    assert len({r["profile.gap_mm"] for r in rows}) == 1  # the rim does not move the bearing seat
+    svg = ET.fromstring(plot.read_text(encoding="utf-8"))
+    ns = "{http://www.w3.org/2000/svg}"
+    assert len(svg.findall(f"{ns}polyline")) >= 4
+
+
+def test_variant_equals_the_edited_file(string_trick_text: str) -> None:
+    # the sweep's variant must be the same design as writing the value into the file by hand
+    design = loads(string_trick_text)
+    result = sweep(design, [parse_vary("features.rim.width=6mm:9mm:4", design)], workers=1)
+    third = result.variants[2]
+    by_hand = summary(build(loads(set_in(string_trick_text, "features.rim", "width", "8 mm"))))
+    assert third.inputs == (pytest.approx(8.0),)
+    assert third.outputs["mass.total_g"] == pytest.approx(by_hand["mass"]["total_g"], rel=1e-12)
+    assert third.outputs["mass.izz_g_mm2"] == pytest.approx(by_hand["mass"]["izz_g_mm2"], rel=1e-12)
+    assert third.ok is by_hand["ok"]
+
+
+def test_two_axes_across_processes_match_one_process() -> None:
+    design = load(DESIGN)
+    axes = [parse_vary("rim.width=6mm:10mm:9", design), parse_vary("features.rim.thickness=2mm:5mm:10", design)]
+    serial = sweep(design, axes, workers=1)
+    parallel = sweep(design, axes, workers=2)
+    assert len(serial.variants) == 90
+    assert serial.variants == parallel.variants
+    assert serial.variants[10].inputs == (pytest.approx(6.5), pytest.approx(2.0))  # first axis slowest
+
+
+def test_angle_axis_in_degrees() -> None:
+    design = load(DESIGN)
+    axis = parse_vary("features.rim.floor_angle=20deg:30deg:3", design)
+    result = sweep(design, [axis], workers=1)
+    assert axis.column == "features.rim.floor_angle_deg"
+    assert [v.inputs[0] for v in result.variants] == pytest.approx([20.0, 25.0, 30.0])

@@ -1,0 +1,67 @@
+"""yodraft templates / new: every starter design listed with its first comment line; new never overwrites."""
+from __future__ import annotations
+
+import tomllib
+from pathlib import Path
+
+import pytest
+
+from conftest import TEMPLATES
+from yodraft.cli import main
+from yodraft.templates import list_templates, template_dir
+
+
+def _first_comment(path: Path) -> str:
+    # the stated convention of templates/: the first line is "# <description>"
+    first = path.read_text(encoding="utf-8").splitlines()[0]
+    assert first.startswith("#")
+    return first[1:].strip()
+
+
+def test_template_dir_is_the_repository_folder() -> None:
+    assert template_dir() == TEMPLATES
+
+
+def test_templates_lists_every_file_with_its_description(capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["templates"]) == 0
+    out = capsys.readouterr().out.splitlines()
+    files = sorted(TEMPLATES.glob("*.toml"))
+    assert len(out) == len(files) >= 3
+    for line, path in zip(out, files):
+        name, description = line.split(None, 1)
+        assert name == path.stem
+        assert description == _first_comment(path)
+    assert [t.name for t in list_templates()] == [p.stem for p in files]
+
+
+def test_new_writes_a_design_that_checks(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    target = tmp_path / "mine.toml"
+    assert main(["new", str(target), "--template", "string-trick", "--name", "my-ls56"]) == 0
+    data = tomllib.loads(target.read_text(encoding="utf-8"))
+    source = tomllib.loads((TEMPLATES / "string-trick.toml").read_text(encoding="utf-8"))
+    assert data["design"]["name"] == "my-ls56"
+    data["design"]["name"] = source["design"]["name"]
+    assert data == source  # only the name differs
+    capsys.readouterr()
+    assert main(["check", str(target)]) == 0
+
+
+def test_new_refuses_to_overwrite(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    target = tmp_path / "mine.toml"
+    target.write_text("# my own notes\n", encoding="utf-8")
+    assert main(["new", str(target), "-t", "string-trick"]) == 2
+    err = capsys.readouterr().err
+    assert "already exists" in err and len(err.strip().splitlines()) == 1
+    assert target.read_text(encoding="utf-8") == "# my own notes\n"
+
+
+@pytest.mark.parametrize("argv, words", [
+    (["-t", "no-such-template"], "no template"),
+    (["-t", "string-trick", "--name", "../bad name"], "cannot name a file"),
+])
+def test_new_bad_arguments_exit_2(tmp_path: Path, capsys: pytest.CaptureFixture[str], argv: list[str], words: str) -> None:
+    target = tmp_path / "x.toml"
+    assert main(["new", str(target), *argv]) == 2
+    err = capsys.readouterr().err.strip()
+    assert words in err and len(err.splitlines()) == 1
+    assert not target.exists()
