@@ -26,6 +26,10 @@ DISPLAY_UNITS = {"length": (1.0, "mm"), "angle": (math.pi / 180, "deg"), "mass":
          "density": (1.0, "g/cm^3"), "speed": (1.0, "rpm"), "roughness": (1.0, "um"), "number": (1.0, "")}
 
 
+#: the smallest non-zero magnitude any quantity may have, in its base unit (mm, g, rad, N*mm, ...)
+SMALLEST = 1e-9
+
+
 @dataclass(frozen=True)
 class ParamSpec:
     """One key of a design-file table: its kind, bounds (in base units), default and meaning.
@@ -104,6 +108,11 @@ class ParamSpec:
         return raw.strip()
 
     def _check_bounds(self, value: float, file: str, key: str, raw: Any) -> None:
+        if 0 < abs(value) < SMALLEST:
+            # nothing on a yo-yo is measured below a nanometre, a microgram or a nano-radian; such a value
+            # is a slip (or a subnormal float) and would overflow whatever divides by it
+            raise DesignInputError(file, key, f"{raw!r} is too small to mean anything (below {SMALLEST:g} of the base unit)",
+                                   self.expected())
         low_bad = self.lo is not None and (value < self.lo if self.lo_closed else value <= self.lo)
         high_bad = self.hi is not None and value > self.hi
         if low_bad or high_bad:
