@@ -72,7 +72,8 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("drag_torque", "torque", "drag torque of bearing and string in a sleep, for the spin-down estimate (a rough default: measure yours)",
                   0.2, 0.0, 100.0),
         ParamSpec("balance_grade", "number", "ISO 21940-11 balance quality grade G (mm/s)", 6.3, 0.0, 4000.0),
-        ParamSpec("rim_radius_ratio", "number", "rim-weight share counts Izz outside this share of the outer radius", 0.8, 0.0, 1.0),
+        # below 1: at the whole outer radius nothing lies outside, and the spin estimate refuses a share of 1
+        ParamSpec("rim_radius_ratio", "number", "rim-weight share counts Izz outside this share of the outer radius", 0.8, 0.0, 0.99),
     ),
 }
 REVISION_SPECS = (
