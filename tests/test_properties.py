@@ -14,6 +14,7 @@ from __future__ import annotations
 
 import copy
 import io
+import json
 import math
 import os
 import tomllib
@@ -31,7 +32,9 @@ from yodraft.design import SECTIONS, from_dict
 from yodraft.drawing.outline import dxf_bytes, outline_document
 from yodraft.errors import CheckFailure, DesignInputError
 from yodraft.features import FEATURES
-from yodraft.params import ParamSpec
+from yodraft.massprops import body_props
+from yodraft.params import SMALLEST, ParamSpec
+from yodraft.summary import summary
 
 ROOT = Path(__file__).resolve().parents[1]
 TEMPLATE = tomllib.loads((ROOT / "templates" / "string-trick.toml").read_text(encoding="utf-8"))
@@ -75,7 +78,7 @@ def value_for(draw: st.DrawFn, spec: ParamSpec, inside: bool) -> Any:
     if inside:
         lo = spec.lo if spec.lo is not None else -100.0
         hi = spec.hi if spec.hi is not None else 100.0
-        x = draw(st.floats(lo, hi, exclude_min=not spec.lo_closed))
+        x = draw(st.floats(lo, hi, exclude_min=not spec.lo_closed).filter(lambda v: v == 0 or abs(v) >= SMALLEST))
     else:
         lo, hi = span(spec)
         edges = [e for e in (spec.lo, spec.hi) if e is not None]
@@ -119,12 +122,16 @@ def assert_valid_accepted(resolved: yodraft.Resolved) -> None:
     doc, auditor = ezdxf.recover.read(io.BytesIO(data))
     assert not auditor.has_errors, [e.message for e in auditor.errors]
     assert len(doc.modelspace().query("LWPOLYLINE")) == 2
-    try:
-        from yodraft.massprops import body_props
-    except ImportError:  # mass properties not merged yet
-        return
     density = resolved["material.density_g_cm3"]
-    assert body_props(profile, density).mass_g > 0
+    half = body_props(profile, density)
+    # Pappus: volume = 2π × section area × centroid radius, so a positive area gives a positive mass
+    assert half.mass_g > 0 and math.isclose(half.mass_g, density * half.volume_mm3 / 1000, rel_tol=1e-12)
+    mass = summary(resolved)["mass"]
+    assert mass["total_g"] > 2 * mass["half_g"] > 0 and mass["izz_g_mm2"] > 0
+
+
+def _loop_is_simple(resolved: yodraft.Resolved) -> bool:
+    return next(c for c in resolved.checks if c.name == "closed simple loop").ok
 
 
 def judge(raw: dict[str, Any], keys: list[str]) -> str:
@@ -136,6 +143,10 @@ def judge(raw: dict[str, Any], keys: list[str]) -> str:
         assert exc.key, text
         assert "\n" not in text and text.startswith("fuzz.toml: ")
         return "refused"
+    if resolved.ok or resolved.profile is None or _loop_is_simple(resolved):
+        # what `yodraft check --json` prints, for any design that reads: strict JSON, no NaN or infinity.
+        # (A crossing loop is left out until summary stops computing mass for it: see the xfail below.)
+        json.dumps(summary(resolved), allow_nan=False)
     if resolved.ok:
         assert_valid_accepted(resolved)
         return "accepted"
@@ -184,6 +195,30 @@ def test_one_value_beyond_its_bounds_is_refused_at_its_key(spec_path: tuple[tupl
     assert info.value.key == ".".join(path)
 
 
+def edge_cases() -> list[tuple[str, ParamSpec, float]]:
+    """Each numeric parameter at the edges of its bounds, just inside: where off-by-one limits hide."""
+    out = []
+    for path, spec in SPECS:
+        values = []
+        if spec.hi is not None:
+            values += [spec.hi, math.nextafter(spec.hi, -math.inf)]
+        if spec.lo is not None:
+            values.append(spec.lo if spec.lo_closed else max(math.nextafter(spec.lo, math.inf), spec.lo + SMALLEST))
+        out += [(".".join(path), spec, v) for v in values]
+    return out
+
+
+@pytest.mark.parametrize("key, spec, value", edge_cases(), ids=[f"{k}={v!r}" for k, _, v in edge_cases()])
+def test_every_edge_of_every_bound_is_read_and_judged(key: str, spec: ParamSpec, value: float) -> None:
+    raw = copy.deepcopy(TEMPLATE)
+    table = raw
+    *parents, name = key.split(".")
+    for part in parents:
+        table = table.setdefault(part, {})
+    table[name] = value if spec.kind == "number" else f"{value!r} {UNIT[spec.kind]}"
+    judge(raw, [key])
+
+
 def test_the_template_is_accepted_and_drawn() -> None:
     # the property above must see accepted designs too, or it proves nothing about them
     assert judge(copy.deepcopy(TEMPLATE), []) == "accepted"
@@ -215,3 +250,14 @@ def test_a_mistyped_file_is_refused_by_key_or_handled(text: str) -> None:
         event("refused")
         return
     event(judge(dict(design.raw), []))
+
+
+@pytest.mark.xfail(strict=True, raises=ValueError,
+                   reason="summary() computes mass for a loop that crosses itself; massprops refuses it")
+def test_check_json_survives_a_loop_that_crosses_itself() -> None:
+    # found by test_any_value_is_refused_by_key_failed_by_check_or_drawn: the template in a 79 mm envelope
+    raw = copy.deepcopy(TEMPLATE)
+    raw["envelope"]["diameter"] = "79.0 mm"
+    resolved = build(from_dict(raw, "fuzz.toml"))
+    assert not _loop_is_simple(resolved)
+    json.dumps(summary(resolved), allow_nan=False)
