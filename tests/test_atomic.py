@@ -7,6 +7,7 @@ from __future__ import annotations
 
 import os
 import signal
+import stat
 import subprocess
 import sys
 import time
@@ -112,6 +113,21 @@ def test_write_atomic_replaces_and_leaves_no_temporary(tmp_path: Path) -> None:
     write_atomic(target, b"two")
     assert target.read_bytes() == b"two"
     assert [p.name for p in tmp_path.iterdir()] == ["a.dxf"]
+
+
+def test_written_files_are_readable_like_any_other_file(tmp_path: Path) -> None:
+    # POSIX open(2): a new file gets 0666 less the umask; mkstemp's private 0600 must not leak out
+    old = os.umask(0o022)
+    try:
+        write_atomic(tmp_path / "new.dxf", b"x")
+        kept = tmp_path / "kept.dxf"
+        kept.write_bytes(b"old")
+        kept.chmod(0o640)
+        write_atomic(kept, b"new")
+    finally:
+        os.umask(old)
+    assert stat.S_IMODE((tmp_path / "new.dxf").stat().st_mode) == 0o644
+    assert stat.S_IMODE(kept.stat().st_mode) == 0o640
 
 
 def test_an_output_name_taken_by_a_folder_is_one_line_and_keeps_the_folder(tmp_path: Path,

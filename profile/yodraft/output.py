@@ -3,6 +3,7 @@ from __future__ import annotations
 
 import os
 import re
+import stat
 import tempfile
 from pathlib import Path
 from typing import TYPE_CHECKING
@@ -30,6 +31,7 @@ def write_atomic(path: Path, data: bytes) -> None:
     except OSError as exc:
         raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})", "a writable output folder") from None
     try:
+        os.fchmod(fd, _file_mode(path))  # mkstemp makes the file private (0600); a drawing is for sharing
         with os.fdopen(fd, "wb") as handle:
             handle.write(data)
             handle.flush()
@@ -48,6 +50,16 @@ def write_atomic(path: Path, data: bytes) -> None:
 
 #: longest stem, leaving room for suffixes such as ".sheet.dxf" under the usual 255-byte name limit
 STEM_MAX = 100
+
+
+def _file_mode(path: Path) -> int:
+    """The permissions the written file gets: those of the file it replaces, else what the umask allows."""
+    try:
+        return stat.S_IMODE(os.stat(path).st_mode)
+    except OSError:
+        mask = os.umask(0o022)
+        os.umask(mask)
+        return 0o666 & ~mask
 
 
 def safe_stem(name: str, revision: str) -> str:
