@@ -133,6 +133,25 @@ def test_every_category_has_a_real_process_run() -> None:
     assert len(SUBPROCESS_CASES) >= 8
 
 
+def test_an_internal_error_is_one_line_and_exit_3(tmp_path: Path, capsys: pytest.CaptureFixture[str],
+                                                  monkeypatch: pytest.MonkeyPatch) -> None:
+    # found by the property tests: `check --json` on a loop that crosses itself ended in a traceback.
+    # Whatever bug is left, the user sees one line and a distinct exit code.
+    import yodraft.builder
+
+    def broken(design: object) -> None:
+        raise ValueError("a bug\nover two lines \x1b[2J")
+
+    monkeypatch.setattr(yodraft.builder, "build", broken)
+    monkeypatch.delenv("YODRAFT_TRACEBACK", raising=False)
+    assert main(["check", str(TEMPLATE)]) == 3
+    lines = capsys.readouterr().err.splitlines()
+    assert len(lines) == 1 and "internal error (ValueError: a bug over two lines \\x1b[2J)" in lines[0], lines
+    monkeypatch.setenv("YODRAFT_TRACEBACK", "1")
+    with pytest.raises(ValueError, match="a bug"):
+        main(["check", str(TEMPLATE)])
+
+
 # ------------------------------------------------------------------ good files in unusual dress
 
 @pytest.mark.parametrize("variant", ["bom", "crlf", "bom+crlf"])

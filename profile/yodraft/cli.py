@@ -3,15 +3,19 @@ from __future__ import annotations
 
 import argparse
 import json
+import os
 import sys
 from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
 from . import __version__
-from .errors import CheckFailure, DesignInputError, YodraftError
+from .errors import CheckFailure, DesignInputError, YodraftError, one_line
 
-__all__ = ["main"]
+__all__ = ["main", "INTERNAL_ERROR"]
+
+#: exit code of an unexpected error inside yodraft (0 ok, 1 a check failed, 2 bad input or usage)
+INTERNAL_ERROR = 3
 
 
 class _Parser(argparse.ArgumentParser):
@@ -314,3 +318,9 @@ def main(argv: Sequence[str] | None = None) -> int:
     except KeyboardInterrupt:
         print("yodraft: interrupted", file=sys.stderr)
         return 130
+    except Exception as exc:  # a bug in yodraft, not in the design: still one line, unless asked for the trace
+        if os.environ.get("YODRAFT_TRACEBACK"):
+            raise
+        print(f"yodraft: internal error ({one_line(f'{type(exc).__name__}: {exc}')}); please report it with the "
+              "design file, or set YODRAFT_TRACEBACK=1 to see where", file=sys.stderr)
+        return INTERNAL_ERROR
