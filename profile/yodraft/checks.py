@@ -90,11 +90,15 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
     return out
 
 
+#: chord error of the flattened loop whose topology is checked: far below any wall the rules allow
+LOOP_CHECK_TOLERANCE = 0.02
+
+
 def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str]) -> list[Check]:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    poly = profile.polygon()
+    poly = profile.polygon(LOOP_CHECK_TOLERANCE)
     simple = poly.is_valid and poly.exterior.is_simple and profile.signed_area() > 0
     z_min, _, z_max, r_max = profile.bounds()
     out = [

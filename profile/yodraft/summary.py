@@ -26,8 +26,11 @@ def resolved_dimensions(resolved: Resolved) -> dict[str, dict[str, Any]]:
     return out
 
 
-def summary(resolved: Resolved) -> dict[str, Any]:
-    """The `yodraft check --json` object (see the README for every key)."""
+def summary(resolved: Resolved, *, dimensions: bool = True) -> dict[str, Any]:
+    """The `yodraft check --json` object (see the README for every key).
+
+    ``dimensions=False`` leaves out the per-feature dimension tables (a sweep does not need them).
+    """
     v = resolved.values
     d = resolved.design
     fit = resolved.features["bearing_seat"].extra["seat_fit"]
@@ -57,7 +60,7 @@ def summary(resolved: Resolved) -> dict[str, Any]:
         },
         "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
         **(_mass_sections(resolved) if resolved.profile is not None else {}),
-        "features": resolved_dimensions(resolved),
+        **({"features": resolved_dimensions(resolved)} if dimensions else {}),
         "checks": [c.as_dict() for c in resolved.checks],
     }
 
