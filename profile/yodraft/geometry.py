@@ -15,6 +15,7 @@ import math
 from dataclasses import dataclass
 from typing import Union
 
+import numpy as np
 import shapely
 
 __all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "GeometryError"]
@@ -137,7 +138,7 @@ class Profile:
 
     def polygon(self, tol: float = 0.005) -> shapely.Polygon:
         """A shapely polygon of the flattened loop."""
-        return shapely.Polygon(self.flatten(tol))
+        return shapely.polygons(np.asarray(self.flatten(tol)))
 
     def signed_area(self) -> float:
         """Exact signed area (positive for a counter-clockwise loop), by Green's theorem."""
