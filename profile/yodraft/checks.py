@@ -5,6 +5,7 @@ from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
+import numpy as np
 import shapely
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -80,10 +81,10 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
         check("bearing wall thickness", "pad_groove.inner_diameter", bearing_wall >= min_wall - 1e-9,
               f"{bearing_wall:.3f} mm between wall bore and pad groove, least {min_wall:.3f} mm"),
     ]
-    cup = shapely.LineString(chunks["rim.outer"][:-1])  # the cup surface, without the outer edge
+    cup = shapely.linestrings(np.asarray(chunks["rim.outer"][:-1]))  # the cup surface, without the outer edge
     for feature, chunk, where in BACK_WALLS:
         pts = chunks[f"{feature}.{chunk}"]
-        line = shapely.LineString(pts) if len(pts) > 1 else shapely.Point(pts[0])
+        line = shapely.linestrings(np.asarray(pts)) if len(pts) > 1 else shapely.points(pts[0])
         wall = float(line.distance(cup))
         out.append(check(f"wall between {feature.replace('_', ' ')} and cup", where, wall >= min_wall - 1e-9,
                          f"{wall:.3f} mm, least {min_wall:.3f} mm"))

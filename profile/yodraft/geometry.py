@@ -77,11 +77,11 @@ class Arc:
     def end_angle(self) -> float:
         return self.start_angle + self.sweep
 
-    @property
+    @functools.cached_property
     def start(self) -> Point:
         return self.point_at(self.start_angle)
 
-    @property
+    @functools.cached_property
     def end(self) -> Point:
         return self.point_at(self.end_angle)
 
@@ -142,6 +142,10 @@ class Profile:
 
     def signed_area(self) -> float:
         """Exact signed area (positive for a counter-clockwise loop), by Green's theorem."""
+        return self._signed_area
+
+    @functools.cached_property
+    def _signed_area(self) -> float:
         total = 0.0
         for seg in self.segments:
             (z0, r0), (z1, r1) = seg.start, seg.end
