@@ -17,6 +17,7 @@ from dataclasses import dataclass
 
 from .geometry import Profile
 from .massprops import BodyProps, SectionIntegrals, body_props, clipped_section_integrals, props_from_integrals
+from .spin import rpm_to_rad_s
 
 __all__ = ["BalanceResult", "balance", "permissible_specific_unbalance_mm", "floor_to_step"]
 
@@ -27,7 +28,7 @@ def permissible_specific_unbalance_mm(grade_mm_s: float, rpm: float) -> float:
         raise ValueError(f"balance grade must be > 0 mm/s, got {grade_mm_s}")
     if not (rpm > 0 and math.isfinite(rpm)):
         raise ValueError(f"spin rate must be > 0 rpm, got {rpm}")
-    return grade_mm_s / (rpm * 2 * math.pi / 60)
+    return grade_mm_s / rpm_to_rad_s(rpm)
 
 
 def floor_to_step(value_mm: float, step_mm: float) -> float:
@@ -106,7 +107,7 @@ def balance(
     return BalanceResult(
         grade_mm_s=grade_mm_s,
         rpm=rpm,
-        omega_rad_s=rpm * 2 * math.pi / 60,
+        omega_rad_s=rpm_to_rad_s(rpm),
         half_mass_g=half.mass_g,
         permissible_specific_unbalance_um=e_per * 1000,
         permissible_unbalance_g_mm=u_per,

@@ -5,6 +5,7 @@ from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
+import numpy as np
 import shapely
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -80,22 +81,26 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
         check("bearing wall thickness", "pad_groove.inner_diameter", bearing_wall >= min_wall - 1e-9,
               f"{bearing_wall:.3f} mm between wall bore and pad groove, least {min_wall:.3f} mm"),
     ]
-    cup = shapely.LineString(chunks["rim.outer"][:-1])  # the cup surface, without the outer edge
+    cup = shapely.linestrings(np.asarray(chunks["rim.outer"][:-1]))  # the cup surface, without the outer edge
     for feature, chunk, where in BACK_WALLS:
         pts = chunks[f"{feature}.{chunk}"]
-        line = shapely.LineString(pts) if len(pts) > 1 else shapely.Point(pts[0])
+        line = shapely.linestrings(np.asarray(pts)) if len(pts) > 1 else shapely.points(pts[0])
         wall = float(line.distance(cup))
         out.append(check(f"wall between {feature.replace('_', ' ')} and cup", where, wall >= min_wall - 1e-9,
                          f"{wall:.3f} mm, least {min_wall:.3f} mm"))
     return out
 
 
+#: chord error of the flattened loop whose topology is checked: far below any wall the rules allow
+LOOP_CHECK_TOLERANCE = 0.02
+
+
 def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str]) -> list[Check]:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    poly = profile.polygon()
-    simple = poly.is_valid and poly.exterior.is_simple and profile.signed_area() > 0
+    poly = profile.polygon(LOOP_CHECK_TOLERANCE)
+    simple = poly.exterior.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, _, z_max, r_max = profile.bounds()
     out = [
         check("closed simple loop", "profile.loop", simple,

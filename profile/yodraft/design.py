@@ -33,7 +33,6 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("date", "text", "date of issue, YYYY-MM-DD; also fixes the DXF header dates", "2026-01-01", max_length=10),
         ParamSpec("material", "text", "body material from the catalog", "6061-T6", max_length=40),
         ParamSpec("density", "density", "overrides the catalog density of the material", None, 0.1, 25.0),
-        ParamSpec("drawing_units", "text", "primary units on the drawing", "mm", choices=("mm", "in")),
     ),
     "envelope": (
         ParamSpec("diameter", "length", "largest outer diameter allowed", None, 10.0, 120.0),

@@ -15,6 +15,7 @@ import math
 from dataclasses import dataclass
 from typing import Union
 
+import numpy as np
 import shapely
 
 __all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "GeometryError"]
@@ -76,11 +77,11 @@ class Arc:
     def end_angle(self) -> float:
         return self.start_angle + self.sweep
 
-    @property
+    @functools.cached_property
     def start(self) -> Point:
         return self.point_at(self.start_angle)
 
-    @property
+    @functools.cached_property
     def end(self) -> Point:
         return self.point_at(self.end_angle)
 
@@ -137,10 +138,14 @@ class Profile:
 
     def polygon(self, tol: float = 0.005) -> shapely.Polygon:
         """A shapely polygon of the flattened loop."""
-        return shapely.Polygon(self.flatten(tol))
+        return shapely.polygons(np.asarray(self.flatten(tol)))
 
     def signed_area(self) -> float:
         """Exact signed area (positive for a counter-clockwise loop), by Green's theorem."""
+        return self._signed_area
+
+    @functools.cached_property
+    def _signed_area(self) -> float:
         total = 0.0
         for seg in self.segments:
             (z0, r0), (z1, r1) = seg.start, seg.end

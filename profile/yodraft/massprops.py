@@ -339,7 +339,8 @@ def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegral
     """
     if not (math.isfinite(r_cut) and r_cut >= 0):
         raise ValueError(f"cut radius must be a finite value ≥ 0, got {r_cut}")
-    section_integrals(profile)  # validates orientation and r ≥ 0
+    if profile.bounds()[1] < -_R_TOL or not profile.signed_area() > 0:
+        raise ValueError("the profile must be a counter-clockwise loop at r ≥ 0")
     lines, arcs = _clip_pieces(profile, r_cut)
     if not len(lines) and not len(arcs):
         return SectionIntegrals(0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0)

@@ -27,6 +27,7 @@ TARGETS: dict[str, tuple[str, Callable[[Resolved], float], float]] = {
     "izz": ("inertia", lambda r: analyse(r).assembly.izz_g_mm2, 0.5),
     "gap": ("length", lambda r: r["bearing_seat.gap"], 1e-5),
 }
+TARGET_UNITS = {"mass": "g", "izz": "g*mm^2", "gap": "mm"}
 _UNIT_OF_KIND = {"length": "mm", "angle": "deg", "mass": "g", "torque": "N*mm", "density": "g/cm^3",
                  "speed": "rpm", "roughness": "um"}
 
@@ -89,7 +90,7 @@ def _current(design: Design, parts: list[str], spec: ParamSpec) -> float | None:
     return value if isinstance(value, float) else None
 
 
-def solve(design: Design, target: str, goal: float, key: str, max_evaluations: int = 80) -> SolveResult:
+def solve(design: Design, target: str, goal: float, key: str, max_evaluations: int = 120) -> SolveResult:
     """Find the value of ``key`` within its bounds at which ``target`` (mass, izz or gap) equals ``goal``.
 
     Raises DesignInputError when the key or target is unknown, and ValueError
@@ -131,25 +132,39 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
         # try both directions, growing the step until the sign changes or the bounds stop us
         step = max(abs(x0) * 0.05, 0.05)
         found = False
+        stops: list[str] = []
         for direction in (1.0, -1.0):
             x_prev, f_prev, h = x0, e0, step
-            while count < max_evaluations:
+            edge = hi if direction > 0 else lo
+            near_edge = False  # once a trial fails to close, creep up on the last closing value
+            while True:
                 x = min(hi, max(lo + 1e-9 if not spec.lo_closed else lo, x_prev + direction * h))
                 if x == x_prev:
+                    stops.append(f"its bound {quantity_text(edge, spec)}")
+                    break
+                if count >= max_evaluations:
+                    stops.append(f"{max_evaluations} trials")
                     break
                 fx = f(x)
                 if fx is None:
-                    break
+                    near_edge, h = True, h / 2
+                    if h < 1e-6:
+                        stops.append(f"{quantity_text(x_prev, spec)}, beyond which the half no longer closes "
+                                     "into a valid profile")
+                        break
+                    continue
                 if fx == 0 or (fx > 0) != (f_prev > 0):
                     a, fa, b, fb, found = x_prev, f_prev, x, fx, True
                     break
-                x_prev, f_prev, h = x, fx, h * 2
+                x_prev, f_prev, h = x, fx, h if near_edge else h * 2
             if found:
                 break
         if not found:
             assert best is not None
-            raise ValueError(f"no value of {key} within its bounds and a valid profile reaches {target} {goal:g}; "
-                             f"closest {best[2]:.4f} at {quantity_text(best[1], spec)}")
+            unit = TARGET_UNITS[target]
+            raise ValueError(f"no value of {key} reaches {target} {goal:g} {unit}: the closest is {best[2]:.4f} {unit} at "
+                             f"{quantity_text(best[1], spec)}; searching up stopped at {stops[0]}, "
+                             f"down at {stops[1]}")
         side = 0
         while abs(fb) > tol and count < max_evaluations and abs(b - a) > 1e-12:
             x = b - fb * (b - a) / (fb - fa)

@@ -26,8 +26,12 @@ def resolved_dimensions(resolved: Resolved) -> dict[str, dict[str, Any]]:
     return out
 
 
-def summary(resolved: Resolved) -> dict[str, Any]:
-    """The `yodraft check --json` object (see the README for every key)."""
+def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
+    """The `yodraft check --json` object (see the README for every key).
+
+    ``detail=False`` leaves out the per-feature dimension tables and the check list
+    (a sweep reads the failed checks off the resolved design itself).
+    """
     v = resolved.values
     d = resolved.design
     fit = resolved.features["bearing_seat"].extra["seat_fit"]
@@ -57,8 +61,8 @@ def summary(resolved: Resolved) -> dict[str, Any]:
         },
         "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
         **(_mass_sections(resolved) if resolved.profile is not None else {}),
-        "features": resolved_dimensions(resolved),
-        "checks": [c.as_dict() for c in resolved.checks],
+        **({"features": resolved_dimensions(resolved),
+            "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
     }
 
 

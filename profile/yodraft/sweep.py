@@ -202,7 +202,7 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
     except (YodraftError, ValueError) as exc:
         return Variant(index, shown, False, (f"input: {exc}",), {})
     failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
-    return Variant(index, shown, resolved.ok, failed, _outputs(summary(resolved)))
+    return Variant(index, shown, resolved.ok, failed, _outputs(summary(resolved, detail=False)))
 
 
 def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:

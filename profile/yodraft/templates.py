@@ -1,15 +1,13 @@
 """Starter designs: list them and write a new design file from one.
 
-The templates are the ``*.toml`` files of the ``templates/`` folder beside the
-``profile/`` source root (where an editable install finds them). A copy shipped
-inside the package as ``yodraft/templates/`` (package data) is used when that
-folder is absent. Each template's first comment line is its one-line description.
+The templates are the ``*.toml`` files of the project's ``templates/`` folder,
+beside the ``profile/`` source root (an editable install, as the README sets
+up, finds them there). Each template's first comment line is its one-line description.
 """
 from __future__ import annotations
 
 import re
 from dataclasses import dataclass
-from importlib import resources
 from pathlib import Path
 
 from .errors import DesignInputError
@@ -29,12 +27,7 @@ class Template:
 def template_dir() -> Path | None:
     """The folder holding the starter designs, or None when none can be found."""
     beside = Path(__file__).resolve().parents[2] / "templates"
-    if beside.is_dir():
-        return beside
-    shipped = resources.files("yodraft") / "templates"
-    if shipped.is_dir():
-        return Path(str(shipped))
-    return None
+    return beside if beside.is_dir() else None
 
 
 def _description(text: str) -> str:
