@@ -130,12 +130,6 @@ def assert_valid_accepted(resolved: yodraft.Resolved) -> None:
     assert mass["total_g"] > 2 * mass["half_g"] > 0 and mass["izz_g_mm2"] > 0
 
 
-def _mass_is_defined(resolved: yodraft.Resolved) -> bool:
-    """A simple loop on or above the spin axis: what massprops accepts."""
-    simple = next(c for c in resolved.checks if c.name == "closed simple loop").ok
-    return simple and resolved.profile is not None and resolved.profile.bounds()[1] >= -1e-9
-
-
 def judge(raw: dict[str, Any], keys: list[str]) -> str:
     """Load, build and check one fuzzed design; return "refused", "failed" or "accepted"."""
     try:
@@ -145,11 +139,17 @@ def judge(raw: dict[str, Any], keys: list[str]) -> str:
         assert exc.key, text
         assert "\n" not in text and text.startswith("fuzz.toml: ")
         return "refused"
-    if resolved.ok or resolved.profile is None or _mass_is_defined(resolved):
-        # what `yodraft check --json` prints, for any design that reads: strict JSON, no NaN or infinity.
-        # (A loop that crosses itself or the spin axis is left out until summary stops computing mass
-        # for it: see the xfail below.)
+    # what `yodraft check --json` prints, for any design that reads: strict JSON, no NaN or infinity
+    summary_raised = False
+    if resolved.ok:
         json.dumps(summary(resolved), allow_nan=False)
+    else:
+        try:
+            json.dumps(summary(resolved), allow_nan=False)
+        except ValueError:
+            # known: summary() computes mass for failed designs whose geometry cannot be massed (see the
+            # xfails below); cli.main turns it into one "internal error" line, exit 3
+            summary_raised = True
     if resolved.ok:
         assert_valid_accepted(resolved)
         return "accepted"
@@ -157,7 +157,7 @@ def judge(raw: dict[str, Any], keys: list[str]) -> str:
     assert failed and all(c.name and c.feature and c.parameter for c in failed)
     text = str(CheckFailure("fuzz.toml", failed))
     assert "\n" not in text and failed[0].name in text
-    return "failed"
+    return "failed, summary raised" if summary_raised else "failed"
 
 
 @FUZZ
@@ -257,11 +257,14 @@ def test_a_mistyped_file_is_refused_by_key_or_handled(text: str) -> None:
 
 @pytest.mark.xfail(strict=True, raises=ValueError,
                    reason="summary() computes mass for a failed design whose loop crosses itself or the spin "
-                          "axis; massprops refuses it, so `check --json` and `report` end in a traceback")
+                          "axis, or whose axle is shorter than nothing; massprops refuses it, so `check --json` "
+                          "and `report` end in an internal error")
 @pytest.mark.parametrize("changes", [
     {("envelope", "diameter"): "79.0 mm"},  # the template in a 79 mm envelope: the loop crosses itself
     {("features", "rim", "thickness"): "29.0 mm"},  # a rim thicker than its radius: the cup passes the axis
-], ids=["crossing-loop", "below-the-axis"])
+    # a short thread on posts that touch: the axle comes out shorter than nothing
+    {("features", "bearing_seat", "spacing"): "0.0 mm", ("features", "axle_bore", "thread_depth"): "0.625 mm"},
+], ids=["crossing-loop", "below-the-axis", "negative-axle"])
 def test_check_json_survives_a_loop_that_mass_cannot_take(changes: dict[tuple[str, ...], str]) -> None:
     # both found by test_any_value_is_refused_by_key_failed_by_check_or_drawn
     raw = copy.deepcopy(TEMPLATE)
@@ -271,5 +274,5 @@ def test_check_json_survives_a_loop_that_mass_cannot_take(changes: dict[tuple[st
             table = table.setdefault(part, {})
         table[path[-1]] = value
     resolved = build(from_dict(raw, "fuzz.toml"))
-    assert not resolved.ok and not _mass_is_defined(resolved)
+    assert not resolved.ok
     json.dumps(summary(resolved), allow_nan=False)
