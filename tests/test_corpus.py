@@ -197,3 +197,32 @@ def test_quantity_text_is_never_evaluated(text: str) -> None:
 
     with pytest.raises(UnitError):
         parse_quantity(text, "length")
+
+
+# ------------------------------------------------------------------ MTEXT codes in texts print as typed
+
+CARET = pytest.mark.xfail(strict=True, reason="drawing/mtext.escape leaves '^' alone, and MTEXT reads '^3' as a "
+                          "caret-coded control character; a literal caret is written '^ '")
+
+
+@pytest.mark.parametrize("title", [r"{\fArial;x}", r"LS-56\Pnew line", r"50\% \S1#2; {\C1;red}", "back\\slash \\",
+                                   pytest.param("density 2.7 g/cm^3", marks=CARET),
+                                   pytest.param("^J^I^M", marks=CARET)])
+def test_mtext_codes_in_the_title_print_as_typed(title: str, tmp_path: Path) -> None:
+    # the reference is ezdxf's own MTEXT reader: plain_text() undoes escapes and drops formatting codes,
+    # so the typed title must come back unchanged, and no formatting code may take effect
+    import ezdxf
+
+    text = TEMPLATE.read_text(encoding="utf-8")
+    old = 'title = "LS-56 string-trick yo-yo, one half"'
+    assert text.count(old) == 1
+    note = r"first issue \P {\H9;big}"
+    design = tmp_path / "design.toml"
+    design.write_text(text.replace(old, f"title = '{title}'").replace('note = "First issue for prototype"',
+                                                                      f"note = '{note}'"), encoding="utf-8")
+    out = tmp_path / "out"
+    assert main(["build", str(design), "-o", str(out)]) == 0
+    doc = ezdxf.readfile(out / "larchmere-ls56-A.dxf")
+    texts = [e.plain_text() for layout in doc.layouts for e in layout.query("MTEXT")]
+    assert title in texts, texts
+    assert note in texts, texts
