@@ -146,6 +146,9 @@ def loads(text: str, source: str = "<design>") -> Design:
         raw = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise DesignInputError(source, "", f"is not valid TOML: {exc}", "TOML syntax") from None
+    except RecursionError:  # tomllib reads nested arrays and inline tables recursively
+        raise DesignInputError(source, "", "nests arrays or inline tables too deeply to read",
+                               "a design file of plain tables and values") from None
     return from_dict(raw, source)
 
 
