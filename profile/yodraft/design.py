@@ -20,6 +20,8 @@ IN = 25.4
 DEG = math.pi / 180
 NAME_PATTERN = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")
 DATE_PATTERN = re.compile(r"^\d{4}-\d{2}-\d{2}$")
+#: no design file comes near this; a larger one is the wrong file (or /dev/zero)
+MAX_DESIGN_BYTES = 64 * 2**20
 
 SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
     "design": (
@@ -126,11 +128,15 @@ def load(path: str | Path) -> Design:
     if p.is_dir():
         raise DesignInputError(name, "", "is a directory", "a design file (.toml)")
     try:
-        data = p.read_bytes()
+        with p.open("rb") as handle:  # read with a limit: /dev/zero or a runaway pipe would fill the memory
+            data = handle.read(MAX_DESIGN_BYTES + 1)
     except FileNotFoundError:
         raise DesignInputError(name, "", "no such file", "a design file (.toml)") from None
     except OSError as exc:
         raise DesignInputError(name, "", f"cannot be read ({exc.strerror})", "a readable design file") from None
+    if len(data) > MAX_DESIGN_BYTES:
+        raise DesignInputError(name, "", f"is larger than {MAX_DESIGN_BYTES // 2**20} MiB",
+                               "a design file (a few kilobytes of TOML)")
     try:
         text = data.decode("utf-8-sig")  # an editor's byte-order mark is not part of the design
     except UnicodeDecodeError as exc:
