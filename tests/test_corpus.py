@@ -81,6 +81,7 @@ def assert_one_clear_line(case: dict[str, Any], code: int, stderr: str) -> None:
     line = lines[0]
     assert line.startswith("yodraft: "), line
     assert not any(unicodedata.category(c) in ("Cc", "Cf") for c in line), f"control character in {line!r}"
+    assert len(line) <= case.get("max_line", 2000), f"a {len(line)}-character line is not a clear message"
     for word in case["words"]:
         assert word.lower() in line.lower(), f"{case['name']}: {word!r} not in {line!r}"
 

@@ -25,6 +25,10 @@ def one_line(text: str) -> str:
         for c in text)
 
 
+#: longest key path shown in a message; a longer one (a pasted paragraph used as a key) is cut
+KEY_SHOWN = 120
+
+
 class YodraftError(Exception):
     """Base of every error yodraft raises on purpose."""
 
@@ -48,7 +52,8 @@ class DesignInputError(YodraftError, ValueError):
         super().__init__(file, key, problem, expected)
 
     def __str__(self) -> str:
-        text = f"{self.file}: {self.key}: {self.problem}" if self.key else f"{self.file}: {self.problem}"
+        key = self.key if len(self.key) <= KEY_SHOWN else self.key[:KEY_SHOWN - 3] + "..."
+        text = f"{self.file}: {key}: {self.problem}" if key else f"{self.file}: {self.problem}"
         if self.expected:
             text += f" (expected {self.expected})"
         return one_line(text)
