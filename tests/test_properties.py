@@ -78,7 +78,9 @@ def value_for(draw: st.DrawFn, spec: ParamSpec, inside: bool) -> Any:
     if inside:
         lo = spec.lo if spec.lo is not None else -100.0
         hi = spec.hi if spec.hi is not None else 100.0
-        x = draw(st.floats(lo, hi, exclude_min=not spec.lo_closed).filter(lambda v: v == 0 or abs(v) >= SMALLEST))
+        x = draw(st.floats(lo, hi, exclude_min=not spec.lo_closed))
+        if 0 < abs(x) < SMALLEST:  # below what the reader takes as meaningful (see params.SMALLEST)
+            x = math.copysign(SMALLEST, x)
     else:
         lo, hi = span(spec)
         edges = [e for e in (spec.lo, spec.hi) if e is not None]
