@@ -28,7 +28,11 @@ _CURVES = frozenset({"LINE", "LWPOLYLINE", "POLYLINE", "ARC", "CIRCLE", "ELLIPSE
 
 
 def _num(v: float) -> str:
-    """Fixed 3-decimal formatting without trailing zeros (deterministic, compact)."""
+    """Fixed 3-decimal formatting without trailing zeros (deterministic, compact).
+
+    >>> _num(1.23456), _num(2.0), _num(-0.0001)
+    ('1.235', '2', '0')
+    """
     s = f"{v:.3f}".rstrip("0").rstrip(".")
     return "0" if s in ("-0", "") else s
 
