@@ -167,3 +167,40 @@ def test_hatch_pattern_lines_are_clipped_to_the_boundary():
     hatched = [p for p in root.iter("{http://www.w3.org/2000/svg}path") if p.get("clip-path")]
     assert len(hatched) == 1
     assert root.find(".//svg:clipPath/svg:path", NS) is not None
+
+
+def test_font_metrics_agree_with_fonttools():
+    """Our table reader against fontTools' full parse (reference library) for the sheet's text font."""
+    from ezdxf.fonts import fonts
+
+    from yodraft.drawing.ttf_metrics import from_tables
+
+    face = fonts.get_font_face("DejaVuSans.ttf")
+    if face.filename.lower() != "dejavusans.ttf":
+        pytest.skip("DejaVu Sans is not installed")
+    from fontTools.ttLib import TTFont
+
+    shared = fonts.font_manager.get_ttf_font(face.filename)
+    ours = from_tables(lambda tag: shared.reader[tag], face.family)
+    ttf = TTFont(shared.reader.file.name)  # a private full parse: leave the shared font untouched
+    cmap, hmtx, glyf = ttf.getBestCmap(), ttf["hmtx"], ttf["glyf"]
+    cap = glyf[cmap[ord("A")]].yMax
+    assert ours.em_per_cap == pytest.approx(ttf["head"].unitsPerEm / cap)
+    assert ours.x_height == pytest.approx(glyf[cmap[ord("x")]].yMax / cap)
+    assert ours.descender == pytest.approx(-glyf[cmap[ord("p")]].yMin / cap)
+    for ch in "AZaz09 .,:;()[]-+/Ø±°µ…×":
+        assert ours.advance(ch) == pytest.approx(hmtx[cmap[ord(ch)]][0] / cap), ch
+
+
+def test_preview_unchanged_after_the_shared_font_was_parsed():
+    """Regression: once ezdxf had parsed the font's glyph table, re-compiled tables no longer matched
+    the stored 'loca' and the text came out a tenth of its size."""
+    from ezdxf.fonts import fonts
+
+    resolved = build(load(ROOT / "templates" / "string-trick.toml"))
+    before = render_files(resolved, "s")["s.svg"]
+    ttf = fonts.font_manager.get_ttf_font(fonts.get_font_face("DejaVuSans.ttf").filename)
+    glyf = ttf["glyf"]
+    for name in ttf.getGlyphOrder()[:64]:
+        glyf[name]
+    assert render_files(resolved, "s")["s.svg"] == before

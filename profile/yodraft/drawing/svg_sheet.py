@@ -20,6 +20,8 @@ from ezdxf.entities import DXFGraphic
 from ezdxf.math import Matrix44, Vec3
 from ezdxf.tools.text import MTextContext, MTextParser, TokenType
 
+from .ttf_metrics import FontMetrics, estimate, from_tables
+
 __all__ = ["sheet_svg"]
 
 DEFAULT_LINEWEIGHT = 25  # 1/100 mm, used for "default" (-3) lineweights
@@ -48,62 +50,18 @@ class _Inherit:
     scale: float
 
 
-class _Font:
-    """Advance widths of the text style's font, scaled so that ``cap_height`` is the height of 'A'."""
+def _metrics(font_file: str) -> FontMetrics:
+    """Metrics of the text style's font as the font manager of ezdxf finds it, else an estimate."""
+    try:
+        from ezdxf.fonts import fonts
 
-    def __init__(self, font_file: str) -> None:
-        self.family = "sans-serif"
-        self._advance: dict[int, int] = {}
-        self._cmap: dict[int, str] = {}
-        self._cap = 0.0
-        self._descender = 0.3
-        self._x_height = 0.75
-        try:
-            from ezdxf.fonts import fonts
-
-            face = fonts.get_font_face(font_file)
-            ttf = fonts.font_manager.get_ttf_font(face.filename)
-            self._cmap = ttf.getBestCmap() or {}
-            self._hmtx = ttf["hmtx"]
-            upem = float(ttf["head"].unitsPerEm)
-            if "glyf" in ttf:
-                glyphs = ttf["glyf"]
-                self._cap = float(glyphs[self._cmap[ord("A")]].yMax)
-                self._descender = -float(glyphs[self._cmap[ord("p")]].yMin) / self._cap
-                self._x_height = float(glyphs[self._cmap[ord("x")]].yMax) / self._cap
-            else:
-                self._cap = 0.72 * upem
-            self._upem = float(ttf["head"].unitsPerEm)
-            self.family = face.family
-        except Exception:  # no font file on this machine: fall back to a mean width estimate
-            self._cmap = {}
-        self._cache: dict[str, float] = {}
-
-    def descender(self) -> float:
-        """Depth of a descender ('p') per cap height."""
-        return self._descender
-
-    def x_height(self) -> float:
-        """Height of a lower-case 'x' per cap height."""
-        return self._x_height
-
-    def em_per_cap(self) -> float:
-        """Font size (em) per cap height."""
-        return self._upem / self._cap if self._cap else 1.0 / 0.72
-
-    def width(self, text: str, cap_height: float) -> float:
-        """Width of ``text`` in the units of ``cap_height``."""
-        if not self._cmap:
-            return 0.9 * cap_height * len(text)
-        units = 0.0
-        for ch in text:
-            w = self._cache.get(ch)
-            if w is None:
-                name = self._cmap.get(ord(ch))
-                w = float(self._hmtx[name][0]) if name is not None else 0.6 * self._upem
-                self._cache[ch] = w
-            units += w
-        return units / self._cap * cap_height
+        face = fonts.get_font_face(font_file)
+        ttf = fonts.font_manager.get_ttf_font(face.filename)
+        # the tables as stored in the file: a table that someone else decompiled and would
+        # compile again may be laid out differently from the stored 'loca'
+        return from_tables(lambda tag: ttf.reader[tag], face.family)
+    except Exception:  # no readable TrueType file on this machine
+        return estimate()
 
 
 @dataclass(frozen=True)
@@ -123,7 +81,7 @@ class _Writer:
         self.defs: list[str] = []
         self._ids = 0
         self._layers = {layer.dxf.name.lower(): layer for layer in doc.layers}
-        self._fonts: dict[str, _Font] = {}
+        self._fonts: dict[str, FontMetrics] = {}
         self._ltscale = float(doc.header.get("$LTSCALE", 1.0)) or 1.0
 
     # ---------------------------------------------------------------- attributes
@@ -198,11 +156,11 @@ class _Writer:
             attrs += f' stroke-dasharray="{dash}"'
         return attrs
 
-    def _font(self, style_name: str) -> _Font:
+    def _font(self, style_name: str) -> FontMetrics:
         font = self._fonts.get(style_name)
         if font is None:
             style = self.doc.styles.get(style_name) if self.doc.styles.has_entry(style_name) else None
-            font = _Font(style.dxf.get("font", "") if style is not None else "")
+            font = _metrics(style.dxf.get("font", "") if style is not None else "")
             self._fonts[style_name] = font
         return font
 
@@ -309,7 +267,7 @@ class _Writer:
                     attrs += f' text-decoration="{deco}"'
                 spans.append(f"<tspan{attrs}>{_xml_escape(run.text)}</tspan>")
         if spans:
-            self.out.append(f'<text transform="{transform}" text-anchor="{anchor}" font-family="{family}, sans-serif" '
+            self.out.append(f'<text transform="{transform}" text-anchor="{anchor}" font-family="{_attr(family)}, sans-serif" '
                             'fill="#000" stroke="none" '
                             f'xml:space="preserve">{"".join(spans)}</text>')
 
@@ -322,12 +280,12 @@ class _Writer:
         lines: list[list[_Run]] = []
 
         def width_of(runs: list[_Run]) -> float:
-            return sum(font.width(r.text, r.cap) for r in runs)
+            return sum(font.width(r.text) * r.cap for r in runs)
 
         def add(text: str, c: MTextContext, is_word: bool) -> None:
             line = paragraphs[-1]
             if (is_word and wrap_width > 0 and any(r.text.strip() for r in line)
-                    and width_of(line) + font.width(text, c.cap_height) > wrap_width + 1e-9):
+                    and width_of(line) + font.width(text) * c.cap_height > wrap_width + 1e-9):
                 while line and not line[-1].text.strip():
                     line.pop()
                 lines.append(line)
@@ -362,8 +320,8 @@ class _Writer:
         attach = int(e.dxf.get("attachment_point", 1))
         # middle: halfway between the top of the first line's lower case and the last baseline;
         # bottom: the box includes the descenders of the last line
-        middle = (caps[0] * (1.0 - font.x_height()) + total) / 2.0
-        vshift = {0: 0.0, 1: middle, 2: total + font.descender() * caps[-1]}[(attach - 1) // 3]
+        middle = (caps[0] * (1.0 - font.x_height) + total) / 2.0
+        vshift = {0: 0.0, 1: middle, 2: total + font.descender * caps[-1]}[(attach - 1) // 3]
         anchor = ("start", "middle", "end")[(attach - 1) % 3]
         scale = m.transform_direction(Vec3(1, 0, 0)).magnitude
         insert = m.transform(Vec3(e.dxf.insert))
@@ -371,7 +329,7 @@ class _Writer:
         placed = [(scale * (b - vshift), [_Run(r.text, r.cap * scale, r.underline, r.overline, r.strike)
                                           for r in line]) for b, line in zip(baselines, lines) if line]
         self._text_element(insert.x, insert.y, direction.angle_deg, anchor, font.family, placed,
-                           font.em_per_cap())
+                           font.em_per_cap)
 
     def _text(self, e: DXFGraphic, m: Matrix44) -> None:
         font = self._font(e.dxf.get("style", "Standard"))
@@ -395,7 +353,7 @@ class _Writer:
         direction = m.transform_direction(Vec3.from_deg_angle(float(e.dxf.get("rotation", 0.0))))
         run = _Run(text, cap * scale, False, False, False)
         self._text_element(insert.x, insert.y, direction.angle_deg, anchor, font.family,
-                           [(dy * scale, [run])], font.em_per_cap())
+                           [(dy * scale, [run])], font.em_per_cap)
 
     # ---------------------------------------------------------------- traversal
     def entities(self, entities: Iterable[DXFGraphic], m: Matrix44, inh: _Inherit, depth: int = 0) -> None:
@@ -467,6 +425,11 @@ class _Writer:
                 f'<rect x="0" y="0" width="{w}" height="{h}" fill="#fff"/>'
                 '<g fill="none" stroke="#000" stroke-linecap="round" stroke-linejoin="round">')
         return (head + "".join(self.out) + "</g></svg>\n").encode("utf-8")
+
+
+def _attr(value: str) -> str:
+    """``value`` escaped for a double-quoted XML attribute."""
+    return _xml_escape(value, {'"': "&quot;"})
 
 
 def _merge(line: list[_Run]) -> list[_Run]:
