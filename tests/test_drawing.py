@@ -223,3 +223,90 @@ def test_mtext_escape_round_trip():
 
     raw = r"A\B {x} ; ^"
     assert plain_mtext(escape(raw)) == raw
+
+
+def _mtext_box(text, m=None) -> shapely.Polygon:
+    """The box a MTEXT's lines take, laid out by ezdxf with the style's font (ezdxf.tools.text_size),
+    placed by its attachment point and rotation, then mapped to paper by ``m`` (a Matrix44)."""
+    from ezdxf.math import Matrix44, Vec3
+    from ezdxf.tools.text_size import mtext_size
+
+    size = mtext_size(text)
+    width = text.dxf.width if text.dxf.hasattr("width") and text.dxf.width > 0 else size.total_width
+    height = size.total_height
+    attach = text.dxf.attachment_point
+    sx = (0.0, -0.5, -1.0)[(attach - 1) % 3]
+    sy = (0.0, 0.5, 1.0)[(attach - 1) // 3]
+    angle = math.radians(text.get_rotation())
+    local = Matrix44.z_rotate(angle) @ Matrix44.translate(*text.dxf.insert)
+    if m is not None:
+        local = local @ m
+    corners = [Vec3((sx + a) * width, (sy - b) * height) for a, b in ((0, 0), (1, 0), (1, 1), (0, 1))]
+    return shapely.Polygon([(p.x, p.y) for p in local.transform_vertices(corners)])
+
+
+def _sheet_texts(doc):
+    """(what, box on paper, where it must lie) for every text the sheet shows: paper-space MTEXT, the
+    main view's dimension texts through the viewport, the detail's dimension texts through its insert."""
+    from ezdxf.math import Matrix44
+
+    psp = doc.paperspace("sheet")
+    frame = shapely.box(20.0, 10.0, 410.0, 287.0)  # ISO 5457 border of A3, see sheet.FRAME
+    out = [(t.plain_text()[:30], _mtext_box(t), frame) for t in psp.query("MTEXT")]
+    (vp,) = [v for v in psp.query("VIEWPORT") if v.dxf.id != 1]
+    s = vp.dxf.height / vp.dxf.view_height
+    c, mc = vp.dxf.center, vp.dxf.view_center_point
+    to_paper = Matrix44.scale(s) @ Matrix44.translate(c.x - mc.x * s, c.y - mc.y * s, 0)
+    view = shapely.box(c.x - vp.dxf.width / 2, c.y - vp.dxf.height / 2, c.x + vp.dxf.width / 2, c.y + vp.dxf.height / 2)
+    for dim in doc.modelspace().query("DIMENSION"):
+        for t in dim.get_geometry_block().query("MTEXT"):
+            out.append((",".join(tags_of(dim)), _mtext_box(t, to_paper), view))
+    (ins,) = psp.query(f"INSERT[name=='{DETAIL_BLOCK}']")
+    frames = [e for e in psp.query("LWPOLYLINE[layer=='detail']")]
+    detail_frame = max(frames, key=lambda e: shapely.Polygon([p[:2] for p in e.get_points("xy")]).area)
+    detail_box = shapely.Polygon([p[:2] for p in detail_frame.get_points("xy")])
+    for dim in doc.blocks.get(DETAIL_BLOCK).query("DIMENSION"):
+        for t in dim.get_geometry_block().query("MTEXT"):
+            out.append(("detail " + ",".join(tags_of(dim)), _mtext_box(t, ins.matrix44()), detail_box))
+    return out
+
+
+def _paper_lines(doc):
+    """Every line the sheet draws in paper space (border, blocks, frames, leaders) as shapely lines."""
+    psp = doc.paperspace("sheet")
+    lines = []
+    for e in psp.query("LINE LWPOLYLINE"):
+        if e.dxftype() == "LINE":
+            lines.append(shapely.LineString([(e.dxf.start.x, e.dxf.start.y), (e.dxf.end.x, e.dxf.end.y)]))
+        else:
+            pts = [p[:2] for p in e.get_points("xy")]
+            lines.append(shapely.LineString(pts + ([pts[0]] if e.closed else [])))
+    return lines
+
+
+@pytest.mark.parametrize("template", ["string-trick", "undersized", "wide-heavy"])
+def test_no_sheet_text_overlaps_text_or_lines_and_all_lies_inside(template):
+    doc, _ = _read(render_files(build(load(TEMPLATE.parent / f"{template}.toml")), "x")["x.dxf"])
+    texts = _sheet_texts(doc)
+    assert len(texts) > 60
+    for what, box, within in texts:
+        assert within.contains(box), f"{what!r} sticks out of its border, viewport or detail frame"
+    for i, (wa, a) in enumerate((w, b) for w, b, _ in texts):
+        for wb, b, _ in texts[i + 1:]:
+            assert a.intersection(b).area < 1e-9, f"text {wa!r} overlaps text {wb!r}"
+    lines = _paper_lines(doc)
+    for what, box, _ in texts:
+        for line in lines:
+            assert not box.intersects(line), f"text {what!r} touches a paper-space line"
+
+
+def test_all_sheet_text_is_lettering_size(files):
+    """ISO 3098-1 nominal size 3.5 mm for every text on paper (dimension texts through their view scale)."""
+    doc, _ = _read(files[f"{STEM}.dxf"])
+    psp = doc.paperspace("sheet")
+    for t in psp.query("MTEXT"):
+        assert t.dxf.char_height == pytest.approx(3.5), t.plain_text()[:30]
+    (ins,) = psp.query(f"INSERT[name=='{DETAIL_BLOCK}']")
+    for dim in doc.blocks.get(DETAIL_BLOCK).query("DIMENSION"):
+        for t in dim.get_geometry_block().query("MTEXT"):
+            assert t.dxf.char_height * ins.dxf.xscale == pytest.approx(3.5, rel=1e-6)

@@ -15,7 +15,7 @@ from .dimensions import DIA, Annotator
 from .locate import corner, on_face, on_radius
 from .section import HATCH_SPACING
 
-__all__ = ["DETAIL_BLOCK", "detail_region", "detail_scale", "build_detail", "tolerance_text"]
+__all__ = ["DETAIL_BLOCK", "detail_region", "detail_scale", "build_detail", "tolerance_text", "detail_lanes"]
 
 DETAIL_BLOCK = "seat-detail"
 SCALES = (20.0, 10.0, 5.0)  # ISO 5455 enlargements
@@ -74,12 +74,23 @@ def build_detail(doc: Drawing, resolved: Resolved, scale: float) -> tuple[float,
                                definition=[[45.0, (0.0, 0.0), (-spacing * 0.7071067811865476,
                                                               spacing * 0.7071067811865476), []]])
         hatch.paths.add_polyline_path(list(poly.exterior.coords)[:-1], is_closed=True, flags=1)
-    block.add_line((region[0], 0.0), (region[2], 0.0), dxfattribs={"layer": "centre", "ltscale": 1.0 / scale})
     r_t = resolved["axle_bore.major_diameter"] / 2
     z0 = resolved["bearing_seat.post_face_z"]
     block.add_line((z0, r_t), (region[2], r_t), dxfattribs={"layer": "thread"})
     _dimension(block, resolved, scale)
     return region
+
+
+def detail_lanes(resolved: Resolved, scale: float) -> list[float]:
+    """z of the detail's diameter lines, post first: 6 mm on paper left of the region, then each
+    lane clears the text of the one inside it (two-line toleranced texts need more room)."""
+    k = 1.0 / scale
+    x = detail_region(resolved)[0]
+    out = []
+    for step in (6.0, 14.0, 7.0):  # post (toleranced) → seat face → wall bore
+        x -= step * k
+        out.append(x)
+    return out
 
 
 def _dimension(block, resolved: Resolved, scale: float) -> None:  # type: ignore[no-untyped-def]
@@ -90,7 +101,6 @@ def _dimension(block, resolved: Resolved, scale: float) -> None:  # type: ignore
     inch = bool(v["bearing.inch"])
     an = Annotator(block, scale)
     k = an.k
-    z_left = v["bearing_seat.post_face_z"] - 1.0
     lanes = [
         (("bearing_seat.post_diameter",), on_radius(profile, v["bearing_seat.post_diameter"] / 2, prefer="min"),
          tolerance_text(fit.post.nominal_mm, fit.post.tolerance_mm, inch), {"dimtp": fit.post.tolerance_mm,
@@ -102,11 +112,7 @@ def _dimension(block, resolved: Resolved, scale: float) -> None:  # type: ignore
          tolerance_text(fit.wall.nominal_mm, fit.wall.tolerance_mm, inch), {"dimtp": fit.wall.tolerance_mm,
                                                                              "dimtm": fit.wall.tolerance_mm}),
     ]
-    x = z_left
-    step = 6.0  # paper mm to the first line; then each lane clears the text of the one inside it
-    for keys, at, text, extra in lanes:
-        x -= step * k
-        step = 14.0 if extra else 7.0
+    for (keys, at, text, extra), x in zip(lanes, detail_lanes(resolved, scale)):
         an.half_diameter(keys, at, x, text=text, extra={"dimdec": 5, **extra},
                          text_r=at[1] / 2 if extra else None)
     # groove depths inside their grooves

@@ -57,7 +57,8 @@ def setup(doc: Drawing) -> None:
         entry.description = layer.purpose
         if layer.name == "viewport":
             entry.dxf.plot = 0
-    doc.styles.add(TEXT_STYLE, font="DejaVuSans.ttf")
+    # a condensed sans: close to ISO 3098-2 type B proportions, and it keeps 3.5 mm fields in their cells
+    doc.styles.add(TEXT_STYLE, font="DejaVuSansCondensed.ttf")
     doc.appids.add(APPID)
     style = doc.dimstyles.add(DIMSTYLE)
     attribs = {

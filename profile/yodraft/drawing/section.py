@@ -8,14 +8,24 @@ from ezdxf.layouts import BaseLayout
 from ..builder import Resolved
 from ..geometry import Arc, Profile
 from .dimensions import DIA, Annotator
+from .layers import TEXT_HEIGHT
 from .locate import corner, on_face, on_radius
 from .outline import add_loop
 
-__all__ = ["draw_section", "add_hatch", "dimension_section", "HATCH_SPACING", "datum_face_z", "thread_callout"]
+__all__ = ["draw_section", "add_hatch", "dimension_section", "HATCH_SPACING", "datum_face_z", "thread_callout",
+           "thread_lane_z", "LEFT_LANES"]
 
 HATCH_SPACING = 3.0  # mm on paper, ISO 128-50 (at least 0.7 mm) (from memory)
 LANE = 7.0  # mm on paper between stacked dimension lines
 FIRST = 9.0  # mm on paper from the outline to the first dimension line
+LEFT_LANES = 3  # diameters on the gap side of the upper half; the thread takes the next lane
+
+
+def thread_lane_z(resolved: Resolved, scale: float) -> float:
+    """z of the thread's diameter line: its own lane outside the gap-side diameters, so no two
+    diameter lines run on one line across the axis."""
+    z_min = resolved.profile.bounds()[0]  # type: ignore[union-attr]
+    return z_min - (FIRST + LANE * LEFT_LANES) / scale
 
 
 def datum_face_z(resolved: Resolved) -> float:
@@ -53,7 +63,7 @@ def draw_section(layout: BaseLayout, resolved: Resolved, scale: float) -> None:
     z_min, _, z_max, _ = profile.bounds()
     over = 4.0 / scale
     layout.add_line((z_min - over, 0.0), (z_max + over, 0.0),
-                    dxfattribs={"layer": "centre", "ltscale": 1.0 / scale})
+                    dxfattribs={"layer": "centre"})
     v = resolved.values
     z0 = v["bearing_seat.post_face_z"]
     r = v["axle_bore.major_diameter"] / 2
@@ -94,16 +104,26 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
     pad_r0, pad_r1 = v["pad_groove.inner_diameter"] / 2, v["pad_groove.outer_diameter"] / 2
     pad0 = corner(profile, (wall_z, pad_r0))
     pad1 = corner(profile, (v["pad_groove.bottom_z"], pad_r0))
-    an.linear(("pad_groove.depth",), pad0, pad1, base=(wall_z, (pad_r0 + pad_r1) / 2))
+    # the groove is narrower than its text: the text goes out left of the wall face, in open paper
+    # between the groove's two diameter extension lines
+    mid_r = (pad_r0 + pad_r1) / 2
+    an.linear(("pad_groove.depth",), pad0, pad1, base=(wall_z, mid_r), extra={"dimtad": 0},
+              text_at=(wall_z - (FIRST / 2 + 1.0) * k, mid_r))
     # the thread on the mirror half, where no other diameter runs
     r_t = v["axle_bore.major_diameter"] / 2
     z0 = v["bearing_seat.post_face_z"]
-    an.half_diameter(("axle_bore.major_diameter",), (z0, r_t), z_min - FIRST * k,
+    an.half_diameter(("axle_bore.major_diameter",), (z0, r_t), thread_lane_z(resolved, scale),
                      text="M<>" + thread_callout(resolved)[len(f"M{v['axle_bore.major_diameter']:g}"):],
                      lower=True, text_r=-(r_t + (3.0 + 14.0) * k))
     end = z0 + v["axle_bore.thread_depth"]
-    an.linear(("axle_bore.thread_depth",), (z0, -r_t), (end, -r_t), base=(z0, -0.5 * v["axle_bore.tap_drill"] + 0.2),
-              text="<>", text_at=((z0 + end) / 2, -0.5 * v["axle_bore.tap_drill"] + 0.2 + 2.6 * k))
+    # inside the tap drill, hugging its wall so the text stays clear of the axis; the text sits right
+    # of the seat detail's marker frame, whose lower edge runs along the axis
+    line_r = -0.5 * v["axle_bore.tap_drill"] + 0.3 * k
+    from .detail import detail_region
+
+    text_z = max((z0 + end) / 2, detail_region(resolved)[2] + 4.0 * k)
+    an.linear(("axle_bore.thread_depth",), (z0, -r_t), (end, -r_t), base=(z0, line_r),
+              text="<>", text_at=(text_z, line_r + (0.6 + TEXT_HEIGHT / 2) * k))
     # axial positions from datum face B (the outer face), stacked below the mirror half
     zb = datum_face_z(resolved)
     b = on_face(profile, zb)
@@ -114,7 +134,12 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
         (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, v["bearing_seat.post_face_z"], prefer="min")),
     ]
     for i, (keys, p) in enumerate(rows):
-        an.linear(keys, (p[0], -p[1]), b_low, base=(zb, -R - (FIRST + LANE * i) * k))
+        low = (p[0], -p[1])
+        # an internal face (the seat face) is seen through the section: its extension line starts
+        # where the projection leaves the material, so it never runs over hatching
+        inside = _material_below(profile, low)
+        extra = {"dimexo": inside * scale + 1.0} if inside > 0 else None
+        an.linear(keys, low, b_low, base=(zb, -R - (FIRST + LANE * i) * k), extra=extra)
     # rim band and cup above the upper half
     band0 = corner(profile, (v["catch_zone.end_z"], R))
     band1 = corner(profile, (v["rim.face_z"], R))
@@ -131,10 +156,12 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
     tip = corner(profile, (v["catch_zone.end_z"], R))
     up = (start[0], start[1] + 10.0)
     an.angle(("catch_zone.angle",), start, tip, up, radius=0.55 * math.dist(start, tip))
-    # cup floor cone from the gap plane
+    # cup floor cone from the gap plane: measured at the cup's corner, between the floor and the
+    # plane through that corner, so the arc lies in the open cup and not over the hatched wall
     fl0 = floor
     fl1 = cup0
-    an.angle(("rim.floor_angle",), fl0, fl1, (fl0[0], fl0[1] + 10.0), radius=0.45 * math.dist(fl0, fl1))
+    rad = 0.45 * math.dist(fl0, fl1)
+    an.angle(("rim.floor_angle",), fl1, fl0, (fl1[0], fl1[1] - rad), radius=rad)
     # edge radii, text out in the air beside each corner
     for key, direction in (("rim.edge_radius", 45.0), ("rim.lip_radius", -20.0), ("catch_zone.edge_radius", 100.0),
                            ("rim.cup_radius", 200.0)):
@@ -144,6 +171,19 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
         out = arc.radius + 10.0 * k
         at = (arc.center[0] + out * math.cos(math.radians(ang)), arc.center[1] + out * math.sin(math.radians(ang)))
         an.radius((key,), arc.center, arc.radius, ang, at)
+
+
+def _material_below(profile: Profile, p: tuple[float, float]) -> float:
+    """How far (model mm) a projection from mirror-half point ``p`` straight away from the axis runs
+    until it leaves the material for good (0 if it starts in the open)."""
+    import shapely
+
+    z, r = p[0], -p[1]
+    ray = shapely.LineString([(z, r + 1e-6), (z, profile.bounds()[3] + 1.0)])
+    cut = ray.intersection(profile.polygon())
+    if cut.is_empty or cut.length < 1e-9:
+        return 0.0
+    return max(y for g in getattr(cut, "geoms", [cut]) for _, y in g.coords) - r
 
 
 def _arc_for(profile: Profile, radius: float, key: str, resolved: Resolved) -> Arc:

@@ -4,17 +4,18 @@ from __future__ import annotations
 
 import math
 
+from ezdxf import bbox
 from ezdxf.document import Drawing
 from ezdxf.layouts import BaseLayout
 
 from ..builder import Resolved
 from . import layers
-from .detail import DETAIL_BLOCK, build_detail, detail_region, detail_scale
+from .detail import DETAIL_BLOCK, build_detail, detail_lanes, detail_region, detail_scale
 from .layers import TEXT_HEIGHT, TEXT_STYLE
 from .mtext import escape
 from .notes import SheetData, caution_lines, fit_lines, shop_lines
 from .outline import new_document
-from .section import dimension_section, draw_section
+from .section import dimension_section, draw_section, thread_lane_z
 from .titleblock import TITLE_WIDTH, draw_revision_block, draw_title_block, title_cells
 
 __all__ = ["sheet_document", "SheetData", "PAPER", "LAYOUT_NAME", "view_scale"]
@@ -23,8 +24,13 @@ PAPER = (420.0, 297.0)  # ISO 216 A3 landscape
 FRAME = (20.0, 10.0, 410.0, 287.0)  # ISO 5457: 20 mm filing margin on the left, 10 mm elsewhere
 LAYOUT_NAME = "sheet"
 MAIN_BOX = (20.0, 60.0, 195.0, 287.0)  # where the main view and its dimensions go
-DETAIL_BOX = (198.0, 100.0, 300.0, 282.0)
-NOTES_X = 302.0
+RIGHT_X = 198.0  # left edge of the detail and of the note block
+DETAIL_TOP = 283.0
+DETAIL_FIT = (58.0, 122.0)  # paper room the seat region itself must fit at the detail scale (mm)
+GAP = 4.0  # clear space between blocks on the sheet (mm)
+PAD = 3.0  # clear space inside the detail frame (mm)
+RUNOUT_H = 7.0  # height of a geometric tolerance frame (mm)
+RUNOUT_W = (8.0, 16.0, 8.0)  # its compartments: symbol, value, datum
 PREFERRED = (5.0, 4.0, 3.0, 2.5, 2.0, 1.0, 0.5)  # ISO 5455 scales
 
 
@@ -47,13 +53,13 @@ def sheet_document(resolved: Resolved, data: SheetData) -> Drawing:
     d = resolved.design
     doc = new_document(d["design"]["date"], f"{d.name}-{d.revision}:sheet")
     layers.setup(doc)
-    doc.header["$PSLTSCALE"] = 0
+    doc.header["$PSLTSCALE"] = 1  # line type patterns in paper millimetres in every viewport
     scale = view_scale(resolved)
     msp = doc.modelspace()
     draw_section(msp, resolved, scale)
     dimension_section(msp, resolved, scale)
     region = detail_region(resolved)
-    dscale = detail_scale(region, DETAIL_BOX[2] - DETAIL_BOX[0] - 44, DETAIL_BOX[3] - DETAIL_BOX[1] - 60)
+    dscale = detail_scale(region, *DETAIL_FIT)
     build_detail(doc, resolved, dscale)
     psp = doc.layouts.new(LAYOUT_NAME)
     psp.page_setup(size=PAPER, margins=(0, 0, 0, 0), units="mm")
@@ -62,12 +68,14 @@ def sheet_document(resolved: Resolved, data: SheetData) -> Drawing:
             psp.delete_entity(e)
     _frame(psp)
     centre, mcentre = _main_view(psp, resolved, scale)
-    _detail(psp, resolved, region, dscale, centre, mcentre, scale)
-    _runout(psp, resolved, data, centre, mcentre, scale, region, dscale)
+    box, insert = _detail(psp, doc, region, dscale, centre, mcentre, scale)
+    _runout(psp, resolved, data, centre, mcentre, scale, box, insert, dscale)
     cells = title_cells(resolved, data, f"{_scale_text(scale)}, detail C {_scale_text(dscale)}")
     draw_title_block(psp, (FRAME[2] - TITLE_WIDTH, FRAME[1]), cells)
-    rev_h = draw_revision_block(psp, (NOTES_X, FRAME[3]), FRAME[2] - NOTES_X, resolved)
-    _notes(psp, resolved, data, FRAME[3] - rev_h - 4)
+    rev_x = box[2] + GAP
+    rev_h = draw_revision_block(psp, (rev_x, FRAME[3]), FRAME[2] - rev_x, resolved)
+    cautions_bottom = _cautions(psp, (rev_x, FRAME[3] - rev_h - GAP), FRAME[2] - rev_x)
+    _notes(psp, resolved, data, min(box[1], cautions_bottom) - GAP)
     return doc
 
 
@@ -109,43 +117,93 @@ def _label(psp: BaseLayout, at: tuple[float, float], text: str, height: float = 
     mt.dxf.insert = at
 
 
-def _detail(psp: BaseLayout, resolved: Resolved, region, dscale: float, centre, mcentre, scale: float) -> None:  # type: ignore[no-untyped-def]
-    x0, y0, x1, y1 = DETAIL_BOX
-    w_r, h_r = (region[2] - region[0]) * dscale, (region[3] - region[1]) * dscale
-    ins_x = x1 - 4.0 - w_r - region[0] * dscale
-    ins_y = y0 + 40.0 - region[1] * dscale
-    psp.add_blockref(DETAIL_BLOCK, (ins_x, ins_y), dxfattribs={"xscale": dscale, "yscale": dscale, "layer": "detail"})
+def _detail(psp: BaseLayout, doc: Drawing, region, dscale: float, centre, mcentre,  # type: ignore[no-untyped-def]
+            scale: float) -> tuple[tuple[float, float, float, float], tuple[float, float]]:
+    """Insert the detail block in a frame sized to its contents (dimensions included) under the
+    sheet's top edge, label below; returns the frame (x0, y0, x1, y1) and the insertion point."""
+    bx0, by0, bx1, by1 = _extents(doc.blocks.get(DETAIL_BLOCK))
+    # room above the wall bore for the seat's runout frame (see _runout)
+    top = max(by1 * dscale, _seat_frame_y(region, dscale) + RUNOUT_H)
+    label = TEXT_HEIGHT + 2 * PAD
+    x0 = RIGHT_X
+    x1 = x0 + PAD + (bx1 - bx0) * dscale + PAD
+    y1 = DETAIL_TOP
+    y0 = y1 - PAD - (top - by0 * dscale) - label
+    insert = (x0 + PAD - bx0 * dscale, y0 + label - by0 * dscale)
+    psp.add_blockref(DETAIL_BLOCK, insert, dxfattribs={"xscale": dscale, "yscale": dscale, "layer": "detail"})
     psp.add_lwpolyline([(x0, y0), (x1, y0), (x1, y1), (x0, y1)], close=True, dxfattribs={"layer": "detail"})
-    _label(psp, ((x0 + x1) / 2, y0 + 8.0), f"DETAIL C ({_scale_text(dscale)})")
+    _label(psp, ((x0 + x1) / 2, y0 + PAD + TEXT_HEIGHT), f"DETAIL C ({_scale_text(dscale)})")
+    # the axis as a paper-space centre line over the insert, so its dashes are paper millimetres
+    psp.add_line((insert[0] + region[0] * dscale, insert[1]), (insert[0] + region[2] * dscale, insert[1]),
+                 dxfattribs={"layer": "centre"})
     # mark the detail's region on the main view (ISO 128-3 style: narrow frame and letter)
     a = to_paper((region[0], region[1]), centre, mcentre, scale)
     b = to_paper((region[2], region[3]), centre, mcentre, scale)
     psp.add_lwpolyline([a, (b[0], a[1]), b, (a[0], b[1])], close=True, dxfattribs={"layer": "detail"})
-    _label(psp, (b[0] + 2.5, b[1] + 5.0), "C")
+    # the letter left of the frame, between it and the nearest diameter line, in open paper
+    mt = psp.add_mtext("C", dxfattribs={"layer": "text", "style": TEXT_STYLE, "char_height": TEXT_HEIGHT,
+                                        "attachment_point": 6})
+    mt.dxf.insert = (a[0] - 1.5, a[1] + 0.45 * (b[1] - a[1]))
+    return (x0, y0, x1, y1), insert
+
+
+def _extents(block) -> tuple[float, float, float, float]:  # type: ignore[no-untyped-def]
+    """(x0, y0, x1, y1) of what a block shows on paper: its own entities and its dimensions' rendered
+    lines, arrows and texts (texts laid out with their font), without the definition points (a
+    half-shown diameter's mirror point is not drawn)."""
+    from ezdxf.tools.text_size import mtext_size
+
+    shown, xs, ys = [], [], []
+    for e in block:
+        for g in (e.get_geometry_block() if e.dxftype() == "DIMENSION" else (e,)):
+            if g.dxftype() == "MTEXT":
+                size = mtext_size(g)
+                a = math.radians(g.get_rotation())
+                half = (size.total_width / 2 + 0.5 * g.dxf.char_height, size.total_height / 2)
+                c = g.dxf.insert  # dimension texts are middle-centred
+                for sx, sy in ((-1, -1), (1, -1), (1, 1), (-1, 1)):
+                    u, w = sx * half[0], sy * half[1]
+                    xs.append(c.x + u * math.cos(a) - w * math.sin(a))
+                    ys.append(c.y + u * math.sin(a) + w * math.cos(a))
+            elif g.dxftype() != "POINT":
+                shown.append(g)
+    ext = bbox.extents(shown)
+    xs += [ext.extmin.x, ext.extmax.x]
+    ys += [ext.extmin.y, ext.extmax.y]
+    return min(xs), min(ys), max(xs), max(ys)
+
+
+def _seat_frame_y(region, dscale: float) -> float:  # type: ignore[no-untyped-def]
+    """Height of the seat runout frame's bottom above the detail's axis (paper mm): clear above the
+    top of the seat region, where only the post length and wall offset dimensions run."""
+    return region[3] * dscale + PAD
 
 
 def _runout(psp: BaseLayout, resolved: Resolved, data: SheetData, centre, mcentre, scale: float,  # type: ignore[no-untyped-def]
-            region, dscale: float) -> None:
+            box, insert, dscale: float) -> None:
     """Datum A on the axle bore's axis and circular-runout frames for the rim and the seat."""
     v = resolved.values
-    # datum A: attached to the thread's diameter dimension (its axis is the datum)
+    # datum A: on the thread's diameter dimension line, at its arrow (its axis is the datum)
     r_t = v["axle_bore.major_diameter"] / 2
-    z0 = v["bearing_seat.post_face_z"]
-    z_min = resolved.profile.bounds()[0]  # type: ignore[union-attr]
-    tip = to_paper((z_min - 9.0 / scale, -r_t), centre, mcentre, scale)
+    tip = to_paper((thread_lane_z(resolved, scale), -r_t), centre, mcentre, scale)
     _datum(psp, tip, "A")
-    del z0
-    # runout of the rim: leader to the outer diameter's band
+    # runout of the rim: leader to the outer diameter's band, a quarter in from the catch zone so it
+    # clears the band width's text in the middle
     R = v["rim.diameter"] / 2
-    od = to_paper(((v["catch_zone.end_z"] + v["rim.face_z"]) / 2, R), centre, mcentre, scale)
+    z_od = v["catch_zone.end_z"] + 0.25 * (v["rim.face_z"] - v["catch_zone.end_z"])
+    od = to_paper((z_od, R), centre, mcentre, scale)
     _runout_frame(psp, (od[0] - 40.0, od[1] + 20.0), od, data.runout_mm)
-    # runout of the seat: on the detail, leader to the seat face
-    x1, y0 = DETAIL_BOX[2], DETAIL_BOX[1]
-    ins_x = x1 - 4.0 - (region[2] - region[0]) * dscale - region[0] * dscale
-    ins_y = y0 + 40.0 - region[1] * dscale
-    post_z = (v["bearing_seat.post_face_z"] + v["bearing_seat.seat_face_z"]) / 2
-    seat = (ins_x + post_z * dscale, ins_y + v["bearing_seat.post_diameter"] / 2 * dscale)
-    _runout_frame(psp, (DETAIL_BOX[0] + 50.0, DETAIL_BOX[3] - 10.0), seat, data.runout_mm)
+    # runout of the seat, on the detail: the arrow lands on the post's surface line extended to the
+    # left of the post face (ISO 1101 allows the extension line), between the part and the post's
+    # diameter line, so the leader runs through open paper above the seat, clear of every dimension
+    z_post = v["bearing_seat.post_face_z"]
+    lane = detail_lanes(resolved, dscale)[0]
+    z_arrow = z_post - 0.45 * (z_post - lane)
+    target = (insert[0] + z_arrow * dscale, insert[1] + v["bearing_seat.post_diameter"] / 2 * dscale)
+    y = insert[1] + _seat_frame_y(detail_region(resolved), dscale)
+    width = sum(RUNOUT_W)
+    x = max(box[0] + PAD, target[0] - 6.0 - width)
+    _runout_frame(psp, (x, y), target, data.runout_mm)
 
 
 def _datum(psp: BaseLayout, tip: tuple[float, float], letter: str) -> None:
@@ -154,12 +212,12 @@ def _datum(psp: BaseLayout, tip: tuple[float, float], letter: str) -> None:
     s = 3.0
     tri = psp.add_solid([(x - s / 2, y), (x + s / 2, y), (x, y - s * 0.87)], dxfattribs={"layer": "dimension"})
     del tri
-    # the leader bends off to the right so it clears the dimension text beside the line
+    # the leader bends off to the left, away from the thread's text beside the line and the post face
     b = 7.0
     knee = (x, y - 6.0)
     psp.add_line((x, y - s * 0.87), knee, dxfattribs={"layer": "dimension"})
-    psp.add_line(knee, (x + 5.0, knee[1]), dxfattribs={"layer": "dimension"})
-    bx = x + 5.0
+    psp.add_line(knee, (x - 5.0, knee[1]), dxfattribs={"layer": "dimension"})
+    bx = x - 5.0 - b
     psp.add_lwpolyline([(bx, knee[1] - b / 2), (bx + b, knee[1] - b / 2), (bx + b, knee[1] + b / 2), (bx, knee[1] + b / 2)],
                        close=True, dxfattribs={"layer": "dimension"})
     mt = psp.add_mtext(letter, dxfattribs={"layer": "text", "style": TEXT_STYLE, "char_height": TEXT_HEIGHT,
@@ -170,8 +228,8 @@ def _datum(psp: BaseLayout, tip: tuple[float, float], letter: str) -> None:
 def _runout_frame(psp: BaseLayout, at: tuple[float, float], target: tuple[float, float], value: float) -> None:
     """A geometric tolerance frame: circular-runout symbol | value | A, with a leader to ``target``."""
     x, y = at
-    h = 7.0
-    widths = (8.0, 16.0, 8.0)
+    h = RUNOUT_H
+    widths = RUNOUT_W
     xs = [x]
     for w in widths:
         xs.append(xs[-1] + w)
@@ -201,11 +259,23 @@ def _runout_frame(psp: BaseLayout, at: tuple[float, float], target: tuple[float,
 
 
 def _notes(psp: BaseLayout, resolved: Resolved, data: SheetData, top: float) -> None:
-    """The tolerance note block and the cautions, in one column right of the detail."""
+    """The tolerance note block (fits, then shop notes), the full width right of the main view."""
     parts = ["{\\LNOTES}"]
     parts += ["{\\LFits (finished sizes)}"] + [escape(s) for s in fit_lines(resolved)]
     parts += ["{\\LShop}"] + [escape(s) for s in shop_lines(resolved, data)]
-    parts += ["{\\LCautions}"] + [escape(s) for s in caution_lines()]
-    mt = psp.add_mtext("\\P".join(parts), dxfattribs={"layer": "text", "style": TEXT_STYLE, "char_height": 2.5,
-                                                      "attachment_point": 1, "width": FRAME[2] - NOTES_X - 3.0})
-    mt.dxf.insert = (NOTES_X + 1.5, top)
+    mt = psp.add_mtext("\\P".join(parts), dxfattribs={"layer": "text", "style": TEXT_STYLE,
+                                                      "char_height": TEXT_HEIGHT, "attachment_point": 1,
+                                                      "width": FRAME[2] - RIGHT_X - 3.0})
+    mt.dxf.insert = (RIGHT_X + 1.5, top)
+
+
+def _cautions(psp: BaseLayout, top_left: tuple[float, float], width: float) -> float:
+    """The cautions under the revision block; returns the y of their last line's foot."""
+    from ezdxf.tools.text_size import mtext_size
+
+    parts = ["{\\LCAUTIONS}"] + [escape(s) for s in caution_lines()]
+    mt = psp.add_mtext("\\P".join(parts), dxfattribs={"layer": "text", "style": TEXT_STYLE,
+                                                      "char_height": TEXT_HEIGHT, "attachment_point": 1,
+                                                      "width": width - 3.0})
+    mt.dxf.insert = (top_left[0] + 1.5, top_left[1])
+    return top_left[1] - mtext_size(mt).total_height

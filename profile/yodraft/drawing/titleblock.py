@@ -15,9 +15,10 @@ from .notes import SheetData
 __all__ = ["Cell", "title_cells", "draw_title_block", "draw_revision_block", "draw_projection_symbol",
            "LABEL_HEIGHT", "TITLE_WIDTH", "ROW"]
 
-LABEL_HEIGHT = 2.0
+LABEL_HEIGHT = TEXT_HEIGHT  # every text on the sheet is ISO 3098-1 size 3.5
 TITLE_WIDTH = 180.0  # ISO 7200 largest width
-ROW = 11.0
+ROW = 12.0  # a 3.5 mm label over a 3.5 mm value with clear space between
+REV_COLUMNS = (0.0, 12.0, 40.0)  # letter, date, description (mm from the block's left edge)
 
 
 @dataclass(frozen=True)
@@ -32,25 +33,26 @@ class Cell:
 
 
 def title_cells(resolved: Resolved, data: SheetData, scale_text: str) -> list[Cell]:
-    """The fields, laid out in four rows of a 180 mm block."""
+    """The fields, laid out in four rows of a 180 mm block; each column is wide enough for its
+    label and value at 3.5 mm."""
     d = resolved.design["design"]
     shop = resolved.design["shop"]
     return [
         Cell("Title", d["title"] or resolved.design.name, 0, 120, 3),
         Cell("Identification number", d["identification"] or resolved.design.name, 120, 60, 3),
         Cell("Legal owner", d["owner"], 0, 60, 2),
-        Cell("Document type", "Detail drawing", 60, 50, 2),
-        Cell("Revision", resolved.design.revision, 110, 35, 2),
-        Cell("Sheet", "1/1", 145, 35, 2),
-        Cell("Created by", d["creator"], 0, 45, 1),
-        Cell("Approved by", d["approver"], 45, 45, 1),
-        Cell("Date of issue", d["date"], 90, 40, 1),
-        Cell("Material", resolved["material.name"], 130, 50, 1),
-        Cell("Mass (one half)", f"{data.half_mass_g:.1f} g", 0, 35, 0),
-        Cell("Scale", scale_text, 35, 45, 0),
-        Cell("Units", "mm", 80, 20, 0),
-        Cell("General tolerance", shop["general_tolerance"], 100, 55, 0),
-        Cell("Projection", "", 155, 25, 0),
+        Cell("Document type", "Detail drawing", 60, 45, 2),
+        Cell("Revision", resolved.design.revision, 105, 25, 2),
+        Cell("Sheet", "1/1", 130, 20, 2),
+        Cell("Units", "mm", 150, 30, 2),
+        Cell("Created by", d["creator"], 0, 40, 1),
+        Cell("Approved by", d["approver"], 40, 40, 1),
+        Cell("Date of issue", d["date"], 80, 35, 1),
+        Cell("Material", resolved["material.name"], 115, 65, 1),
+        Cell("Mass (one half)", f"{data.half_mass_g:.1f} g", 0, 40, 0),
+        Cell("Scale", scale_text, 40, 50, 0),
+        Cell("General tolerance", shop["general_tolerance"], 90, 50, 0),
+        Cell("Projection", "", 140, 40, 0),
     ]
 
 
@@ -102,19 +104,19 @@ def draw_revision_block(layout: BaseLayout, top_left: tuple[float, float], width
     """Revision rows (letter, date, what changed) under a header; returns the block height."""
     x0, y_top = top_left
     rows = list(resolved.design.revisions) or []
-    cols = (0.0, 14.0, 40.0)
+    cols = REV_COLUMNS
     height = ROW * (1 + max(1, len(rows)))
     layout.add_lwpolyline([(x0, y_top), (x0 + width, y_top), (x0 + width, y_top - height), (x0, y_top - height)],
                           close=True, dxfattribs={"layer": "frame"})
     for i, label in enumerate(("Rev.", "Date", "Description")):
-        _text(layout, label, (x0 + cols[i] + 1.0, y_top - ROW + 3.0), LABEL_HEIGHT + 0.5, attach=7)
+        _text(layout, label, (x0 + cols[i] + 1.0, y_top - ROW + 3.0), LABEL_HEIGHT, attach=7)
     for c in cols[1:]:
         layout.add_line((x0 + c, y_top), (x0 + c, y_top - height), dxfattribs={"layer": "frame", "lineweight": 25})
     for j in range(1, 1 + max(1, len(rows))):
         layout.add_line((x0, y_top - j * ROW), (x0 + width, y_top - j * ROW), dxfattribs={"layer": "frame", "lineweight": 25})
     for j, rev in enumerate(rows):
-        y = y_top - (j + 2) * ROW + 3.0
-        _text(layout, escape(rev.letter), (x0 + cols[0] + 1.5, y), TEXT_HEIGHT)
-        _text(layout, escape(rev.date), (x0 + cols[1] + 1.0, y), TEXT_HEIGHT - 0.5)
-        _text(layout, escape(rev.note), (x0 + cols[2] + 1.0, y), TEXT_HEIGHT - 0.5, width=width - cols[2] - 2)
+        y = y_top - (j + 1) * ROW - 1.5  # top of the row's text: a long note wraps downward inside the row
+        _text(layout, escape(rev.letter), (x0 + cols[0] + 1.5, y), TEXT_HEIGHT, attach=1)
+        _text(layout, escape(rev.date), (x0 + cols[1] + 1.0, y), TEXT_HEIGHT, attach=1)
+        _text(layout, escape(rev.note), (x0 + cols[2] + 1.0, y), TEXT_HEIGHT, width=width - cols[2] - 2, attach=1)
     return height
