@@ -54,8 +54,8 @@ def small_parts(resolved: Resolved) -> tuple[list[PointPart], float]:
 def analyse(resolved: Resolved) -> Analysis:
     """Mass, inertia, spin metrics and balance of ``resolved`` (its profile must exist)."""
     profile = resolved.profile
-    if profile is None:
-        raise ValueError("the design has no closed profile to analyse")
+    if profile is None or not resolved.can_analyse:
+        raise ValueError("the design has no valid closed profile to analyse (see its loop and axle checks)")
     v = resolved.values
     a = resolved.design["analysis"]
     density = v["material.density_g_cm3"]

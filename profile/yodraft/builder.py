@@ -8,7 +8,7 @@ from typing import Any
 
 from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
 from .catalog.materials import MATERIALS, lookup_material
-from .checks import Check, loop_checks, radial_order, wall_checks
+from .checks import ANALYSIS_PREREQUISITES, Check, loop_checks, radial_order, wall_checks
 from .design import Design
 from .errors import DesignInputError
 from .features import FEATURES, LOOP_ORDER
@@ -33,6 +33,11 @@ class Resolved:
     @property
     def ok(self) -> bool:
         return all(c.ok for c in self.checks)
+
+    @property
+    def can_analyse(self) -> bool:
+        """Whether the half's mass can be integrated: its loop exists and passes the prerequisite checks."""
+        return self.profile is not None and all(c.ok for c in self.checks if c.name in ANALYSIS_PREREQUISITES)
 
     @property
     def failed(self) -> tuple[Check, ...]:

@@ -91,6 +91,10 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
     return out
 
 
+#: the checks a half must pass before its mass can be integrated (one simple loop, none of it below the axis,
+#: an axle of positive length)
+ANALYSIS_PREREQUISITES = frozenset({"closed simple loop", "above the spin axis", "axle reaches both halves"})
+
 #: chord error of the flattened loop whose topology is checked: far below any wall the rules allow
 LOOP_CHECK_TOLERANCE = 0.02
 
@@ -101,7 +105,7 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
     poly = profile.polygon(LOOP_CHECK_TOLERANCE)
     simple = poly.exterior.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
-    z_min, _, z_max, r_max = profile.bounds()
+    z_min, r_min, z_max, r_max = profile.bounds()
     out = [
         check("closed simple loop", "profile.loop", simple,
               "the half-profile is one simple loop" if simple else "the half-profile crosses itself"),
@@ -110,6 +114,7 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
         check("inside the envelope width", "rim.overall_width", 2 * z_max <= envelope["width"] + 1e-9,
               f"overall width {2 * z_max:.3f} mm, envelope {envelope['width']:.3f} mm"),
         check("clear of the gap plane", "bearing_seat.spacing", z_min >= -1e-9, f"nearest face at z = {z_min:.3f} mm"),
+        check("above the spin axis", "profile.loop", r_min >= -1e-9, f"lowest point at r = {r_min:.3f} mm"),
     ]
     out += [check("radius fits its edges", owner, False, f"{owner} is too large for the edges it joins")
             for owner in misfits]

@@ -60,7 +60,7 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
             "masked": bool(d["shop"]["mask_seat"]),
         },
         "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
-        **(_mass_sections(resolved) if resolved.profile is not None else {}),
+        **(_mass_sections(resolved) if resolved.can_analyse else {}),
         **({"features": resolved_dimensions(resolved),
             "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
     }

@@ -11,7 +11,10 @@ def escape(text: str) -> str:
     'a\\\\b \\{c\\}'
     >>> escape("two\nlines")
     'two\\Plines'
+    >>> escape("g/cm^3")
+    'g/cm^ 3'
     """
     out = text.replace("\\", "\\\\").replace("{", "\\{").replace("}", "\\}")
+    out = out.replace("^", "^ ")  # "^J" would be a caret-coded control character; "^ " is a literal caret
     out = out.replace("\r\n", "\n").replace("\r", "\n")
     return out.replace("\n", "\\P")

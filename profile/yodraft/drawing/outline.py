@@ -31,6 +31,8 @@ def new_document(date: str, identity: str) -> Drawing:
 
     def fixed_metadata() -> None:
         update()
+        # ezdxf adds a CLASS for each entity type in use from a set, whose order follows the hash seed
+        doc.classes.classes = dict(sorted(doc.classes.classes.items()))
         for var in ("$TDCREATE", "$TDUCREATE", "$TDUPDATE", "$TDUUPDATE"):
             doc.header[var] = stamp
         doc.header["$TDINDWG"] = 0.0

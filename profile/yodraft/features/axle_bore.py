@@ -38,6 +38,8 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         check("thread engagement", f"{NAME}.thread_depth", depth >= need - 1e-9,
               f"full thread {depth:.2f} mm, needs at least {need:.2f} mm ({factor:g} × Ø{thread.major_mm:g} in "
               f"{ctx['material.name']})"),
+        check("axle reaches both halves", f"{NAME}.thread_depth", depth > thread.pitch_mm,
+              f"full thread {depth:.2f} mm; the axle stops a pitch ({thread.pitch_mm:g} mm) short of it"),
         check("drill deeper than thread", f"{NAME}.drill_depth", drill >= depth + 2 * thread.pitch_mm - 1e-9,
               f"drill {drill:.2f} mm, thread {depth:.2f} mm (at least two pitches of run-out)"),
     )
