@@ -193,3 +193,20 @@ def test_output_path_refuses_names_that_leave_the_folder(bad: str, tmp_path: Pat
 def test_a_design_name_with_path_parts_never_escapes(name: str) -> None:
     stem = safe_stem(name, "A")
     assert "/" not in stem and "\\" not in stem and "\x00" not in stem and not stem.startswith(".")
+
+
+def test_a_write_that_fails_on_one_file_changes_none(tmp_path: Path) -> None:
+    # regression: files were renamed one by one, so a folder standing under the preview's name left the
+    # sheet already replaced; now every file is staged first and none is renamed unless all were staged
+    from yodraft.cli import main as cli_main
+
+    template = Path(__file__).resolve().parents[1] / "templates" / "string-trick.toml"
+    out = tmp_path / "out"
+    assert cli_main(["build", str(template), "-o", str(out)]) == 0
+    sheet = out / "larchmere-ls56-A.dxf"
+    sheet.write_bytes(b"old sheet")
+    (out / "larchmere-ls56-A.svg").unlink()
+    (out / "larchmere-ls56-A.svg").mkdir()
+    assert cli_main(["build", str(template), "-o", str(out), "--force"]) == 2
+    assert sheet.read_bytes() == b"old sheet"
+    assert not [p for p in out.iterdir() if p.name.endswith(".part")]

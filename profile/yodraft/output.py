@@ -9,6 +9,7 @@ from pathlib import Path
 from typing import TYPE_CHECKING
 
 from . import revision
+from .errors import DesignInputError
 
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
@@ -17,35 +18,49 @@ __all__ = ["write_atomic", "safe_stem", "output_path", "prepare_directory", "bui
 
 
 def write_atomic(path: Path, data: bytes) -> None:
-    """Write ``data`` to ``path`` so that a reader sees the old file or the new one, never half of one.
+    """Write ``data`` to ``path`` so that a reader sees the old file or the new one, never half of one."""
+    write_files({Path(path): data})
 
-    The data goes to a hidden temporary file in the same folder, is flushed to disk and
-    then renamed over ``path``. A name that cannot be written (a folder stands there, the
-    disk is full) is a DesignInputError naming the file; the old file is left as it was.
+
+def write_files(files: "dict[Path, bytes]") -> None:
+    """Write several files as one step: every one is staged in a hidden temporary file in its
+    folder and flushed to disk before any is renamed into place, so a failure (a folder stands
+    under a name, the disk is full) leaves every old file as it was.
+
+    A name that cannot be written is a DesignInputError naming the file.
     """
-    from .errors import DesignInputError
-
-    path = Path(path)
+    staged: list[tuple[str, Path]] = []
     try:
-        fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".part", dir=path.parent)
-    except OSError as exc:
-        raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})", "a writable output folder") from None
+        for path, data in files.items():
+            staged.append((_stage(path, data), path))
+        for tmp, path in staged:
+            os.replace(tmp, path)
+    except BaseException as exc:
+        for tmp, _ in staged:
+            try:
+                os.unlink(tmp)
+            except FileNotFoundError:
+                pass
+        if isinstance(exc, OSError):
+            name = exc.filename if isinstance(exc.filename, str) else str(next(iter(files)))
+            raise DesignInputError(name, "", f"cannot be written ({exc.strerror})",
+                                   "a file name free of folders in a writable output folder") from None
+        raise
+
+
+def _stage(path: Path, data: bytes) -> str:
+    """``data`` in a hidden temporary file beside ``path``, on disk; returns its name."""
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".part", dir=path.parent)
     try:
         os.fchmod(fd, _file_mode(path))  # mkstemp makes the file private (0600); a drawing is for sharing
         with os.fdopen(fd, "wb") as handle:
             handle.write(data)
             handle.flush()
             os.fsync(handle.fileno())
-        os.replace(tmp, path)
-    except BaseException as exc:
-        try:
-            os.unlink(tmp)
-        except FileNotFoundError:
-            pass
-        if isinstance(exc, OSError):
-            raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})",
-                                   "a file name free of folders in a writable output folder") from None
+    except BaseException:
+        os.unlink(tmp)
         raise
+    return tmp
 
 
 #: longest stem, leaving room for suffixes such as ".sheet.dxf" under the usual 255-byte name limit
@@ -97,7 +112,6 @@ def output_path(directory: Path, filename: str) -> Path:
 
 def prepare_directory(directory: Path) -> Path:
     """The output folder, created if needed; DesignInputError if it cannot be written."""
-    from .errors import DesignInputError
 
     directory = Path(directory)
     if directory.exists() and not directory.is_dir():
@@ -114,8 +128,8 @@ def prepare_directory(directory: Path) -> Path:
 def build_outputs(design_path: Path, directory: Path, force: bool = False) -> tuple[list[Path], "Resolved"]:
     """Load, resolve and check a design; when every check passes, write its drawings into ``directory``.
 
-    Every file is rendered in memory first, then each is written atomically, so a
-    failed check or a bad input leaves the folder as it was. A drawing of the same
+    Every file is rendered in memory first, then all are written as one atomic step, so
+    a failed check, a bad input or a failed write leaves the folder as it was. A drawing of the same
     revision with other geometry is not overwritten unless ``force`` (see yodraft.revision).
     """
     from .builder import build
@@ -129,9 +143,6 @@ def build_outputs(design_path: Path, directory: Path, force: bool = False) -> tu
     files = render_files(resolved, stem)
     directory = prepare_directory(directory)
     files.update(revision.guard(directory, stem, resolved, force))
-    written = []
-    for name, data in files.items():
-        path = output_path(directory, name)
-        write_atomic(path, data)
-        written.append(path)
-    return written, resolved
+    targets = {output_path(directory, name): data for name, data in files.items()}
+    write_files(targets)
+    return list(targets), resolved
