@@ -1,6 +1,7 @@
 """Writing outputs: atomically (temp file in the same folder, then rename) and inside the output folder."""
 from __future__ import annotations
 
+import errno
 import os
 import re
 import stat
@@ -32,6 +33,8 @@ def write_files(files: "dict[Path, bytes]") -> None:
     staged: list[tuple[str, Path]] = []
     try:
         for path, data in files.items():
+            if path.is_dir():  # the one way a rename in the same folder can still fail
+                raise IsADirectoryError(errno.EISDIR, os.strerror(errno.EISDIR), str(path))
             staged.append((_stage(path, data), path))
         for tmp, path in staged:
             os.replace(tmp, path)
