@@ -239,9 +239,9 @@ def _solve(args: argparse.Namespace) -> int:
         print(f"yodraft: {args.design}: {exc}", file=sys.stderr)
         return 1
     if not result.resolved.ok:
-        print("\n".join(failed_lines(result.resolved)), file=sys.stderr)
-        print(f"yodraft: {args.design}: the solved design breaks the checks above; nothing written", file=sys.stderr)
-        return 1
+        print("\n".join(failed_lines(result.resolved)))
+        print(f"the solved design ({quantity_text(result.value, spec)}) breaks these checks; nothing written")
+        raise CheckFailure(str(args.design), result.resolved.failed)
     source = Path(args.design)
     revision = bump_revision(design.revision)
     out = Path(args.out) if args.out else source.with_name(f"{source.stem}-{revision}.toml")
