@@ -73,3 +73,15 @@ def test_solve_gap() -> None:
     result = solve(design, "gap", 4.0, "features.bearing_seat.wall_offset")
     # gap = bearing width − 2 × offset → offset = (4.7625 − 4.0) / 2  # common practice, no published source
     assert result.value == pytest.approx((4.7625 - 4.0) / 2, abs=1e-5)
+
+
+def test_solve_to_a_design_that_breaks_a_check_writes_nothing(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    # a 5 mm gap is wider than the 4.7625 mm bearing: the wall offset goes negative  # common practice
+    code = main(["solve", str(source), "--target", "gap=5mm", "--vary", "features.bearing_seat.wall_offset"])
+    out, err = capsys.readouterr()
+    assert code == 1
+    assert len(err.strip().splitlines()) == 1 and "bearing_seat.wall_offset" in err
+    assert "FAILED bearing_seat.wall_offset" in out
+    assert not (tmp_path / "st-B.toml").exists()
