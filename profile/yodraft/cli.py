@@ -191,6 +191,9 @@ def _watch(args: argparse.Namespace) -> int:
     for name, value in (("--max-builds", args.max_builds), ("--timeout", args.timeout), ("--interval", args.interval)):
         if value is not None and value <= 0:
             raise DesignInputError(name, "", f"got {value}", "a positive number")
+    if not Path(args.design).is_file():
+        raise DesignInputError(args.design, "", "no such file" if not Path(args.design).exists() else "is not a file",
+                               "a design file (.toml) to watch")
     print(f"watching {args.design} (Ctrl-C to stop)", flush=True)
     try:
         for event in watch(Path(args.design), Path(args.out), interval=args.interval, max_builds=args.max_builds,
