@@ -17,6 +17,7 @@ from .notes import SheetData, caution_lines, fit_lines, shop_lines
 from .outline import new_document
 from .section import dimension_section, draw_section, thread_lane_z
 from .titleblock import TITLE_WIDTH, draw_revision_block, draw_title_block, title_cells
+from .ttf_metrics import FontMetrics, font_of_file, mtext_extent
 
 __all__ = ["sheet_document", "SheetData", "PAPER", "LAYOUT_NAME", "view_scale"]
 
@@ -121,7 +122,7 @@ def _detail(psp: BaseLayout, doc: Drawing, region, dscale: float, centre, mcentr
             scale: float) -> tuple[tuple[float, float, float, float], tuple[float, float]]:
     """Insert the detail block in a frame sized to its contents (dimensions included) under the
     sheet's top edge, label below; returns the frame (x0, y0, x1, y1) and the insertion point."""
-    bx0, by0, bx1, by1 = _extents(doc.blocks.get(DETAIL_BLOCK))
+    bx0, by0, bx1, by1 = _extents(doc, doc.blocks.get(DETAIL_BLOCK))
     # room above the wall bore for the seat's runout frame (see _runout)
     top = max(by1 * dscale, _seat_frame_y(region, dscale) + RUNOUT_H)
     label = TEXT_HEIGHT + 2 * PAD
@@ -147,19 +148,21 @@ def _detail(psp: BaseLayout, doc: Drawing, region, dscale: float, centre, mcentr
     return (x0, y0, x1, y1), insert
 
 
-def _extents(block) -> tuple[float, float, float, float]:  # type: ignore[no-untyped-def]
+def _extents(doc: Drawing, block) -> tuple[float, float, float, float]:  # type: ignore[no-untyped-def]
     """(x0, y0, x1, y1) of what a block shows on paper: its own entities and its dimensions' rendered
-    lines, arrows and texts (texts laid out with their font), without the definition points (a
+    lines, arrows and texts (texts measured with their font), without the definition points (a
     half-shown diameter's mirror point is not drawn)."""
-    from ezdxf.tools.text_size import mtext_size
-
+    fonts: dict[str, FontMetrics] = {}
     shown, xs, ys = [], [], []
     for e in block:
         for g in (e.get_geometry_block() if e.dxftype() == "DIMENSION" else (e,)):
             if g.dxftype() == "MTEXT":
-                size = mtext_size(g)
+                style = g.dxf.get("style", "Standard")
+                if style not in fonts:
+                    fonts[style] = font_of_file(doc.styles.get(style).dxf.get("font", ""))
+                width, height = mtext_extent(g.plain_text(split=True), g.dxf.char_height, fonts[style])
                 a = math.radians(g.get_rotation())
-                half = (size.total_width / 2 + 0.5 * g.dxf.char_height, size.total_height / 2)
+                half = (width / 2 + 0.5 * g.dxf.char_height, height / 2)
                 c = g.dxf.insert  # dimension texts are middle-centred
                 for sx, sy in ((-1, -1), (1, -1), (1, 1), (-1, 1)):
                     u, w = sx * half[0], sy * half[1]

@@ -9,10 +9,10 @@ Output is deterministic: fixed number formatting, entities in file order.
 """
 from __future__ import annotations
 
+import html
 import math
 from dataclasses import dataclass
 from typing import Iterable, Iterator
-from xml.sax.saxutils import escape as _xml_escape
 
 from ezdxf import path as ezpath
 from ezdxf.document import Drawing
@@ -20,12 +20,11 @@ from ezdxf.entities import DXFGraphic
 from ezdxf.math import Matrix44, Vec3
 from ezdxf.tools.text import MTextContext, MTextParser, TokenType
 
-from .ttf_metrics import FontMetrics, estimate, from_tables
+from .ttf_metrics import LINE_SPACING, FontMetrics, font_of_file
 
 __all__ = ["sheet_svg"]
 
 DEFAULT_LINEWEIGHT = 25  # 1/100 mm, used for "default" (-3) lineweights
-LINE_SPACING = 1.667  # baseline to baseline per cap height for MTEXT, "3 on 5" line spacing
 _CURVES = frozenset({"LINE", "LWPOLYLINE", "POLYLINE", "ARC", "CIRCLE", "ELLIPSE", "SPLINE"})
 
 
@@ -48,20 +47,6 @@ class _Inherit:
     lineweight: int
     linetype: str
     scale: float
-
-
-def _metrics(font_file: str) -> FontMetrics:
-    """Metrics of the text style's font as the font manager of ezdxf finds it, else an estimate."""
-    try:
-        from ezdxf.fonts import fonts
-
-        face = fonts.get_font_face(font_file)
-        ttf = fonts.font_manager.get_ttf_font(face.filename)
-        # the tables as stored in the file: a table that someone else decompiled and would
-        # compile again may be laid out differently from the stored 'loca'
-        return from_tables(lambda tag: ttf.reader[tag], face.family)
-    except Exception:  # no readable TrueType file on this machine
-        return estimate()
 
 
 @dataclass(frozen=True)
@@ -160,7 +145,7 @@ class _Writer:
         font = self._fonts.get(style_name)
         if font is None:
             style = self.doc.styles.get(style_name) if self.doc.styles.has_entry(style_name) else None
-            font = _metrics(style.dxf.get("font", "") if style is not None else "")
+            font = font_of_file(style.dxf.get("font", "") if style is not None else "")
             self._fonts[style_name] = font
         return font
 
@@ -265,7 +250,7 @@ class _Writer:
                     first = False
                 if deco:
                     attrs += f' text-decoration="{deco}"'
-                spans.append(f"<tspan{attrs}>{_xml_escape(run.text)}</tspan>")
+                spans.append(f"<tspan{attrs}>{html.escape(run.text, quote=False)}</tspan>")
         if spans:
             self.out.append(f'<text transform="{transform}" text-anchor="{anchor}" font-family="{_attr(family)}, sans-serif" '
                             'fill="#000" stroke="none" '
@@ -429,7 +414,7 @@ class _Writer:
 
 def _attr(value: str) -> str:
     """``value`` escaped for a double-quoted XML attribute."""
-    return _xml_escape(value, {'"': "&quot;"})
+    return html.escape(value, quote=False).replace('"', "&quot;")
 
 
 def _merge(line: list[_Run]) -> list[_Run]:

@@ -11,7 +11,9 @@ from bisect import bisect_left
 from dataclasses import dataclass
 from typing import Callable
 
-__all__ = ["FontMetrics", "from_tables", "estimate"]
+__all__ = ["FontMetrics", "from_tables", "estimate", "font_of_file", "mtext_extent", "LINE_SPACING"]
+
+LINE_SPACING = 1.667  # baseline to baseline per cap height for MTEXT, "3 on 5" line spacing
 
 
 @dataclass(frozen=True)
@@ -32,6 +34,32 @@ class FontMetrics:
     def width(self, text: str) -> float:
         """Advance width of ``text`` per cap height (no kerning)."""
         return sum(self.advance(ch) for ch in text)
+
+
+def font_of_file(font_file: str) -> FontMetrics:
+    """Metrics of a text style's font as ezdxf's font manager finds it on this machine, else an estimate."""
+    try:
+        from ezdxf.fonts import fonts
+
+        face = fonts.get_font_face(font_file)
+        ttf = fonts.font_manager.get_ttf_font(face.filename)
+        # the tables as stored in the file: a table that someone else decompiled and would
+        # compile again may be laid out differently from the stored 'loca'
+        return from_tables(lambda tag: ttf.reader[tag], face.family)
+    except Exception:  # no readable TrueType file on this machine
+        return estimate()
+
+
+def mtext_extent(lines: list[str], cap_height: float, font: FontMetrics) -> tuple[float, float]:
+    """(width, height) of plain text ``lines`` set at ``cap_height``: the widest line, and the
+    first cap height plus the line pitch for each further line.
+
+    >>> w, h = mtext_extent(["HH", "H"], 2.0, estimate())
+    >>> round(w / (2.0 * estimate().width("HH")), 6), round(h, 3)
+    (1.0, 5.334)
+    """
+    width = max((font.width(line) for line in lines), default=0.0) * cap_height
+    return width, cap_height * (1 + (len(lines) - 1) * LINE_SPACING)
 
 
 def estimate(family: str = "sans-serif") -> FontMetrics:
