@@ -17,7 +17,7 @@ from .notes import SheetData, caution_lines, fit_lines, shop_lines
 from .outline import new_document
 from .section import dimension_section, draw_section, thread_lane_z
 from .titleblock import TITLE_WIDTH, draw_revision_block, draw_title_block, title_cells
-from .ttf_metrics import FontMetrics, font_of_file, mtext_extent
+from .ttf_metrics import FontMetrics, font_of_file, mtext_extent, wrap
 
 __all__ = ["sheet_document", "SheetData", "PAPER", "LAYOUT_NAME", "view_scale"]
 
@@ -274,11 +274,11 @@ def _notes(psp: BaseLayout, resolved: Resolved, data: SheetData, top: float) -> 
 
 def _cautions(psp: BaseLayout, top_left: tuple[float, float], width: float) -> float:
     """The cautions under the revision block; returns the y of their last line's foot."""
-    from ezdxf.tools.text_size import mtext_size
-
     parts = ["{\\LCAUTIONS}"] + [escape(s) for s in caution_lines()]
     mt = psp.add_mtext("\\P".join(parts), dxfattribs={"layer": "text", "style": TEXT_STYLE,
                                                       "char_height": TEXT_HEIGHT, "attachment_point": 1,
                                                       "width": width - 3.0})
     mt.dxf.insert = (top_left[0] + 1.5, top_left[1])
-    return top_left[1] - mtext_size(mt).total_height
+    font = font_of_file(psp.doc.styles.get(TEXT_STYLE).dxf.get("font", ""))
+    lines = wrap(mt.plain_text(split=True), TEXT_HEIGHT, width - 3.0, font)
+    return top_left[1] - mtext_extent(lines, TEXT_HEIGHT, font)[1]

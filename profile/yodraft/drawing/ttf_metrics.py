@@ -11,7 +11,7 @@ from bisect import bisect_left
 from dataclasses import dataclass
 from typing import Callable
 
-__all__ = ["FontMetrics", "from_tables", "estimate", "font_of_file", "mtext_extent", "LINE_SPACING"]
+__all__ = ["FontMetrics", "from_tables", "estimate", "font_of_file", "mtext_extent", "wrap", "LINE_SPACING"]
 
 LINE_SPACING = 1.667  # baseline to baseline per cap height for MTEXT, "3 on 5" line spacing
 
@@ -60,6 +60,26 @@ def mtext_extent(lines: list[str], cap_height: float, font: FontMetrics) -> tupl
     """
     width = max((font.width(line) for line in lines), default=0.0) * cap_height
     return width, cap_height * (1 + (len(lines) - 1) * LINE_SPACING)
+
+
+def wrap(paragraphs: list[str], cap_height: float, width: float, font: FontMetrics) -> list[str]:
+    """Plain text ``paragraphs`` broken into lines no wider than ``width``, word by word (greedy).
+
+    >>> wrap(["aa bb cc"], 1.0, 2.05 * estimate().width("aa "), estimate())
+    ['aa bb', 'cc']
+    """
+    lines: list[str] = []
+    for paragraph in paragraphs:
+        line = ""
+        for word in paragraph.split(" "):
+            trial = f"{line} {word}" if line else word
+            if line and font.width(trial) * cap_height > width + 1e-9:
+                lines.append(line)
+                line = word
+            else:
+                line = trial
+        lines.append(line)
+    return lines
 
 
 def estimate(family: str = "sans-serif") -> FontMetrics:
