@@ -215,23 +215,14 @@ def _watch(args: argparse.Namespace) -> int:
 
 
 def _solve(args: argparse.Namespace) -> int:
-    from .design import DATE_PATTERN, load, loads
-    from .solve import TARGETS, find_spec, quantity_text, solve
+    from .design import DATE_PATTERN, load
+    from .output import write_atomic
+    from .solve import parse_target, quantity_text, solve, solved_text
     from .textout import failed_lines
-    from .tomledit import add_revision, bump_revision, set_key
-    from .units import parse_quantity, UnitError
+    from .tomledit import bump_revision
 
     design = load(args.design)
-    name, _, text = args.target.partition("=")
-    if name not in TARGETS or not text:
-        raise DesignInputError(args.design, "--target", f"cannot read {args.target!r}",
-                               "mass=<mass>, izz=<g*mm^2> or gap=<length>, e.g. mass=66g")
-    kind = TARGETS[name][0]
-    try:
-        goal = (parse_quantity(text, "inertia") if kind == "inertia" else parse_quantity(text, kind))
-    except UnitError as exc:
-        raise DesignInputError(args.design, "--target", str(exc), f"a {name} with a unit") from None
-    parts, spec = find_spec(args.vary, args.design)
+    name, goal = parse_target(args.target, args.design)
     if args.date is not None and not DATE_PATTERN.match(args.date):
         raise DesignInputError(args.design, "--date", f"{args.date!r} is not a date", "YYYY-MM-DD")
     try:
@@ -243,25 +234,18 @@ def _solve(args: argparse.Namespace) -> int:
         return 1
     if not result.resolved.ok:
         print("\n".join(failed_lines(result.resolved)))
-        print(f"the solved design ({quantity_text(result.value, spec)}) breaks these checks; nothing written")
+        print(f"the solved design ({quantity_text(result.value, result.spec)}) breaks these checks; nothing written")
         raise CheckFailure(str(args.design), result.resolved.failed)
     source = Path(args.design)
     revision = bump_revision(design.revision)
     out = Path(args.out) if args.out else source.with_name(f"{source.stem}-{revision}.toml")
     if out.exists() or out.resolve() == source.resolve():
         raise DesignInputError(str(out), "", "already exists", "a new file name for the solved design (-o)")
-    value_text = quantity_text(result.value, spec)
-    note = f"{'.'.join(parts)} solved to {value_text} for {name} {text}"
-    new = set_key(source.read_text(encoding="utf-8"), ".".join(parts[:-1]), parts[-1], value_text,
-                  f"solved for {name} {text}")
-    new = set_key(new, "design", "revision", revision)
-    new = add_revision(new, revision, args.date or design["design"]["date"], note)
-    loads(new, str(out))  # the text written must read back
-    from .output import write_atomic
-
-    write_atomic(out, new.encode("utf-8"))
-    print(f"{'.'.join(parts)} = {value_text}: {name} {result.achieved:.4f} (target {goal:g}) after "
-          f"{result.evaluations} trials; every check passes")
+    text = solved_text(source.read_text(encoding="utf-8"), result, args.target.partition("=")[2], revision,
+                       args.date or design["design"]["date"], str(out))
+    write_atomic(out, text.encode("utf-8"))
+    print(f"{result.key} = {quantity_text(result.value, result.spec)}: {name} {result.achieved:.4f} "
+          f"(target {goal:g}) after {result.evaluations} trials; every check passes")
     print(out)
     return 0
 

@@ -14,12 +14,14 @@ from typing import Any
 
 from .analysis import analyse
 from .builder import Resolved, build
-from .design import SECTIONS, Design, from_dict
+from .design import SECTIONS, Design, from_dict, loads
 from .errors import DesignInputError
 from .features import FEATURES
 from .params import ParamSpec
+from .tomledit import add_revision, set_key
+from .units import UnitError, parse_quantity
 
-__all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "with_value", "quantity_text"]
+__all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "with_value", "quantity_text", "parse_target", "solved_text"]
 
 #: what can be aimed at: name -> (kind of the target value, how to read it off a resolved design, tolerance)
 TARGETS: dict[str, tuple[str, Callable[[Resolved], float], float]] = {
@@ -37,9 +39,11 @@ class SolveResult:
     """The answer: the value found (base units), what the design then measures, and how it got there."""
 
     key: str
+    target: str
+    spec: ParamSpec
     value: float
     achieved: float
-    target: float
+    goal: float
     evaluations: int
     resolved: Resolved
     design: Design
@@ -189,4 +193,28 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
             raise ValueError(f"{key}: could not close on {target} {goal:g} within {max_evaluations} trials")
     solved = with_value(design, parts, spec, b)
     resolved = build(solved)
-    return SolveResult(key, b, measure(resolved), goal, count, resolved, solved)
+    return SolveResult(".".join(parts), target, spec, b, measure(resolved), goal, count, resolved, solved)
+
+
+def parse_target(text: str, source: str) -> tuple[str, float]:
+    """``"mass=66g"`` → ("mass", 66.0): a target name and its value in base units."""
+    name, _, value = text.partition("=")
+    if name not in TARGETS or not value:
+        raise DesignInputError(source, "--target", f"cannot read {text!r}",
+                               "mass=<mass>, izz=<g*mm^2> or gap=<length>, e.g. mass=66g")
+    try:
+        return name, parse_quantity(value, TARGETS[name][0])
+    except UnitError as exc:
+        raise DesignInputError(source, "--target", str(exc), f"a {name} with a unit") from None
+
+
+def solved_text(source_text: str, result: SolveResult, goal_text: str, revision: str, date: str, out: str) -> str:
+    """The design file's text with the solved value set (comments kept), the next revision and a
+    history line saying what was solved; it must read back as a design."""
+    value_text = quantity_text(result.value, result.spec)
+    table, _, key = result.key.rpartition(".")
+    text = set_key(source_text, table, key, value_text, f"solved for {result.target} {goal_text}")
+    text = set_key(text, "design", "revision", revision)
+    text = add_revision(text, revision, date, f"{result.key} solved to {value_text} for {result.target} {goal_text}")
+    loads(text, out)
+    return text
