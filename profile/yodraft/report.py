@@ -11,6 +11,7 @@ from collections.abc import Mapping
 from typing import TYPE_CHECKING, Any
 
 from .diff import flatten, unit_of
+from .units import MM_PER_INCH
 
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
@@ -105,14 +106,19 @@ def report_markdown(data: Mapping[str, Any]) -> str:
               f"outside diameter {b['od_deviation_um'][0]:+g}/{b['od_deviation_um'][1]:+g} µm). "
               f"Material {m['name']}, {m['density_g_cm3']:.3f} g/cm³.", ""]
     s = data["bearing_seat"]
-    lines += ["## Fit table (bearing seat, worst case, finished sizes)", ""]
-    lines += _table(("part", "nominal", "tolerance", "turn before coating", "clearance min", "clearance max"), [
-        ("post", f"Ø{s['post_diameter_mm']:.4f} mm", f"± {s['post_tolerance_mm']:.4f} mm",
-         f"Ø{s['post_precoat_diameter_mm']:.4f} mm", f"{s['clearance_min_mm'] * 1000:.1f} µm",
-         f"{s['clearance_max_mm'] * 1000:.1f} µm"),
-        ("wall bore", f"Ø{s['wall_bore_mm']:.4f} mm", f"± {s['wall_tolerance_mm']:.4f} mm",
-         f"Ø{s['wall_precoat_bore_mm']:.4f} mm", f"{s['wall_clearance_min_mm'] * 1000:.1f} µm",
-         f"{s['wall_clearance_max_mm'] * 1000:.1f} µm")])
+    lines += ["## Fit table (bearing seat, finished sizes)", ""]
+    rows = []
+    for part, size, tol, precoat, cl, rss, p in (
+            ("post", "post_diameter_mm", "post_tolerance_mm", "post_precoat_diameter_mm", "clearance",
+             "clearance_rss", "post_p_no_slide"),
+            ("wall bore", "wall_bore_mm", "wall_tolerance_mm", "wall_precoat_bore_mm", "wall_clearance",
+             "wall_clearance_rss", "wall_p_no_slide")):
+        rows.append((part, f"Ø{s[size]:.4f} ± {s[tol]:.4f} mm",
+                     f"Ø{s[size] / MM_PER_INCH:.4f} ± {s[tol] / MM_PER_INCH:.4f} in", f"Ø{s[precoat]:.4f} mm",
+                     f"{s[cl + '_min_mm'] * 1000:.1f} to {s[cl + '_max_mm'] * 1000:.1f} µm",
+                     f"{s[rss + '_min_mm'] * 1000:.1f} to {s[rss + '_max_mm'] * 1000:.1f} µm", f"{s[p]:.2g}"))
+    lines += _table(("part", "nominal", "inch", "turn before coating", "clearance, worst case",
+                     "clearance, RSS (±3σ)", "P(no slide)"), rows)
     lines += ["## Resolved dimensions (* derived)", ""]
     for name, feature in data["features"].items():
         derived = set(feature.get("derived", []))
