@@ -1,0 +1,92 @@
+"""Exact lines, arcs and loops: areas, bounds, fillets, mirroring, immutability."""
+from __future__ import annotations
+
+import dataclasses
+import math
+
+import pytest
+import shapely
+from hypothesis import given
+from hypothesis import strategies as st
+
+from yodraft.geometry import Arc, FilletVertex, GeometryError, Line, Profile, fillet_loop
+from yodraft.testing import assert_profiles_close
+
+
+def circle(center: tuple[float, float], radius: float) -> Profile:
+    """A full circle as two counter-clockwise half arcs."""
+    first = Arc(center, radius, -math.pi / 2, math.pi)
+    return Profile((first, Arc(center, radius, math.pi / 2, math.pi)))
+
+
+def test_circle_area_is_pi_r_squared() -> None:
+    # area of a circle A = π r² (Euclid XII.2)
+    assert circle((5.0, 10.0), 3.0).signed_area() == pytest.approx(math.pi * 9.0, rel=1e-15)
+
+
+def test_bounds_of_an_arc_include_its_extreme_point() -> None:
+    assert circle((5.0, 10.0), 3.0).bounds() == pytest.approx((2.0, 7.0, 8.0, 13.0), abs=1e-12)
+
+
+def test_filleted_square_area() -> None:
+    # each rounded corner removes r² − π r²/4 from the square (plane geometry)
+    r = 2.0
+    loop, misfits = fillet_loop([FilletVertex((0, 0), r), FilletVertex((10, 0), r), FilletVertex((10, 10), r),
+                                 FilletVertex((0, 10), r)])
+    assert not misfits
+    assert loop.signed_area() == pytest.approx(100 - 4 * (r * r - math.pi * r * r / 4), rel=1e-14)
+    # shapely, a general-purpose geometry library, agrees on the flattened loop
+    # (chords 0.0005 mm inside the arcs cut about 2/3 × sagitta × arc length, 4e-5 of the area)
+    assert loop.polygon(0.0005).area == pytest.approx(loop.signed_area(), rel=1e-4)
+
+
+def test_a_radius_too_large_for_its_edges_is_named() -> None:
+    _, misfits = fillet_loop([FilletVertex((0, 0)), FilletVertex((4, 0), 5.0, "rim.edge_radius"),
+                              FilletVertex((4, 4)), FilletVertex((0, 4))])
+    assert misfits == ["rim.edge_radius"]
+
+
+def test_open_loop_is_refused() -> None:
+    with pytest.raises(GeometryError):
+        Profile((Line((0, 0), (1, 0)), Line((1, 0), (1, 1)), Line((1, 1), (0, 2))))
+
+
+def test_mirror_is_counter_clockwise_with_equal_area() -> None:
+    loop, _ = fillet_loop([FilletVertex((0, 1)), FilletVertex((6, 1), 1.0), FilletVertex((6, 5), 1.0),
+                           FilletVertex((0, 5))])
+    mirror = loop.mirrored()
+    assert mirror.signed_area() == pytest.approx(loop.signed_area(), rel=1e-14)
+    assert mirror.bounds() == pytest.approx((0.0, -5.0, 6.0, -1.0), abs=1e-12)
+    assert_profiles_close(mirror.mirrored(), loop, 1e-12)
+
+
+def test_bulge_is_tan_quarter_sweep() -> None:
+    # DXF reference: a polyline bulge is tan(θ/4); a half circle has bulge 1
+    assert Arc((0, 0), 1.0, 0.0, math.pi).bulge == pytest.approx(1.0, rel=1e-15)
+
+
+def test_segments_and_profiles_are_immutable() -> None:
+    line = Line((0, 0), (1, 0))
+    arc = Arc((0, 0), 1.0, 0.0, 1.0)
+    square = Profile.from_points([(0, 0), (1, 0), (1, 1), (0, 1)])
+    for obj, field in ((line, "start"), (arc, "radius"), (square, "segments")):
+        with pytest.raises(dataclasses.FrozenInstanceError):
+            setattr(obj, field, None)
+
+
+@given(st.floats(1, 50), st.floats(1, 50), st.floats(0.01, 0.49))
+def test_fillets_keep_the_loop_simple(w: float, h: float, share: float) -> None:
+    r = share * min(w, h)
+    loop, misfits = fillet_loop([FilletVertex((0, 0), r), FilletVertex((w, 0), r), FilletVertex((w, h), r),
+                                 FilletVertex((0, h), r)])
+    assert not misfits
+    poly = loop.polygon(0.001)
+    assert poly.is_valid and isinstance(poly, shapely.Polygon)
+    assert loop.signed_area() == pytest.approx(w * h - 4 * r * r * (1 - math.pi / 4), rel=1e-12)
+
+
+def test_assert_profiles_close_sees_a_moved_corner() -> None:
+    a = Profile.from_points([(0, 0), (1, 0), (1, 1), (0, 1)])
+    b = Profile.from_points([(0, 0), (1, 0), (1, 1.001), (0, 1)])
+    with pytest.raises(AssertionError):
+        assert_profiles_close(a, b, 1e-6)
