@@ -4,11 +4,14 @@
 >>> resolved = yodraft.build(yodraft.loads(yodraft.EXAMPLE))
 >>> round(resolved["bearing_seat.gap"], 4)
 4.3625
+>>> yodraft.analyse(resolved).assembly.total_g > 2 * yodraft.analyse(resolved).half.mass_g
+True
 """
 from __future__ import annotations
 
 __version__ = "0.1.0"
 
+from .analysis import Analysis, analyse
 from .builder import Resolved, build
 from .checks import Check
 from .design import Design, load, loads
@@ -16,7 +19,7 @@ from .errors import CheckFailure, DesignInputError, YodraftError
 from .geometry import Arc, Line, Profile
 from .summary import summary
 
-__all__ = ["__version__", "load", "loads", "build", "summary", "Design", "Resolved", "Check", "Profile", "Line",
+__all__ = ["__version__", "load", "loads", "build", "analyse", "summary", "Analysis", "Design", "Resolved", "Check", "Profile", "Line",
            "Arc", "YodraftError", "DesignInputError", "CheckFailure", "EXAMPLE"]
 
 #: the smallest design file: everything else takes its default
