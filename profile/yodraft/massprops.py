@@ -305,14 +305,12 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], np.ndar
     for s in profile.segments:
         if not isinstance(s, Arc):
             (z0, r0), (z1, r1) = s.start, s.end
-            ts = [0.0, 1.0]
             if (r0 - r_cut) * (r1 - r_cut) < 0:
-                ts.insert(1, (r_cut - r0) / (r1 - r0))
-            for ta, tb in zip(ts, ts[1:]):
-                pa = (z0 + (z1 - z0) * ta, r0 + (r1 - r0) * ta)
-                pb = (z0 + (z1 - z0) * tb, r0 + (r1 - r0) * tb)
-                if (pa[1] + pb[1]) / 2 > r_cut:
-                    lines.append((*pa, *pb))
+                t = (r_cut - r0) / (r1 - r0)
+                z_cut, r_at = z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
+                lines.append((z_cut, r_at, z1, r1) if r1 > r_cut else (z0, r0, z_cut, r_at))
+            elif (r0 + r1) / 2 > r_cut:
+                lines.append((z0, r0, z1, r1))
         else:
             zc, rc = s.center
             cuts = [0.0, 1.0]
