@@ -103,8 +103,8 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    poly = profile.polygon(LOOP_CHECK_TOLERANCE)
-    simple = poly.exterior.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
+    ring = shapely.linearrings(np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE)))
+    simple = ring.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, r_min, z_max, r_max = profile.bounds()
     out = [
         check("closed simple loop", "profile.loop", simple,
