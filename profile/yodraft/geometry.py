@@ -131,7 +131,10 @@ class Profile:
         """Polygon vertices approximating the loop within ``tol`` mm (not closed)."""
         out: list[Point] = []
         for seg in self.segments:
-            out.extend(seg.points(tol))
+            if isinstance(seg, Line):
+                out.append(seg.start)  # what Line.points gives, without the call
+            else:
+                out.extend(seg.points(tol))
         return out
 
     def polygon(self, tol: float = 0.005) -> shapely.Polygon:
@@ -208,14 +211,15 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     """
     n = len(vertices)
     pts = [v.point for v in vertices]
-    # drop repeated points so every edge has a direction
-    keep = [i for i in range(n) if _dist(pts[i], pts[(i + 1) % n]) > 1e-9]
-    vertices = [vertices[i] for i in keep]
-    pts = [v.point for v in vertices]
-    n = len(vertices)
+    edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]  # edge i runs from corner i to corner i + 1
+    if min(edge, default=0.0) <= 1e-9:
+        # drop repeated points so every edge has a direction
+        vertices = [v for v, length in zip(vertices, edge) if length > 1e-9]
+        pts = [v.point for v in vertices]
+        n = len(vertices)
+        edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]
     if n < 3:
         raise GeometryError("a loop needs at least three distinct corners")
-    edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]  # edge i runs from corner i to corner i + 1
     tangent = [0.0] * n
     plans: list[tuple[Point, Point, Arc] | None] = [None] * n
     misfits: list[str] = []
