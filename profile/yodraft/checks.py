@@ -63,12 +63,14 @@ BACK_WALLS: tuple[tuple[str, str, str], ...] = (
 
 def radial_order(values: Mapping[str, Any]) -> list[Check]:
     """Each diameter must lie outside the one before it (post < vent groove < wall < pad groove < catch zone < rim)."""
-    out = []
-    for (fa, pa), (fb, pb) in zip(RADIAL_ORDER, RADIAL_ORDER[1:]):
-        a, b = values[f"{fa}.{pa}"], values[f"{fb}.{pb}"]
-        out.append(check(f"radial order: {fb}.{pb} outside {fa}.{pa}", f"{fb}.{pb}", b > a + 1e-9,
-                         f"Ø{b:.3f} mm must exceed {fa}.{pa} Ø{a:.3f} mm"))
-    return out
+    return [Check(name, fb, pb, bool(values[outer] > values[inner] + 1e-9),
+                  f"Ø{values[outer]:.3f} mm must exceed {inner} Ø{values[inner]:.3f} mm")
+            for name, inner, outer, fb, pb in _RADIAL_PAIRS]
+
+
+#: each neighbouring pair of RADIAL_ORDER as (check name, inner key, outer key, outer feature, outer parameter)
+_RADIAL_PAIRS = tuple((f"radial order: {fb}.{pb} outside {fa}.{pa}", f"{fa}.{pa}", f"{fb}.{pb}", fb, pb)
+                      for (fa, pa), (fb, pb) in zip(RADIAL_ORDER, RADIAL_ORDER[1:]))
 
 
 def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]], min_wall: float) -> list[Check]:
