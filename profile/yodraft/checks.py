@@ -63,12 +63,14 @@ BACK_WALLS: tuple[tuple[str, str, str], ...] = (
 
 def radial_order(values: Mapping[str, Any]) -> list[Check]:
     """Each diameter must lie outside the one before it (post < vent groove < wall < pad groove < catch zone < rim)."""
-    out = []
-    for (fa, pa), (fb, pb) in zip(RADIAL_ORDER, RADIAL_ORDER[1:]):
-        a, b = values[f"{fa}.{pa}"], values[f"{fb}.{pb}"]
-        out.append(check(f"radial order: {fb}.{pb} outside {fa}.{pa}", f"{fb}.{pb}", b > a + 1e-9,
-                         f"Ø{b:.3f} mm must exceed {fa}.{pa} Ø{a:.3f} mm"))
-    return out
+    return [Check(name, fb, pb, bool(values[outer] > values[inner] + 1e-9),
+                  f"Ø{values[outer]:.3f} mm must exceed {inner} Ø{values[inner]:.3f} mm")
+            for name, inner, outer, fb, pb in _RADIAL_PAIRS]
+
+
+#: each neighbouring pair of RADIAL_ORDER as (check name, inner key, outer key, outer feature, outer parameter)
+_RADIAL_PAIRS = tuple((f"radial order: {fb}.{pb} outside {fa}.{pa}", f"{fa}.{pa}", f"{fb}.{pb}", fb, pb)
+                      for (fa, pa), (fb, pb) in zip(RADIAL_ORDER, RADIAL_ORDER[1:]))
 
 
 def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]], min_wall: float) -> list[Check]:
@@ -103,8 +105,8 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    poly = profile.polygon(LOOP_CHECK_TOLERANCE)
-    simple = poly.exterior.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
+    ring = shapely.linearrings(np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE)))
+    simple = ring.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, r_min, z_max, r_max = profile.bounds()
     out = [
         check("closed simple loop", "profile.loop", simple,

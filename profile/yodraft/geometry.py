@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import functools
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from typing import Union
 
 import numpy as np
@@ -28,8 +28,7 @@ class GeometryError(ValueError):
     """Geometry that cannot be composed (an open loop, a fillet that does not fit)."""
 
 
-def _dist(a: Point, b: Point) -> float:
-    return math.hypot(b[0] - a[0], b[1] - a[1])
+_dist = math.dist  # distance between two points (the same sum as math.hypot of the differences)
 
 
 @dataclass(frozen=True)
@@ -63,12 +62,17 @@ class Arc:
     radius: float
     start_angle: float
     sweep: float
+    #: the end points, worked out once from the fields above
+    start: Point = field(init=False, repr=False, compare=False)
+    end: Point = field(init=False, repr=False, compare=False)
 
     def __post_init__(self) -> None:
         if not (self.radius > 0 and math.isfinite(self.radius)):
             raise GeometryError(f"arc radius must be positive, got {self.radius}")
         if not (0 < abs(self.sweep) <= 2 * math.pi):
             raise GeometryError(f"arc sweep must be in (0, 2π], got {self.sweep}")
+        object.__setattr__(self, "start", self.point_at(self.start_angle))
+        object.__setattr__(self, "end", self.point_at(self.end_angle))
 
     def point_at(self, angle: float) -> Point:
         return (self.center[0] + self.radius * math.cos(angle), self.center[1] + self.radius * math.sin(angle))
@@ -76,14 +80,6 @@ class Arc:
     @property
     def end_angle(self) -> float:
         return self.start_angle + self.sweep
-
-    @functools.cached_property
-    def start(self) -> Point:
-        return self.point_at(self.start_angle)
-
-    @functools.cached_property
-    def end(self) -> Point:
-        return self.point_at(self.end_angle)
 
     @property
     def length(self) -> float:
@@ -98,7 +94,9 @@ class Arc:
         """Start point and interior points with chord error at most ``tol``."""
         step = 2 * math.acos(max(-1.0, 1 - tol / self.radius)) if tol < self.radius else math.pi / 2
         n = max(2, math.ceil(abs(self.sweep) / max(step, 1e-6)))
-        return [self.point_at(self.start_angle + self.sweep * i / n) for i in range(n)]
+        (zc, rc), a, t0, sweep = self.center, self.radius, self.start_angle, self.sweep
+        cos, sin = math.cos, math.sin
+        return [(zc + a * cos(t), rc + a * sin(t)) for t in [t0 + sweep * i / n for i in range(n)]]
 
     def reversed(self) -> "Arc":
         return Arc(self.center, self.radius, self.end_angle, -self.sweep)
@@ -133,7 +131,10 @@ class Profile:
         """Polygon vertices approximating the loop within ``tol`` mm (not closed)."""
         out: list[Point] = []
         for seg in self.segments:
-            out.extend(seg.points(tol))
+            if isinstance(seg, Line):
+                out.append(seg.start)  # what Line.points gives, without the call
+            else:
+                out.extend(seg.points(tol))
         return out
 
     def polygon(self, tol: float = 0.005) -> shapely.Polygon:
@@ -210,11 +211,13 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     """
     n = len(vertices)
     pts = [v.point for v in vertices]
-    # drop repeated points so every edge has a direction
-    keep = [i for i in range(n) if _dist(pts[i], pts[(i + 1) % n]) > 1e-9]
-    vertices = [vertices[i] for i in keep]
-    pts = [v.point for v in vertices]
-    n = len(vertices)
+    edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]  # edge i runs from corner i to corner i + 1
+    if min(edge, default=0.0) <= 1e-9:
+        # drop repeated points so every edge has a direction
+        vertices = [v for v, length in zip(vertices, edge) if length > 1e-9]
+        pts = [v.point for v in vertices]
+        n = len(vertices)
+        edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]
     if n < 3:
         raise GeometryError("a loop needs at least three distinct corners")
     tangent = [0.0] * n
@@ -224,8 +227,8 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
         if v.radius <= 0:
             continue
         prev, here, nxt = pts[i - 1], pts[i], pts[(i + 1) % n]
-        u1 = ((prev[0] - here[0]) / _dist(prev, here), (prev[1] - here[1]) / _dist(prev, here))
-        u2 = ((nxt[0] - here[0]) / _dist(nxt, here), (nxt[1] - here[1]) / _dist(nxt, here))
+        u1 = ((prev[0] - here[0]) / edge[i - 1], (prev[1] - here[1]) / edge[i - 1])
+        u2 = ((nxt[0] - here[0]) / edge[i], (nxt[1] - here[1]) / edge[i])
         cos_full = max(-1.0, min(1.0, u1[0] * u2[0] + u1[1] * u2[1]))
         half = math.acos(cos_full) / 2
         if half < 1e-6 or half > math.pi / 2 - 1e-6:
@@ -243,7 +246,7 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
         plans[i] = (t1, t2, Arc(center, v.radius, a0, sweep))
     for i in range(n):
         j = (i + 1) % n
-        if tangent[i] + tangent[j] > _dist(pts[i], pts[j]) + 1e-9:
+        if tangent[i] + tangent[j] > edge[i] + 1e-9:
             for k in (i, j):
                 if plans[k] is not None:
                     misfits.append(vertices[k].owner or f"corner {k}")

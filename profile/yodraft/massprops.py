@@ -5,9 +5,9 @@ A half is the solid made by turning its (z, r) profile once about the spin axis
 
     ∬ r^n z^m dA = −1/(n+1) ∮ r^(n+1) z^m dz,
 
-taken exactly over each segment: lines with a Gauss–Legendre rule that is exact
-for their polynomial integrands, arcs in quarter-turn pieces with a 12-point rule
-whose error on these trigonometric polynomials is below rounding. Nothing is flattened.
+taken exactly over each segment in closed form: on a line the integrands are
+polynomials in the line's parameter, on an arc polynomials in the sine and cosine
+of its angle. Nothing is flattened.
 
 Clipping at a radius (the rim band, everything with r ≥ r_cut) uses the same
 sums with r^(n+1) replaced by max(0, r^(n+1) − r_cut^(n+1)): that function is
@@ -27,8 +27,6 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from typing import NamedTuple, Sequence
-
-import numpy as np
 
 from .geometry import Arc, Line, Profile
 
@@ -50,19 +48,6 @@ __all__ = [
 ]
 
 G_PER_MM3_PER_G_CM3 = 1e-3  # 1 cm³ = 1000 mm³ (SI definition of the centimetre)
-
-# Gauss–Legendre nodes on [0, 1], computed once. Four points integrate a line's
-# integrands (polynomials of degree ≤ 5 in the parameter) exactly. Arcs are taken in
-# pieces of at most a quarter turn; 12 points on such a piece leave an error below
-# 1e-16 relative for the degree-5 trigonometric polynomials met here (the
-# Gauss–Legendre remainder h^(2n+1) (n!)^4 / ((2n+1) ((2n)!)^3) · 5^(2n)).
-_LINE_X, _LINE_W = np.polynomial.legendre.leggauss(4)
-_LINE_T = (_LINE_X + 1.0) / 2.0
-_LINE_W = _LINE_W / 2.0
-_ARC_PIECE = math.pi / 2
-_ARC_X, _ARC_W = np.polynomial.legendre.leggauss(12)
-_ARC_T = (_ARC_X + 1.0) / 2.0
-_ARC_W = _ARC_W / 2.0
 
 _R_TOL = 1e-9  # mm: how far below the spin axis a point may stray by rounding
 
@@ -169,103 +154,131 @@ def _arc_r_min(rc: float, a: float, t0: float, dt: float) -> float:
     return rc + a * min(math.sin(lo), math.sin(hi))
 
 
-def _add_arc(rows: list[float], zc: float, rc: float, a: float, t0: float, dt: float) -> None:
-    """Append an arc as rows of at most a quarter turn each."""
-    pieces = math.ceil(abs(dt) / _ARC_PIECE - 1e-12)
-    if pieces <= 1:
-        rows += (zc, rc, a, t0, dt)
-        return
-    step = dt / pieces
-    for k in range(pieces):
-        rows += (zc, rc, a, t0 + k * step, step)
+LineRow = tuple[float, float, float, float]  # (z0, r0, z1, r1)
+ArcRow = tuple[float, float, float, float, float]  # (zc, rc, a, θ0, Δθ)
 
 
-def _split(profile: Profile) -> tuple[np.ndarray, np.ndarray, float]:
+def _split(profile: Profile) -> tuple[list[LineRow], list[ArcRow], float]:
     """Line rows (z0, r0, z1, r1), arc rows (zc, rc, a, θ0, Δθ) and the least radius of the loop."""
-    lines: list[float] = []
-    arcs: list[float] = []
+    lines: list[LineRow] = []
+    arcs: list[ArcRow] = []
     r_min = math.inf
     for s in profile.segments:
         if isinstance(s, Arc):
             zc, rc = s.center
-            _add_arc(arcs, zc, rc, s.radius, s.start_angle, s.sweep)
+            arcs.append((zc, rc, s.radius, s.start_angle, s.sweep))
             r_arc = _arc_r_min(rc, s.radius, s.start_angle, s.sweep)
             if r_arc < r_min:
                 r_min = r_arc
         else:
             (z0, r0), (z1, r1) = s.start, s.end
-            lines += (z0, r0, z1, r1)
+            lines.append((z0, r0, z1, r1))
             if r0 < r_min:
                 r_min = r0
             if r1 < r_min:
                 r_min = r1
-    return np.array(lines, dtype=float).reshape(-1, 4), np.array(arcs, dtype=float).reshape(-1, 5), r_min
+    return lines, arcs, r_min
 
 
-# endpoints (z0, r0, z1, r1) → line nodes [z at each t | r at each t], by one matrix product
-_N = _LINE_T.size
-_LINE_NODES = np.zeros((4, 2 * _N))
-_LINE_NODES[0, :_N] = 1 - _LINE_T
-_LINE_NODES[2, :_N] = _LINE_T
-_LINE_NODES[1, _N:] = 1 - _LINE_T
-_LINE_NODES[3, _N:] = _LINE_T
-_LINE_Z = np.ascontiguousarray(_LINE_NODES[:, :_N])
-_LINE_R = np.ascontiguousarray(_LINE_NODES[:, _N:])
-_LINE_DELTA = np.array([[-1.0, 0.0], [0.0, -1.0], [1.0, 0.0], [0.0, 1.0]])  # → (dz, dr)
+def _line_sums(lines: Sequence[LineRow], c: float) -> list[float]:
+    """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over straight pieces, in closed form.
 
-
-def _nodes(lines: np.ndarray, arcs: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
-    """Quadrature nodes z, r of every piece, with weights × dz/dt and × ds/dt, flattened.
-
-    Written into preallocated rows (lines first, then arcs): at the sizes of a
-    yo-yo profile the cost is the count of array operations, not their length.
+    Along a line r and z are linear in the parameter t, so each −∫ G_k dz is
+    −Δz times the mean of a polynomial in t, written out from its end values.
+    A face (constant z) adds only to the surface; a turned diameter (constant r)
+    has constant G_k.
     """
-    nl, na = len(lines), len(arcs)
-    split = nl * _N
-    out = np.empty((4, split + na * _ARC_T.size))
-    z, r, wdz, wds = out
-    if nl:
-        np.matmul(lines, _LINE_Z, out=z[:split].reshape(nl, _N))
-        np.matmul(lines, _LINE_R, out=r[:split].reshape(nl, _N))
-        d = lines @ _LINE_DELTA
-        np.multiply(d[:, :1], _LINE_W, out=wdz[:split].reshape(nl, _N))
-        np.multiply(np.hypot(d[:, :1], d[:, 1:]), _LINE_W, out=wds[:split].reshape(nl, _N))
-    if na:
-        shape = (na, _ARC_T.size)
-        a = arcs[:, 2:3]
-        dt = arcs[:, 4:5]
-        th = arcs[:, 3:4] + dt * _ARC_T
-        a_sin = a * np.sin(th)
-        np.add(arcs[:, 1:2], a_sin, out=r[split:].reshape(shape))
-        np.add(arcs[:, 0:1], a * np.cos(th), out=z[split:].reshape(shape))
-        np.multiply(a_sin, -dt * _ARC_W, out=wdz[split:].reshape(shape))
-        np.multiply(a * np.abs(dt), _ARC_W, out=wds[split:].reshape(shape))
-    return z, r, wdz, wds
+    a = r1 = z1 = rz = r3 = rz2 = rds = 0.0
+    c2 = c * c
+    c4 = c2 * c2
+    for za, ra, zb, rb in lines:
+        if za == zb:
+            rds += abs(rb - ra) * 0.5 * (ra + rb)
+            continue
+        dz = za - zb  # the minus sign of −∮ G dz folded in
+        z_sum = za + zb
+        zz_mean = (za * za + za * zb + zb * zb) / 3
+        if ra == rb:
+            g0, g1 = ra - c, 0.5 * (ra * ra - c2)
+            a += dz * g0
+            r1 += dz * g1
+            z1 += dz * g0 * 0.5 * z_sum
+            rz += dz * g1 * 0.5 * z_sum
+            r3 += dz * 0.25 * (ra * ra * ra * ra - c4)
+            rz2 += dz * g1 * zz_mean
+            rds += abs(dz) * ra
+            continue
+        raa, rab, rbb = ra * ra, ra * rb, rb * rb
+        rr_mean = (raa + rab + rbb) / 3
+        a += dz * (0.5 * (ra + rb) - c)
+        r1 += dz * 0.5 * (rr_mean - c2)
+        z1 += dz * ((ra * (2 * za + zb) + rb * (za + 2 * zb)) / 6 - 0.5 * c * z_sum)
+        rz += dz * 0.5 * ((za * (3 * raa + 2 * rab + rbb) + zb * (raa + 2 * rab + 3 * rbb)) / 12 - 0.5 * c2 * z_sum)
+        r3 += dz * 0.25 * (((raa + rbb) * 3 * rr_mean - rab * rab) / 5 - c4)
+        zaa, zab, zbb = za * za, za * zb, zb * zb
+        rz2 += dz * 0.5 * ((raa * (6 * zaa + 3 * zab + zbb) + rab * (3 * zaa + 4 * zab + 3 * zbb)
+                            + rbb * (zaa + 3 * zab + 6 * zbb)) / 30 - c2 * zz_mean)
+        rds += math.hypot(zb - za, rb - ra) * 0.5 * (ra + rb)
+    return [a, r1, z1, rz, r3, rz2, rds]
 
 
-def _sums(lines: np.ndarray, arcs: np.ndarray, r_cut: float) -> SectionIntegrals:
-    """The Green's-theorem sums over line and arc pieces that lie wholly at r ≥ r_cut.
+def _sine_moments(t0: float, dt: float) -> tuple[float, ...]:
+    """P1 … P5 and Q1 … Q3 with Pp = ∫ sinᵖθ dθ, Qp = ∫ sinᵖθ cosθ dθ from θ0 to θ0 + Δθ.
 
-    Row k of ``g`` is G_k with ∂G_k/∂r the k-th integrand, zero on r = r_cut;
-    each section integral is −∮ G_k dz.
+    By the usual reduction formulas, Pp = ((p − 1) Pp−2 − [sinᵖ⁻¹θ cosθ]) / p
+    and Qp = [sinᵖ⁺¹θ] / (p + 1), with [f] = f(θ0 + Δθ) − f(θ0).
     """
-    z, r, wdz, wds = _nodes(lines, arcs)
-    c = r_cut
-    r2 = r * r
-    g = np.empty((6, r.size))
-    if c:
-        g[0] = r - c
-        g[1] = 0.5 * (r2 - c * c)
-        g[4] = 0.25 * (r2 * r2 - c**4)
-    else:
-        g[0] = r
-        g[1] = 0.5 * r2
-        g[4] = 0.25 * (r2 * r2)
-    np.multiply(g[0], z, out=g[2])
-    np.multiply(g[1], z, out=g[3])
-    np.multiply(g[3], z, out=g[5])
-    a, r1, z1, rz, r3, rz2 = (-(g @ wdz)).tolist()
-    return SectionIntegrals(a, r1, z1, rz, r3, rz2, 2 * math.pi * float(r @ wds))
+    s0, c0 = math.sin(t0), math.cos(t0)
+    s1, c1 = math.sin(t0 + dt), math.cos(t0 + dt)
+    s0_2, s1_2 = s0 * s0, s1 * s1
+    s0_3, s1_3 = s0_2 * s0, s1_2 * s1
+    s0_4, s1_4 = s0_2 * s0_2, s1_2 * s1_2
+    p1 = c0 - c1
+    p2 = (s0 * c0 - s1 * c1 + dt) / 2
+    p3 = (s0_2 * c0 - s1_2 * c1 + 2 * p1) / 3
+    p4 = (s0_3 * c0 - s1_3 * c1 + 3 * p2) / 4
+    p5 = (s0_4 * c0 - s1_4 * c1 + 4 * p3) / 5
+    return p1, p2, p3, p4, p5, (s1_2 - s0_2) / 2, (s1_3 - s0_3) / 3, (s1_4 - s0_4) / 4
+
+
+def _arc_sums(arcs: Sequence[ArcRow], c: float) -> list[float]:
+    """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over arcs, in closed form.
+
+    On an arc r = rc + a sinθ, z = zc + a cosθ and dz = −a sinθ dθ, so each
+    −∫ G_k dz = ∫ G_k a sinθ dθ is a polynomial in sinθ and cosθ, integrated
+    term by term (∫ sinᵖθ cos²θ dθ = Pp − Pp+2). The moments are differences of
+    end values, so on a very short arc the error is about one rounding of the
+    arc's largest term rather than of its (small) result.
+    """
+    area = r1 = z1 = rz = r3 = rz2 = rds = 0.0
+    c2 = c * c
+    for zc, rc, a, t0, dt in arcs:
+        p1, p2, p3, p4, p5, q1, q2, q3 = _sine_moments(t0, dt)
+        rc2, aa = rc * rc, a * a
+        # G0 = r − c and G1 = (r² − c²)/2 in powers of sinθ, each times one more sinθ from dz
+        g0_p = (rc - c) * p1 + a * p2
+        g0_q = (rc - c) * q1 + a * q2
+        e0, e1, e2 = 0.5 * (rc2 - c2), rc * a, 0.5 * aa
+        g1_p = e0 * p1 + e1 * p2 + e2 * p3
+        g1_q = e0 * q1 + e1 * q2 + e2 * q3
+        g1_cc = e0 * (p1 - p3) + e1 * (p2 - p4) + e2 * (p3 - p5)
+        # G4 = (r⁴ − c⁴)/4
+        g4_p = (0.25 * (rc2 * rc2 - c2 * c2) * p1 + rc2 * rc * a * p2 + 1.5 * rc2 * aa * p3
+                + rc * aa * a * p4 + 0.25 * aa * aa * p5)
+        area += a * g0_p
+        r1 += a * g1_p
+        z1 += a * (zc * g0_p + a * g0_q)
+        rz += a * (zc * g1_p + a * g1_q)
+        r3 += a * g4_p
+        rz2 += a * (zc * zc * g1_p + 2 * zc * a * g1_q + aa * g1_cc)
+        rds += math.copysign(a, dt) * (rc * dt + a * p1)
+    return [area, r1, z1, rz, r3, rz2, rds]
+
+
+def _sums(lines: Sequence[LineRow], arcs: Sequence[ArcRow], r_cut: float) -> SectionIntegrals:
+    """The Green's-theorem sums over line and arc pieces that lie wholly at r ≥ r_cut."""
+    a, r1, z1, rz, r3, rz2, rds = (x + y for x, y in zip(_line_sums(lines, r_cut), _arc_sums(arcs, r_cut)))
+    return SectionIntegrals(a, r1, z1, rz, r3, rz2, 2 * math.pi * rds)
 
 
 def section_integrals(profile: Profile) -> SectionIntegrals:
@@ -285,21 +298,19 @@ def section_integrals(profile: Profile) -> SectionIntegrals:
     return out
 
 
-def _clip_pieces(profile: Profile, r_cut: float) -> tuple[np.ndarray, np.ndarray]:
+def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[ArcRow]]:
     """The loop cut at every crossing of r = r_cut, keeping the pieces that lie at r ≥ r_cut."""
-    lines: list[float] = []
-    arcs: list[float] = []
+    lines: list[LineRow] = []
+    arcs: list[ArcRow] = []
     for s in profile.segments:
         if not isinstance(s, Arc):
             (z0, r0), (z1, r1) = s.start, s.end
-            ts = [0.0, 1.0]
             if (r0 - r_cut) * (r1 - r_cut) < 0:
-                ts.insert(1, (r_cut - r0) / (r1 - r0))
-            for ta, tb in zip(ts, ts[1:]):
-                pa = (z0 + (z1 - z0) * ta, r0 + (r1 - r0) * ta)
-                pb = (z0 + (z1 - z0) * tb, r0 + (r1 - r0) * tb)
-                if (pa[1] + pb[1]) / 2 > r_cut:
-                    lines += (*pa, *pb)
+                t = (r_cut - r0) / (r1 - r0)
+                z_cut, r_at = z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
+                lines.append((z_cut, r_at, z1, r1) if r1 > r_cut else (z0, r0, z_cut, r_at))
+            elif (r0 + r1) / 2 > r_cut:
+                lines.append((z0, r0, z1, r1))
         else:
             zc, rc = s.center
             cuts = [0.0, 1.0]
@@ -322,8 +333,8 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[np.ndarray, np.ndarray
                     continue
                 mid = s.start_angle + s.sweep * (fa + fb) / 2
                 if rc + s.radius * math.sin(mid) > r_cut:
-                    _add_arc(arcs, zc, rc, s.radius, s.start_angle + s.sweep * fa, s.sweep * (fb - fa))
-    return np.array(lines, dtype=float).reshape(-1, 4), np.array(arcs, dtype=float).reshape(-1, 5)
+                    arcs.append((zc, rc, s.radius, s.start_angle + s.sweep * fa, s.sweep * (fb - fa)))
+    return lines, arcs
 
 
 def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegrals:

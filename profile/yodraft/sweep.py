@@ -94,10 +94,7 @@ class SweepResult:
 
     @property
     def output_keys(self) -> list[str]:
-        keys: list[str] = []
-        for v in self.variants:
-            keys += [k for k in v.outputs if k not in keys]
-        return keys
+        return list(dict.fromkeys(k for v in self.variants for k in v.outputs))  # in order of first appearance
 
 
 def _spec(key: str):
