@@ -16,6 +16,7 @@ from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from .errors import YodraftError
+from .geometry import Arc
 
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
@@ -66,7 +67,7 @@ def _sha(data: Any) -> str:
 
 
 def _segment(seg: Any) -> list[Any]:
-    if hasattr(seg, "center"):  # an Arc: centre, radius, start and sweep fix it exactly
+    if isinstance(seg, Arc):  # centre, radius, start and sweep fix it exactly
         start = math.atan2(math.sin(seg.start_angle), math.cos(seg.start_angle))
         return ["arc", _canon(list(seg.center)), _canon(seg.radius), _canon(start), _canon(seg.sweep)]
     return ["line", _canon(list(seg.start)), _canon(list(seg.end))]
