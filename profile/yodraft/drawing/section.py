@@ -162,12 +162,10 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
     fl1 = cup0
     rad = 0.45 * math.dist(fl0, fl1)
     an.angle(("rim.floor_angle",), fl1, fl0, (fl1[0], fl1[1] - rad), radius=rad)
-    # edge radii, text out in the air beside each corner
-    for key, direction in (("rim.edge_radius", 45.0), ("rim.lip_radius", -20.0), ("catch_zone.edge_radius", 100.0),
-                           ("rim.cup_radius", 200.0)):
+    # edge radii, the text outward along each corner's bisector
+    for key in ("rim.edge_radius", "rim.lip_radius", "catch_zone.edge_radius", "rim.cup_radius"):
         arc = _arc_for(profile, v[key], key, resolved)
-        mid = arc.start_angle + arc.sweep / 2
-        ang = math.degrees(mid) if key != "rim.cup_radius" else math.degrees(mid)
+        ang = math.degrees(arc.start_angle + arc.sweep / 2)
         out = arc.radius + 10.0 * k
         at = (arc.center[0] + out * math.cos(math.radians(ang)), arc.center[1] + out * math.sin(math.radians(ang)))
         an.radius((key,), arc.center, arc.radius, ang, at)
