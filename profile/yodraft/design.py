@@ -14,7 +14,7 @@ from .errors import DesignInputError
 from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, read_table
 
-__all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "NAME_PATTERN"]
+__all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "NAME_PATTERN"]
 
 IN = 25.4
 DEG = math.pi / 180
@@ -119,6 +119,26 @@ class Design:
     def is_given(self, key: str) -> bool:
         """Whether ``key`` (e.g. "features.rim.width") was written in the file."""
         return key in self.given
+
+
+def find_param(key: str) -> tuple[list[str], ParamSpec] | None:
+    """The TOML path and spec of a design key such as "features.rim.width", "rim.width" (a feature's
+    key without "features.") or "shop.fit_clearance"; None when there is no such key.
+
+    >>> find_param("rim.width")[0]
+    ['features', 'rim', 'width']
+    """
+    parts = key.split(".")
+    if parts[0] in FEATURES:
+        parts = ["features"] + parts
+    if len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
+        specs = FEATURES[parts[1]].PARAMS
+    elif len(parts) == 2 and parts[0] in SECTIONS:
+        specs = SECTIONS[parts[0]]
+    else:
+        return None
+    spec = next((s for s in specs if s.name == parts[-1]), None)
+    return None if spec is None else (parts, spec)
 
 
 def load(path: str | Path) -> Design:

@@ -21,9 +21,12 @@ __all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "describe",
 _QUANTITY_KINDS = set(KINDS)
 _OTHER_KINDS = {"text", "bool", "number"}
 _CONTROL = re.compile(r"[\x00-\x1f\x7f]")
-# how a bound is shown to the user, per kind: (divisor from the base unit, unit text)
-DISPLAY_UNITS = {"length": (1.0, "mm"), "angle": (math.pi / 180, "deg"), "mass": (1.0, "g"), "torque": (1.0, "N*mm"),
-         "density": (1.0, "g/cm^3"), "speed": (1.0, "rpm"), "roughness": (1.0, "um"), "number": (1.0, "")}
+#: how a value of each kind is shown to the user and written back into a design file:
+#: (divisor from the base unit, unit text, suffix of a column or JSON key holding it)
+DISPLAY_UNITS: dict[str, tuple[float, str, str]] = {
+    "length": (1.0, "mm", "_mm"), "angle": (math.pi / 180, "deg", "_deg"), "mass": (1.0, "g", "_g"),
+    "torque": (1.0, "N*mm", "_n_mm"), "density": (1.0, "g/cm^3", "_g_cm3"), "speed": (1.0, "rpm", "_rpm"),
+    "roughness": (1.0, "um", "_um"), "number": (1.0, "", "")}
 
 
 #: the smallest non-zero magnitude any quantity may have, in its base unit (mm, g, rad, N*mm, ...)
@@ -67,7 +70,7 @@ class ParamSpec:
         else:
             text = f"a text of at most {self.max_length} characters"
         if self.lo is not None or self.hi is not None:
-            div, unit = DISPLAY_UNITS.get(self.kind, (1.0, ""))
+            div, unit, _ = DISPLAY_UNITS.get(self.kind, (1.0, "", ""))
             parts = []
             if self.lo is not None:
                 parts.append(f"{'at least' if self.lo_closed else 'above'} {self.lo / div:g} {unit}".rstrip())

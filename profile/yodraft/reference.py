@@ -17,7 +17,7 @@ def _default(spec: ParamSpec, table: str) -> str:
             return "required"
         return "derived" if table.startswith("features.") else "optional"
     if spec.kind in DISPLAY_UNITS and spec.kind != "number":
-        div, unit = DISPLAY_UNITS[spec.kind]
+        div, unit, _ = DISPLAY_UNITS[spec.kind]
         return f'"{spec.default / div:.6g} {unit}"'
     if spec.kind == "bool":
         return "true" if spec.default else "false"

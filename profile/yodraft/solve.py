@@ -7,17 +7,15 @@ the parameter's own bounds, so each trial is a design the builder accepts.
 from __future__ import annotations
 
 import copy
-import math
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from typing import Any
 
 from .analysis import analyse
 from .builder import Resolved, build
-from .design import SECTIONS, Design, from_dict, loads
+from .design import Design, find_param, from_dict, loads
 from .errors import DesignInputError
-from .features import FEATURES
-from .params import ParamSpec
+from .params import DISPLAY_UNITS, ParamSpec
 from .tomledit import add_revision, set_key
 from .units import UnitError, parse_quantity
 
@@ -30,8 +28,6 @@ TARGETS: dict[str, tuple[str, Callable[[Resolved], float], float]] = {
     "gap": ("length", lambda r: r["bearing_seat.gap"], 1e-5),
 }
 TARGET_UNITS = {"mass": "g", "izz": "g*mm^2", "gap": "mm"}
-_UNIT_OF_KIND = {"length": "mm", "angle": "deg", "mass": "g", "torque": "N*mm", "density": "g/cm^3",
-                 "speed": "rpm", "roughness": "um"}
 
 
 @dataclass(frozen=True)
@@ -51,28 +47,19 @@ class SolveResult:
 
 def find_spec(key: str, source: str) -> tuple[list[str], ParamSpec]:
     """The TOML path and spec of a numeric design key such as "features.rim.width" (or "rim.width")."""
-    parts = key.split(".")
-    if parts[0] in FEATURES:
-        parts = ["features"] + parts
-    specs: tuple[ParamSpec, ...] = ()
-    if len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
-        specs = FEATURES[parts[1]].PARAMS
-    elif len(parts) == 2 and parts[0] in SECTIONS:
-        specs = SECTIONS[parts[0]]
-    spec = next((s for s in specs if s.name == parts[-1]), None)
-    if spec is None or spec.kind in ("text", "bool"):
+    found = find_param(key)
+    if found is None or found[1].kind in ("text", "bool"):
         raise DesignInputError(source, key, "is not a numeric design parameter",
                                "a key path such as features.rim.width or features.rim.thickness")
-    return parts, spec
+    return found
 
 
 def quantity_text(value: float, spec: ParamSpec) -> Any:
     """``value`` (base units) as a design-file value: a quantity string, or a plain number."""
     if spec.kind == "number":
         return round(value, 9)
-    if spec.kind == "angle":
-        return f"{math.degrees(value):.6f} deg"
-    return f"{value:.6f} {_UNIT_OF_KIND[spec.kind]}"
+    div, unit, _ = DISPLAY_UNITS[spec.kind]
+    return f"{value / div:.6f} {unit}"
 
 
 def with_value(design: Design, parts: list[str], spec: ParamSpec, value: float) -> Design:

@@ -22,6 +22,7 @@ from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, Any
 
 from .errors import DesignInputError, YodraftError
+from .params import DISPLAY_UNITS
 
 if TYPE_CHECKING:  # pragma: no cover
     from .design import Design
@@ -33,10 +34,6 @@ MAX_VARIANTS = 100_000
 #: summary keys a sweep reports when present, in column order; keys ending in "rim_share" are added too
 OUTPUT_KEYS = ("profile.gap_mm", "profile.outer_diameter_mm", "profile.width_mm", "bearing_seat.clearance_min_mm",
                "bearing_seat.clearance_max_mm", "mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2")
-# how each kind is shown in CSV columns and on the plot: (factor from the base unit, unit text, column suffix)
-_SHOW = {"length": (1.0, "mm", "_mm"), "angle": (180 / math.pi, "deg", "_deg"), "mass": (1.0, "g", "_g"),
-         "density": (1.0, "g/cm^3", "_g_cm3"), "speed": (1.0, "rpm", "_rpm"), "torque": (1.0, "N*mm", "_n_mm"),
-         "roughness": (1.0, "um", "_um"), "number": (1.0, "", "")}
 _VARY = re.compile(r"^\s*([A-Za-z0-9_.]+)\s*=\s*([^:]+):([^:]+):\s*([^:]*?)\s*$")
 
 
@@ -57,16 +54,16 @@ class Axis:
 
     @property
     def unit(self) -> str:
-        return _SHOW[self.kind][1]
+        return DISPLAY_UNITS[self.kind][1]
 
     @property
     def column(self) -> str:
         """CSV column name: the key with its unit suffix, e.g. ``features.rim.width_mm``."""
-        return self.key + _SHOW[self.kind][2]
+        return self.key + DISPLAY_UNITS[self.kind][2]
 
     def shown(self, value: float) -> float:
         """A base-unit value in the unit of the column (degrees for angles)."""
-        return value * _SHOW[self.kind][0]
+        return value / DISPLAY_UNITS[self.kind][0]
 
 
 @dataclass(frozen=True)
@@ -97,24 +94,6 @@ class SweepResult:
         return list(dict.fromkeys(k for v in self.variants for k in v.outputs))  # in order of first appearance
 
 
-def _spec(key: str):
-    """(section or "features", table name, ParamSpec) of a design key path, or None."""
-    from .design import SECTIONS
-    from .features import FEATURES
-
-    parts = key.split(".")
-    if len(parts) == 2 and parts[0] in FEATURES:
-        parts = ["features"] + parts
-    if len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
-        specs, where = FEATURES[parts[1]].PARAMS, ("features", parts[1])
-    elif len(parts) == 2 and parts[0] in SECTIONS:
-        specs, where = SECTIONS[parts[0]], (parts[0], parts[0])
-    else:
-        return None
-    spec = next((s for s in specs if s.name == parts[-1]), None)
-    return None if spec is None else (where[0], where[1], spec)
-
-
 def parse_vary(text: str, design: "Design") -> Axis:
     """Read ``KEY=START:STOP:COUNT`` (e.g. ``features.rim.width=6mm:3mm:4``) against the design's key specs."""
     where = "--vary"
@@ -122,13 +101,15 @@ def parse_vary(text: str, design: "Design") -> Axis:
     if not m:
         raise DesignInputError(where, text[:60], "cannot be read", "KEY=START:STOP:COUNT, e.g. features.rim.width=6mm:3mm:4")
     key, start_text, stop_text, count_text = m.groups()
-    found = _spec(key)
+    from .design import find_param
+
+    found = find_param(key)
     if found is None:
         raise DesignInputError(where, key, "is not a design key",
                                "a key path such as features.rim.width or shop.fit_clearance")
-    section, table, spec = found
-    full = f"features.{table}.{spec.name}" if section == "features" else f"{section}.{spec.name}"
-    if spec.kind not in _SHOW:
+    parts, spec = found
+    full = ".".join(parts)
+    if spec.kind not in DISPLAY_UNITS:
         raise DesignInputError(where, full, f"is a {spec.kind} setting and cannot be swept",
                                "a quantity with units or a plain number")
     values = []
@@ -156,11 +137,12 @@ def _variant_design(base: "Design", assignments: Sequence[tuple[str, float]]) ->
     sections = dict(base.sections)
     features = dict(base.features)
     raw = dict(base.raw)
+    from .design import find_param
+
     for key, value in assignments:
-        parts = key.split(".")
-        kind = _spec(key)[2].kind
-        factor, unit, _ = _SHOW[kind]
-        written = value if kind == "number" else f"{value * factor:.12g} {unit}"
+        parts, spec = find_param(key)  # type: ignore[misc]  # keys come from parsed axes
+        div, unit, _ = DISPLAY_UNITS[spec.kind]
+        written = value if spec.kind == "number" else f"{value / div:.12g} {unit}"
         if parts[0] == "features":
             features[parts[1]] = {**features[parts[1]], parts[2]: value}
             tables = dict(raw.get("features", {}))
