@@ -13,10 +13,10 @@ from typing import Any
 from .errors import DesignInputError
 from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, read_table
+from .units import MM_PER_INCH as IN
 
 __all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "NAME_PATTERN"]
 
-IN = 25.4
 DEG = math.pi / 180
 NAME_PATTERN = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")
 DATE_PATTERN = re.compile(r"^\d{4}-\d{2}-\d{2}$")

@@ -14,9 +14,9 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-__all__ = ["BearingRow", "BEARINGS", "LETTER_SIZES", "lookup_bearing"]
+from ..units import MM_PER_INCH as IN
 
-IN = 25.4  # exact by the international yard and pound agreement, 1959
+__all__ = ["BearingRow", "BEARINGS", "LETTER_SIZES", "lookup_bearing"]
 
 
 @dataclass(frozen=True)

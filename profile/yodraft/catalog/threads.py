@@ -3,9 +3,9 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-__all__ = ["Thread", "THREADS", "lookup_thread"]
+from ..units import MM_PER_INCH as IN
 
-IN = 25.4
+__all__ = ["Thread", "THREADS", "lookup_thread"]
 
 
 @dataclass(frozen=True)

@@ -14,12 +14,12 @@ from .clip import clip_segments
 from .dimensions import DIA, Annotator
 from .locate import corner, on_face, on_radius
 from .section import HATCH_SPACING
+from ..units import MM_PER_INCH as IN
 
 __all__ = ["DETAIL_BLOCK", "detail_region", "detail_scale", "build_detail", "tolerance_text", "detail_lanes"]
 
 DETAIL_BLOCK = "seat-detail"
 SCALES = (20.0, 10.0, 5.0)  # ISO 5455 enlargements
-IN = 25.4
 
 
 def detail_region(resolved: Resolved) -> tuple[float, float, float, float]:

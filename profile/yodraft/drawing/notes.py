@@ -4,10 +4,9 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from ..builder import Resolved
+from ..units import MM_PER_INCH as IN
 
 __all__ = ["SheetData", "fit_lines", "shop_lines", "caution_lines", "IN"]
-
-IN = 25.4
 
 
 @dataclass(frozen=True)

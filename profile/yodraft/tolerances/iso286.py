@@ -26,6 +26,8 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
+from ..units import MM_PER_INCH
+
 __all__ = [
     "SIZE_STEPS",
     "MAX_SIZE_MM",
@@ -259,7 +261,6 @@ _CODE = re.compile(
     r"(?P<first>[A-Za-z]+\d+)\s*(?:/\s*(?P<second>[A-Za-z]+\d+))?\s*$"
 )
 _CLASS = re.compile(r"^([A-Za-z]+)(\d+)$")
-_MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
 
 
 def _split_class(text: str) -> tuple[str, int]:
@@ -291,7 +292,7 @@ def parse_fit(code: str) -> Fit:
         raise FitCodeError(f"cannot read fit code {code.strip()[:40]!r}", _EXPECTED_CODE)
     size = float(match["num"])
     if match["unit"] in ("in", "inch", '"'):
-        size *= _MM_PER_INCH
+        size *= MM_PER_INCH
     first, second = match["first"], match["second"]
     letter1, grade1 = _split_class(first)
     hole = shaft = None
