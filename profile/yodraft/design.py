@@ -2,7 +2,6 @@
 from __future__ import annotations
 
 import datetime
-import math
 import re
 import tomllib
 from collections.abc import Mapping
@@ -17,7 +16,6 @@ from .units import MM_PER_INCH as IN
 
 __all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "NAME_PATTERN"]
 
-DEG = math.pi / 180
 NAME_PATTERN = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")
 DATE_PATTERN = re.compile(r"^\d{4}-\d{2}-\d{2}$")
 #: no design file comes near this; a larger one is the wrong file (or /dev/zero)

@@ -16,7 +16,7 @@ from typing import Any
 from .errors import DesignInputError
 from .units import KINDS, UnitError, parse_quantity
 
-__all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "describe", "DISPLAY_UNITS"]
+__all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "DISPLAY_UNITS"]
 
 _QUANTITY_KINDS = set(KINDS)
 _OTHER_KINDS = {"text", "bool", "number"}
@@ -165,8 +165,3 @@ def read_table(table: Any, specs: Sequence[ParamSpec], file: str, path: str) -> 
         key = f"{path}.{spec.name}" if path else spec.name
         out[spec.name] = spec.read(table[spec.name], file, key) if spec.name in table else spec.default
     return out
-
-
-def describe(specs: Sequence[ParamSpec]) -> list[tuple[str, str, str]]:
-    """(key, expected, meaning) rows for the design-file reference."""
-    return [(s.name, s.expected(), s.doc) for s in specs]

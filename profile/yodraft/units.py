@@ -19,7 +19,7 @@ from pathlib import Path
 
 import pint
 
-__all__ = ["registry", "parse_quantity", "KINDS", "MM_PER_INCH", "format_mm_in", "UnitError"]
+__all__ = ["registry", "parse_quantity", "KINDS", "MM_PER_INCH", "UnitError"]
 
 MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
 
@@ -81,12 +81,3 @@ def parse_quantity(text: object, kind: str) -> float:
     if not math.isfinite(value):
         raise UnitError(f"{text[:60]!r} is not a finite number")
     return value
-
-
-def format_mm_in(mm: float, digits_mm: int = 3, digits_in: int = 4) -> str:
-    """A length in millimetres with its inch value in brackets.
-
-    >>> format_mm_in(6.32968)
-    '6.330 mm [0.2492 in]'
-    """
-    return f"{mm:.{digits_mm}f} mm [{mm / MM_PER_INCH:.{digits_in}f} in]"
