@@ -1,9 +1,9 @@
 """The builder: resolves the features in order, composes the loop and runs every check."""
 from __future__ import annotations
 
-from collections.abc import Mapping
+from collections.abc import Callable, Mapping
 from dataclasses import dataclass
-from types import MappingProxyType
+from types import MappingProxyType, ModuleType
 from typing import Any
 
 from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
@@ -17,7 +17,7 @@ from .geometry import GeometryError, Profile, fillet_loop
 from .params import check_unknown
 from .tolerances.bearings import PRECISION_CLASSES, bearing_deviation_um
 
-__all__ = ["Resolved", "build", "resolve_bearing", "resolve_material"]
+__all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material"]
 
 
 @dataclass(frozen=True)
@@ -96,17 +96,62 @@ def resolve_material(design: Design) -> dict[str, Any]:
             "material.engagement_factor": m.engagement_factor, "material.source": m.source}
 
 
-def build(design: Design) -> Resolved:
-    """Resolve every feature of ``design`` in order, compose the half-profile and check it."""
+class BuildMemo:
+    """What one build keeps for the next build of a closely related design (a sweep's variants, a watch's saves).
+
+    A feature is resolved again only when its own parameters, an earlier value it
+    read or (if it read them) the shop settings differ from last time; the bearing
+    and the material likewise when their inputs differ. A build with a memo gives
+    the same result as a fresh one.
+    """
+
+    def __init__(self) -> None:
+        self._features: dict[str, tuple[Mapping[str, Any], dict[str, Any], Mapping[str, Any] | None,
+                                        FeatureResult, dict[str, Any]]] = {}
+        self._sources: dict[str, tuple[Any, dict[str, Any]]] = {}
+
+    def source(self, name: str, inputs: Any, resolve: Callable[[], dict[str, Any]]) -> dict[str, Any]:
+        """The values ``resolve()`` gives, reused while ``inputs`` stay equal."""
+        kept = self._sources.get(name)
+        if kept is not None and kept[0] == inputs:
+            return kept[1]
+        values = resolve()
+        self._sources[name] = (inputs, values)
+        return values
+
+    def feature(self, module: ModuleType, params: Mapping[str, Any], values: Mapping[str, Any],
+                shop: Mapping[str, Any]) -> tuple[FeatureResult, dict[str, Any]]:
+        """A feature's result and the values it publishes ("feature.param"), resolved or reused."""
+        kept = self._features.get(module.NAME)
+        if kept is not None:
+            k_params, k_reads, k_shop, result, published = kept
+            if (k_params == params and (k_shop is None or k_shop == shop)
+                    and all(key in values and values[key] == value for key, value in k_reads.items())):
+                return result, published
+        ctx = Context(values, shop)
+        result = module.resolve(ctx, params)
+        published = {f"{module.NAME}.{k}": v for k, v in result.dims.items()}
+        self._features[module.NAME] = (params, ctx.reads, shop if ctx.shop_read else None, result, published)
+        return result, published
+
+
+def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
+    """Resolve every feature of ``design`` in order, compose the half-profile and check it.
+
+    ``memo`` carries unchanged features over from the previous build made with it.
+    """
+    memo = memo if memo is not None else BuildMemo()
     values: dict[str, Any] = {}
-    values.update(resolve_bearing(design))
-    values.update(resolve_material(design))
+    values.update(memo.source("bearing", design["bearing"], lambda: resolve_bearing(design)))
+    material = design["design"]
+    values.update(memo.source("material", (material["material"], material["density"]),
+                              lambda: resolve_material(design)))
     values.update({f"envelope.{k}": v for k, v in design["envelope"].items()})
     results: dict[str, FeatureResult] = {}
+    readable = MappingProxyType(values)  # features read earlier values, never write them
     for name, module in FEATURES.items():
-        result = module.resolve(Context(design, MappingProxyType(dict(values))), design.features[name])
-        results[name] = result
-        values.update({f"{name}.{k}": v for k, v in result.dims.items()})
+        results[name], published = memo.feature(module, design.features[name], readable, design["shop"])
+        values.update(published)
     vertices = [v for feature, chunk in LOOP_ORDER for v in results[feature].chunks[chunk]]
     try:
         profile, misfits = fillet_loop(vertices)

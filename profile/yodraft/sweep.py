@@ -25,6 +25,7 @@ from .errors import DesignInputError, YodraftError
 from .params import DISPLAY_UNITS
 
 if TYPE_CHECKING:  # pragma: no cover
+    from .builder import BuildMemo
     from .design import Design
 
 __all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text", "svg_plot",
@@ -169,15 +170,19 @@ def _outputs(data: Mapping[str, Any]) -> dict[str, float | None]:
     return {k: (float(v) if isinstance(v, (int, float)) and not isinstance(v, bool) else None) for k, v in found.items()}
 
 
-def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float]) -> Variant:
-    """Resolve and check one variant; an input the builder rejects makes it a failed variant, not an error."""
+def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float],
+                memo: "BuildMemo | None" = None) -> Variant:
+    """Resolve and check one variant; an input the builder rejects makes it a failed variant, not an error.
+
+    ``memo`` carries the features the varied keys do not reach over from the previous variant.
+    """
     from .builder import build
     from .summary import summary
 
     assignments = list(zip([a.key for a in axes], values))
     shown = tuple(a.shown(v) for a, v in zip(axes, values))
     try:
-        resolved = build(_variant_design(base, assignments))
+        resolved = build(_variant_design(base, assignments), memo)
     except (YodraftError, ValueError) as exc:
         return Variant(index, shown, False, (f"input: {exc}",), {})
     failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
@@ -185,7 +190,10 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
 
 
 def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:
-    return [run_variant(base, axes, i, vals) for i, vals in points]
+    from .builder import BuildMemo
+
+    memo = BuildMemo()
+    return [run_variant(base, axes, i, vals, memo) for i, vals in points]
 
 
 def _context():
@@ -215,8 +223,11 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
     workers = workers if workers is not None else min(os.cpu_count() or 1, 8)
     done: list[Variant] = []
     if workers <= 1 or total < 64:
+        from .builder import BuildMemo
+
+        memo = BuildMemo()
         for i, vals in points:
-            done.append(run_variant(base, axes, i, vals))
+            done.append(run_variant(base, axes, i, vals, memo))
             if progress:
                 progress(len(done), total)
     else:

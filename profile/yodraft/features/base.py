@@ -3,13 +3,10 @@ from __future__ import annotations
 
 from collections.abc import Mapping
 from dataclasses import dataclass, field
-from typing import TYPE_CHECKING, Any
+from typing import Any
 
 from ..checks import Check
 from ..geometry import FilletVertex
-
-if TYPE_CHECKING:  # pragma: no cover
-    from ..design import Design
 
 __all__ = ["Context", "FeatureResult", "V"]
 
@@ -19,19 +16,29 @@ def V(z: float, r: float, radius: float = 0.0, owner: str = "") -> FilletVertex:
     return FilletVertex((float(z), float(r)), float(radius), owner)
 
 
-@dataclass(frozen=True)
+@dataclass
 class Context:
-    """Everything resolved before a feature: the design and earlier values, keyed "feature.param"."""
+    """Everything a feature may read besides its own parameters: earlier values keyed "feature.param",
+    and the shop's settings.
 
-    design: "Design"
+    Every value read is recorded in ``reads`` (and a read of the shop settings as
+    ``shop_read``), so a result can be reused while those inputs stay the same.
+    """
+
     values: Mapping[str, Any]
+    shop_settings: Mapping[str, Any]
+    reads: dict[str, Any] = field(default_factory=dict)
+    shop_read: bool = False
 
     def __getitem__(self, key: str) -> Any:
-        return self.values[key]
+        value = self.values[key]
+        self.reads[key] = value
+        return value
 
     @property
     def shop(self) -> Mapping[str, Any]:
-        return self.design["shop"]
+        self.shop_read = True
+        return self.shop_settings
 
 
 @dataclass(frozen=True)
