@@ -85,3 +85,21 @@ def test_angle_axis_in_degrees() -> None:
     result = sweep(design, [axis], workers=1)
     assert axis.column == "features.rim.floor_angle_deg"
     assert [v.inputs[0] for v in result.variants] == pytest.approx([20.0, 25.0, 30.0])
+
+
+@pytest.mark.parametrize("template", ["string-trick", "undersized", "wide-heavy"])
+def test_outputs_carry_the_summary_values(template: str) -> None:
+    # each output is named and valued as in `check --json`; a variant whose loop crosses itself has no mass keys
+    from yodraft.sweep import OUTPUT_KEYS
+
+    text = (TEMPLATES / f"{template}.toml").read_text(encoding="utf-8")
+    design = loads(text)
+    result = sweep(design, [parse_vary("features.rim.thickness=0.5mm:4mm:3", design)], workers=1)
+    for variant, thickness in zip(result.variants, ("0.5 mm", "2.25 mm", "4 mm")):
+        resolved = build(loads(set_in(text, "features.rim", "thickness", thickness)))
+        data = summary(resolved, detail=False)
+        expected = {key: data[key.split(".")[0]][key.split(".")[1]] for key in OUTPUT_KEYS
+                    if key.split(".")[0] in data}
+        assert variant.outputs == expected
+        assert variant.ok is resolved.ok
+        assert variant.failed == tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)

@@ -5,11 +5,11 @@ from dataclasses import dataclass
 
 from .balance import BalanceResult, balance
 from .builder import Resolved
-from .massprops import (AssemblyProps, BodyProps, PointPart, assemble, body_props, clipped_section_integrals,
-                        cylinder_part, mirrored_part, ring_mass_g, ring_part)
+from .massprops import (AssemblyProps, BodyProps, PointPart, SectionIntegrals, assemble, body_props,
+                        clipped_section_integrals, cylinder_part, mirrored_part, ring_mass_g, ring_part)
 from .spin import SpinMetrics, spin_metrics
 
-__all__ = ["Analysis", "analyse", "AXLE_DENSITY_G_CM3"]
+__all__ = ["Analysis", "MassAndSpin", "analyse", "mass_and_spin", "AXLE_DENSITY_G_CM3"]
 
 AXLE_DENSITY_G_CM3 = 7.85  # carbon steel set screw, from memory
 PITCH_DIAMETER_FACTOR = 0.649519  # d2 = d − 0.649519 P (ISO 724)
@@ -51,8 +51,19 @@ def small_parts(resolved: Resolved) -> tuple[list[PointPart], float]:
     return [bearing, axle, pad, mirrored_part(pad)], axle_length
 
 
-def analyse(resolved: Resolved) -> Analysis:
-    """Mass, inertia, spin metrics and balance of ``resolved`` (its profile must exist)."""
+@dataclass(frozen=True)
+class MassAndSpin:
+    """The mass budget and spin figures of a design (everything but the balance)."""
+
+    half: BodyProps
+    assembly: AssemblyProps
+    spin: SpinMetrics
+    rim_integrals: SectionIntegrals
+    axle_length_mm: float
+
+
+def mass_and_spin(resolved: Resolved) -> MassAndSpin:
+    """Mass, inertia and spin metrics of ``resolved`` (its profile must exist and pass the loop checks)."""
     profile = resolved.profile
     if profile is None or not resolved.can_analyse:
         raise ValueError("the design has no valid closed profile to analyse (see its loop and axle checks)")
@@ -65,6 +76,14 @@ def analyse(resolved: Resolved) -> Analysis:
     rim = clipped_section_integrals(profile, a["rim_radius_ratio"] * profile.bounds()[3])
     spin = spin_metrics(profile, density, assembly, string_radius_mm=v["bearing.od"] / 2, rpm=a["spin_rate"],
                         drag_torque_n_mm=a["drag_torque"], rim_radius_fraction=a["rim_radius_ratio"], rim_integrals=rim)
-    bal = balance(profile, density, grade_mm_s=a["balance_grade"], rpm=a["spin_rate"],
-                  rim_radius_fraction=a["rim_radius_ratio"], half=half, rim_integrals=rim)
-    return Analysis(half, assembly, spin, bal, axle_length)
+    return MassAndSpin(half, assembly, spin, rim, axle_length)
+
+
+def analyse(resolved: Resolved) -> Analysis:
+    """Mass, inertia, spin metrics and balance of ``resolved`` (its profile must exist)."""
+    m = mass_and_spin(resolved)
+    a = resolved.design["analysis"]
+    bal = balance(resolved.profile, resolved.values["material.density_g_cm3"], grade_mm_s=a["balance_grade"],
+                  rpm=a["spin_rate"], rim_radius_fraction=a["rim_radius_ratio"], half=m.half,
+                  rim_integrals=m.rim_integrals)
+    return Analysis(m.half, m.assembly, m.spin, bal, m.axle_length_mm)

@@ -1,9 +1,11 @@
 """Sweeps: a grid over one or two design parameters, each variant resolved and checked (no drawings).
 
 A variant is the base design with the varied keys replaced; failed variants are
-kept with the checks that failed. Outputs are read from the ``check --json``
-summary (gap, clearances, mass, Izz, rim share … whichever are present). Large
-grids are split into chunks run across processes.
+kept with the checks that failed. The outputs (gap, clearances, mass, Izz, rim
+share) carry the names and values of the ``check --json`` summary, worked out
+without the rest of it. Large grids are split into chunks run across processes,
+each keeping a BuildMemo so the features a varied key does not reach are
+resolved once.
 
 >>> from yodraft import loads, EXAMPLE
 >>> axis = parse_vary("rim.width=6mm:8mm:3", loads(EXAMPLE))
@@ -25,16 +27,17 @@ from .errors import DesignInputError, YodraftError
 from .params import DISPLAY_UNITS
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .builder import BuildMemo
+    from .builder import BuildMemo, Resolved
     from .design import Design
 
 __all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text", "svg_plot",
            "OUTPUT_KEYS", "MAX_VARIANTS"]
 
 MAX_VARIANTS = 100_000
-#: summary keys a sweep reports when present, in column order; keys ending in "rim_share" are added too
+#: summary keys a sweep reports when present, in column order
 OUTPUT_KEYS = ("profile.gap_mm", "profile.outer_diameter_mm", "profile.width_mm", "bearing_seat.clearance_min_mm",
-               "bearing_seat.clearance_max_mm", "mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2")
+               "bearing_seat.clearance_max_mm", "mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2",
+               "spin.rim_share")
 _VARY = re.compile(r"^\s*([A-Za-z0-9_.]+)\s*=\s*([^:]+):([^:]+):\s*([^:]*?)\s*$")
 
 
@@ -156,18 +159,21 @@ def _variant_design(base: "Design", assignments: Sequence[tuple[str, float]]) ->
     return replace(base, sections=sections, features=features, given=base.given | keys, raw=raw)
 
 
-def _outputs(data: Mapping[str, Any]) -> dict[str, float | None]:
-    """The OUTPUT_KEYS found in a summary, then any "<section>.<...>rim_share" key (no full flatten: it is hot)."""
-    found: dict[str, Any] = {}
-    for key in OUTPUT_KEYS:
-        section, _, leaf = key.partition(".")
-        table = data.get(section)
-        if isinstance(table, Mapping) and leaf in table:
-            found[key] = table[leaf]
-    for section, table in data.items():
-        if isinstance(table, Mapping) and section != "features":
-            found.update({f"{section}.{k}": v for k, v in table.items() if k.endswith("rim_share")})
-    return {k: (float(v) if isinstance(v, (int, float)) and not isinstance(v, bool) else None) for k, v in found.items()}
+def _outputs(resolved: "Resolved") -> dict[str, float | None]:
+    """A variant's OUTPUT_KEYS, valued as in its ``check --json`` summary (mass keys only when it can be weighed)."""
+    from .analysis import mass_and_spin
+
+    v = resolved.values
+    post = resolved.features["bearing_seat"].extra["seat_fit"].post
+    out = {"profile.gap_mm": v["bearing_seat.gap"], "profile.outer_diameter_mm": v.get("profile.outer_diameter"),
+           "profile.width_mm": v.get("profile.width"), "bearing_seat.clearance_min_mm": post.clearance_min_mm,
+           "bearing_seat.clearance_max_mm": post.clearance_max_mm}
+    if resolved.can_analyse:
+        m = mass_and_spin(resolved)
+        out.update({"mass.half_g": m.half.mass_g, "mass.total_g": m.assembly.total_g,
+                    "mass.izz_g_mm2": m.assembly.izz_g_mm2, "mass.ixx_g_mm2": m.assembly.ixx_g_mm2,
+                    "spin.rim_share": m.spin.rim_share})
+    return {k: (None if x is None else float(x)) for k, x in out.items()}
 
 
 def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float],
@@ -177,7 +183,6 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
     ``memo`` carries the features the varied keys do not reach over from the previous variant.
     """
     from .builder import build
-    from .summary import summary
 
     assignments = list(zip([a.key for a in axes], values))
     shown = tuple(a.shown(v) for a, v in zip(axes, values))
@@ -186,7 +191,7 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
     except (YodraftError, ValueError) as exc:
         return Variant(index, shown, False, (f"input: {exc}",), {})
     failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
-    return Variant(index, shown, resolved.ok, failed, _outputs(summary(resolved, detail=False)))
+    return Variant(index, shown, resolved.ok, failed, _outputs(resolved))
 
 
 def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:
