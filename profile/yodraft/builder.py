@@ -1,6 +1,7 @@
 """The builder: resolves the features in order, composes the loop and runs every check."""
 from __future__ import annotations
 
+import math
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from types import MappingProxyType, ModuleType
@@ -96,6 +97,21 @@ def resolve_material(design: Design) -> dict[str, Any]:
             "material.engagement_factor": m.engagement_factor, "material.source": m.source}
 
 
+def _same(a: Any, b: Any) -> bool:
+    """Equal, down to the sign of every zero (so a reused result is exactly what a fresh build gives)."""
+    if a is b:
+        return True
+    if type(a) is not type(b):
+        return False
+    if type(a) is float:
+        return a == b and math.copysign(1.0, a) == math.copysign(1.0, b)
+    if type(a) is tuple or type(a) is list:
+        return len(a) == len(b) and all(map(_same, a, b))
+    if type(a) is dict:
+        return a.keys() == b.keys() and all(_same(x, b[k]) for k, x in a.items())
+    return bool(a == b)
+
+
 class BuildMemo:
     """What one build keeps for the next build of a closely related design (a sweep's variants, a watch's saves).
 
@@ -113,7 +129,7 @@ class BuildMemo:
     def source(self, name: str, inputs: Any, resolve: Callable[[], dict[str, Any]]) -> dict[str, Any]:
         """The values ``resolve()`` gives, reused while ``inputs`` stay equal."""
         kept = self._sources.get(name)
-        if kept is not None and kept[0] == inputs:
+        if kept is not None and _same(kept[0], inputs):
             return kept[1]
         values = resolve()
         self._sources[name] = (inputs, values)
@@ -125,8 +141,8 @@ class BuildMemo:
         kept = self._features.get(module.NAME)
         if kept is not None:
             k_params, k_reads, k_shop, result, published = kept
-            if (k_params == params and (k_shop is None or k_shop == shop)
-                    and all(key in values and values[key] == value for key, value in k_reads.items())):
+            if (_same(k_params, params) and (k_shop is None or _same(k_shop, shop))
+                    and all(key in values and _same(values[key], value) for key, value in k_reads.items())):
                 return result, published
         ctx = Context(values, shop)
         result = module.resolve(ctx, params)

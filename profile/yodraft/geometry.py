@@ -202,6 +202,31 @@ class FilletVertex:
     owner: str = ""
 
 
+@functools.lru_cache(maxsize=4096)  # a sweep or a watch rebuilds the same corners again and again
+def _fillet(prev: Point, here: Point, nxt: Point, radius: float) -> tuple[float, Point, Point, Arc] | None:
+    """The fillet of ``radius`` tangent to both edges at corner ``here``: its tangent length, tangent points and arc.
+
+    None when the edges are straight on or fold back (nothing to round).
+    """
+    l1, l2 = _dist(prev, here), _dist(nxt, here)
+    u1 = ((prev[0] - here[0]) / l1, (prev[1] - here[1]) / l1)
+    u2 = ((nxt[0] - here[0]) / l2, (nxt[1] - here[1]) / l2)
+    cos_full = max(-1.0, min(1.0, u1[0] * u2[0] + u1[1] * u2[1]))
+    half = math.acos(cos_full) / 2
+    if half < 1e-6 or half > math.pi / 2 - 1e-6:
+        return None
+    t = radius / math.tan(half)
+    bis = (u1[0] + u2[0], u1[1] + u2[1])
+    bl = math.hypot(*bis)
+    center = (here[0] + bis[0] / bl * radius / math.sin(half), here[1] + bis[1] / bl * radius / math.sin(half))
+    t1 = (here[0] + u1[0] * t, here[1] + u1[1] * t)
+    t2 = (here[0] + u2[0] * t, here[1] + u2[1] * t)
+    turn = (here[0] - prev[0]) * (nxt[1] - here[1]) - (here[1] - prev[1]) * (nxt[0] - here[0])
+    sweep = (math.pi - 2 * half) * (1 if turn > 0 else -1)
+    a0 = math.atan2(t1[1] - center[1], t1[0] - center[0])
+    return t, t1, t2, Arc(center, radius, a0, sweep)
+
+
 def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     """Compose a closed loop through ``vertices``, rounding each corner that has a radius.
 
@@ -210,12 +235,12 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     not fit on their edges (those corners are left sharp).
     """
     n = len(vertices)
-    pts = [v.point for v in vertices]
+    pts = [(v.point[0] + 0.0, v.point[1] + 0.0) for v in vertices]  # + 0.0 turns −0.0 into 0.0: one key per corner
     edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]  # edge i runs from corner i to corner i + 1
     if min(edge, default=0.0) <= 1e-9:
         # drop repeated points so every edge has a direction
+        pts = [p for p, length in zip(pts, edge) if length > 1e-9]
         vertices = [v for v, length in zip(vertices, edge) if length > 1e-9]
-        pts = [v.point for v in vertices]
         n = len(vertices)
         edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]
     if n < 3:
@@ -224,26 +249,10 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     plans: list[tuple[Point, Point, Arc] | None] = [None] * n
     misfits: list[str] = []
     for i, v in enumerate(vertices):
-        if v.radius <= 0:
-            continue
-        prev, here, nxt = pts[i - 1], pts[i], pts[(i + 1) % n]
-        u1 = ((prev[0] - here[0]) / edge[i - 1], (prev[1] - here[1]) / edge[i - 1])
-        u2 = ((nxt[0] - here[0]) / edge[i], (nxt[1] - here[1]) / edge[i])
-        cos_full = max(-1.0, min(1.0, u1[0] * u2[0] + u1[1] * u2[1]))
-        half = math.acos(cos_full) / 2
-        if half < 1e-6 or half > math.pi / 2 - 1e-6:
-            continue  # straight or folded back: nothing to round
-        t = v.radius / math.tan(half)
-        bis = (u1[0] + u2[0], u1[1] + u2[1])
-        bl = math.hypot(*bis)
-        center = (here[0] + bis[0] / bl * v.radius / math.sin(half), here[1] + bis[1] / bl * v.radius / math.sin(half))
-        t1 = (here[0] + u1[0] * t, here[1] + u1[1] * t)
-        t2 = (here[0] + u2[0] * t, here[1] + u2[1] * t)
-        turn = (here[0] - prev[0]) * (nxt[1] - here[1]) - (here[1] - prev[1]) * (nxt[0] - here[0])
-        sweep = (math.pi - 2 * half) * (1 if turn > 0 else -1)
-        a0 = math.atan2(t1[1] - center[1], t1[0] - center[0])
-        tangent[i] = t
-        plans[i] = (t1, t2, Arc(center, v.radius, a0, sweep))
+        if v.radius > 0:
+            plan = _fillet(pts[i - 1], pts[i], pts[(i + 1) % n], v.radius)
+            if plan is not None:
+                tangent[i], plans[i] = plan[0], plan[1:]
     for i in range(n):
         j = (i + 1) % n
         if tangent[i] + tangent[j] > edge[i] + 1e-9:
