@@ -104,6 +104,23 @@ class Arc:
 Segment = Union[Line, Arc]
 
 
+@functools.lru_cache(maxsize=4096)  # a sweep measures the same unchanged arcs again and again
+def _arc_box(arc: Arc) -> tuple[float, float, float, float]:
+    """(z_min, r_min, z_max, r_max) of an arc's start and every quarter-turn direction it passes.
+
+    Its end is the next segment's start, so a loop's bounds are exact from these.
+    """
+    zs, rs = [arc.start[0]], [arc.start[1]]
+    lo, hi = sorted((arc.start_angle, arc.end_angle))
+    k = math.ceil(lo / (math.pi / 2))
+    while k * math.pi / 2 < hi:
+        z, r = arc.point_at(k * math.pi / 2)
+        zs.append(z)
+        rs.append(r)
+        k += 1
+    return min(zs), min(rs), max(zs), max(rs)
+
+
 @functools.lru_cache(maxsize=4096)  # a sweep flattens the same unchanged arcs again and again
 def _arc_points(arc: Arc, tol: float) -> tuple[Point, ...]:
     """An arc's start point and interior points with chord error at most ``tol``."""
@@ -167,17 +184,13 @@ class Profile:
         zs: list[float] = []
         rs: list[float] = []
         for seg in self.segments:
-            zs.append(seg.start[0])
-            rs.append(seg.start[1])
             if isinstance(seg, Arc):
-                # an arc reaches past its ends where it passes a quarter-turn direction
-                lo, hi = sorted((seg.start_angle, seg.end_angle))
-                k = math.ceil(lo / (math.pi / 2))
-                while k * math.pi / 2 < hi:
-                    z, r = seg.point_at(k * math.pi / 2)
-                    zs.append(z)
-                    rs.append(r)
-                    k += 1
+                z_lo, r_lo, z_hi, r_hi = _arc_box(seg)
+                zs += (z_lo, z_hi)
+                rs += (r_lo, r_hi)
+            else:
+                zs.append(seg.start[0])
+                rs.append(seg.start[1])
         return min(zs), min(rs), max(zs), max(rs)
 
     def bounds(self) -> tuple[float, float, float, float]:
