@@ -307,46 +307,38 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[Ar
     lines: list[LineRow] = []
     arcs: list[ArcRow] = []
     for s in profile.segments:
-        kept_lines, kept_arcs = _clip_segment(s, r_cut)
-        lines.extend(kept_lines)
-        arcs.extend(kept_arcs)
+        if not isinstance(s, Arc):
+            (z0, r0), (z1, r1) = s.start, s.end
+            if (r0 - r_cut) * (r1 - r_cut) < 0:
+                t = (r_cut - r0) / (r1 - r0)
+                z_cut, r_at = z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
+                lines.append((z_cut, r_at, z1, r1) if r1 > r_cut else (z0, r0, z_cut, r_at))
+            elif (r0 + r1) / 2 > r_cut:
+                lines.append((z0, r0, z1, r1))
+        else:
+            zc, rc = s.center
+            cuts = [0.0, 1.0]
+            q = (r_cut - rc) / s.radius
+            if -1 < q < 1:
+                base = math.asin(q)
+                for root in (base, math.pi - base):
+                    # every angle of that root inside the sweep, as a fraction of the sweep
+                    lo, hi = sorted((s.start_angle, s.end_angle))
+                    k = math.ceil((lo - root) / (2 * math.pi))
+                    ang = root + 2 * math.pi * k
+                    while ang < hi:
+                        f = (ang - s.start_angle) / s.sweep
+                        if 0 < f < 1:
+                            cuts.append(f)
+                        ang += 2 * math.pi
+            cuts.sort()
+            for fa, fb in zip(cuts, cuts[1:]):
+                if fb - fa <= 0:
+                    continue
+                mid = s.start_angle + s.sweep * (fa + fb) / 2
+                if rc + s.radius * math.sin(mid) > r_cut:
+                    arcs.append((zc, rc, s.radius, s.start_angle + s.sweep * fa, s.sweep * (fb - fa)))
     return lines, arcs
-
-
-@functools.lru_cache(maxsize=8192)  # a sweep clips the same unchanged segments again and again
-def _clip_segment(s: Line | Arc, r_cut: float) -> tuple[tuple[LineRow, ...], tuple[ArcRow, ...]]:
-    """The pieces of one segment that lie at r ≥ r_cut, as line rows and arc rows."""
-    if not isinstance(s, Arc):
-        (z0, r0), (z1, r1) = s.start, s.end
-        if (r0 - r_cut) * (r1 - r_cut) < 0:
-            t = (r_cut - r0) / (r1 - r0)
-            z_cut, r_at = z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
-            return ((z_cut, r_at, z1, r1) if r1 > r_cut else (z0, r0, z_cut, r_at),), ()
-        return (((z0, r0, z1, r1),) if (r0 + r1) / 2 > r_cut else ()), ()
-    zc, rc = s.center
-    cuts = [0.0, 1.0]
-    q = (r_cut - rc) / s.radius
-    if -1 < q < 1:
-        base = math.asin(q)
-        for root in (base, math.pi - base):
-            # every angle of that root inside the sweep, as a fraction of the sweep
-            lo, hi = sorted((s.start_angle, s.end_angle))
-            k = math.ceil((lo - root) / (2 * math.pi))
-            ang = root + 2 * math.pi * k
-            while ang < hi:
-                f = (ang - s.start_angle) / s.sweep
-                if 0 < f < 1:
-                    cuts.append(f)
-                ang += 2 * math.pi
-    cuts.sort()
-    arcs: list[ArcRow] = []
-    for fa, fb in zip(cuts, cuts[1:]):
-        if fb - fa <= 0:
-            continue
-        mid = s.start_angle + s.sweep * (fa + fb) / 2
-        if rc + s.radius * math.sin(mid) > r_cut:
-            arcs.append((zc, rc, s.radius, s.start_angle + s.sweep * fa, s.sweep * (fb - fa)))
-    return (), tuple(arcs)
 
 
 def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegrals:
