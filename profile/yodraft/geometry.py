@@ -92,7 +92,11 @@ class Arc:
 
     def points(self, tol: float = 0.01) -> list[Point]:
         """Start point and interior points with chord error at most ``tol``."""
-        return list(_arc_points(self, tol))
+        step = 2 * math.acos(max(-1.0, 1 - tol / self.radius)) if tol < self.radius else math.pi / 2
+        n = max(2, math.ceil(abs(self.sweep) / max(step, 1e-6)))
+        (zc, rc), a, t0, sweep = self.center, self.radius, self.start_angle, self.sweep
+        cos, sin = math.cos, math.sin
+        return [(zc + a * cos(t), rc + a * sin(t)) for t in [t0 + sweep * i / n for i in range(n)]]
 
     def reversed(self) -> "Arc":
         return Arc(self.center, self.radius, self.end_angle, -self.sweep)
@@ -121,16 +125,6 @@ def _arc_box(arc: Arc) -> tuple[float, float, float, float]:
     return min(zs), min(rs), max(zs), max(rs)
 
 
-@functools.lru_cache(maxsize=4096)  # a sweep flattens the same unchanged arcs again and again
-def _arc_points(arc: Arc, tol: float) -> tuple[Point, ...]:
-    """An arc's start point and interior points with chord error at most ``tol``."""
-    step = 2 * math.acos(max(-1.0, 1 - tol / arc.radius)) if tol < arc.radius else math.pi / 2
-    n = max(2, math.ceil(abs(arc.sweep) / max(step, 1e-6)))
-    (zc, rc), a, t0, sweep = arc.center, arc.radius, arc.start_angle, arc.sweep
-    cos, sin = math.cos, math.sin
-    return tuple((zc + a * cos(t), rc + a * sin(t)) for t in [t0 + sweep * i / n for i in range(n)])
-
-
 @dataclass(frozen=True)
 class Profile:
     """One closed loop of lines and arcs in the (z, r) half-plane."""
@@ -157,7 +151,7 @@ class Profile:
             if isinstance(seg, Line):
                 out.append(seg.start)  # what Line.points gives, without the call
             else:
-                out.extend(_arc_points(seg, tol))
+                out.extend(seg.points(tol))
         return out
 
     def polygon(self, tol: float = 0.005) -> shapely.Polygon:
