@@ -1,6 +1,7 @@
 """Named checks: each says which feature and parameter it judges, and whether it passed."""
 from __future__ import annotations
 
+import functools
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
@@ -73,6 +74,12 @@ _RADIAL_PAIRS = tuple((f"radial order: {fb}.{pb} outside {fa}.{pa}", f"{fa}.{pa}
                       for (fa, pa), (fb, pb) in zip(RADIAL_ORDER, RADIAL_ORDER[1:]))
 
 
+@functools.lru_cache(maxsize=1024)  # a sweep measures from the same unchanged surfaces again and again
+def _polyline(points: tuple[Point, ...]) -> shapely.Geometry:
+    """A shapely line through ``points`` (a point when there is only one)."""
+    return shapely.linestrings(np.asarray(points)) if len(points) > 1 else shapely.points(points[0])
+
+
 def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]], min_wall: float) -> list[Check]:
     """Least material between neighbouring surfaces, against the shop's thinnest wall."""
     post_wall = (values["bearing_seat.post_diameter"] - values["axle_bore.major_diameter"]) / 2
@@ -83,11 +90,9 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
         check("bearing wall thickness", "pad_groove.inner_diameter", bearing_wall >= min_wall - 1e-9,
               f"{bearing_wall:.3f} mm between wall bore and pad groove, least {min_wall:.3f} mm"),
     ]
-    cup = shapely.linestrings(np.asarray(chunks["rim.outer"][:-1]))  # the cup surface, without the outer edge
+    cup = _polyline(tuple(chunks["rim.outer"][:-1]))  # the cup surface, without the outer edge
     for feature, chunk, where in BACK_WALLS:
-        pts = chunks[f"{feature}.{chunk}"]
-        line = shapely.linestrings(np.asarray(pts)) if len(pts) > 1 else shapely.points(pts[0])
-        wall = float(line.distance(cup))
+        wall = float(_polyline(tuple(chunks[f"{feature}.{chunk}"])).distance(cup))
         out.append(check(f"wall between {feature.replace('_', ' ')} and cup", where, wall >= min_wall - 1e-9,
                          f"{wall:.3f} mm, least {min_wall:.3f} mm"))
     return out
