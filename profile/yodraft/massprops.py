@@ -24,11 +24,8 @@ Units: mm, g, g·mm²; densities in g/cm³ at the call (1 g/cm³ = 1e-3 g/mm³).
 """
 from __future__ import annotations
 
-import functools
 import math
-from collections.abc import Iterable
 from dataclasses import dataclass
-from itertools import repeat
 from typing import NamedTuple, Sequence
 
 from .geometry import Arc, Line, Profile
@@ -183,37 +180,46 @@ def _split(profile: Profile) -> tuple[list[LineRow], list[ArcRow], float]:
     return lines, arcs, r_min
 
 
-@functools.lru_cache(maxsize=8192)  # a sweep integrates the same unchanged pieces again and again
-def _line_terms(row: LineRow, c: float) -> tuple[float, ...]:
-    """One straight piece's share of the seven sums (a, r1, z1, rz, r3, rz2, ∫r ds), in closed form.
+def _line_sums(lines: Sequence[LineRow], c: float) -> list[float]:
+    """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over straight pieces, in closed form.
 
     Along a line r and z are linear in the parameter t, so each −∫ G_k dz is
     −Δz times the mean of a polynomial in t, written out from its end values.
     A face (constant z) adds only to the surface; a turned diameter (constant r)
     has constant G_k.
     """
-    za, ra, zb, rb = row
-    if za == zb:
-        return 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, abs(rb - ra) * 0.5 * (ra + rb)
+    a = r1 = z1 = rz = r3 = rz2 = rds = 0.0
     c2 = c * c
-    dz = za - zb  # the minus sign of −∮ G dz folded in
-    z_sum = za + zb
-    zz_mean = (za * za + za * zb + zb * zb) / 3
-    if ra == rb:
-        g0, g1 = ra - c, 0.5 * (ra * ra - c2)
-        return (dz * g0, dz * g1, dz * g0 * 0.5 * z_sum, dz * g1 * 0.5 * z_sum, dz * 0.25 * (ra * ra * ra * ra - c2 * c2),
-                dz * g1 * zz_mean, abs(dz) * ra)
-    raa, rab, rbb = ra * ra, ra * rb, rb * rb
-    rr_mean = (raa + rab + rbb) / 3
-    zaa, zab, zbb = za * za, za * zb, zb * zb
-    return (dz * (0.5 * (ra + rb) - c),
-            dz * 0.5 * (rr_mean - c2),
-            dz * ((ra * (2 * za + zb) + rb * (za + 2 * zb)) / 6 - 0.5 * c * z_sum),
-            dz * 0.5 * ((za * (3 * raa + 2 * rab + rbb) + zb * (raa + 2 * rab + 3 * rbb)) / 12 - 0.5 * c2 * z_sum),
-            dz * 0.25 * (((raa + rbb) * 3 * rr_mean - rab * rab) / 5 - c2 * c2),
-            dz * 0.5 * ((raa * (6 * zaa + 3 * zab + zbb) + rab * (3 * zaa + 4 * zab + 3 * zbb)
-                         + rbb * (zaa + 3 * zab + 6 * zbb)) / 30 - c2 * zz_mean),
-            math.hypot(zb - za, rb - ra) * 0.5 * (ra + rb))
+    c4 = c2 * c2
+    for za, ra, zb, rb in lines:
+        if za == zb:
+            rds += abs(rb - ra) * 0.5 * (ra + rb)
+            continue
+        dz = za - zb  # the minus sign of −∮ G dz folded in
+        z_sum = za + zb
+        zz_mean = (za * za + za * zb + zb * zb) / 3
+        if ra == rb:
+            g0, g1 = ra - c, 0.5 * (ra * ra - c2)
+            a += dz * g0
+            r1 += dz * g1
+            z1 += dz * g0 * 0.5 * z_sum
+            rz += dz * g1 * 0.5 * z_sum
+            r3 += dz * 0.25 * (ra * ra * ra * ra - c4)
+            rz2 += dz * g1 * zz_mean
+            rds += abs(dz) * ra
+            continue
+        raa, rab, rbb = ra * ra, ra * rb, rb * rb
+        rr_mean = (raa + rab + rbb) / 3
+        a += dz * (0.5 * (ra + rb) - c)
+        r1 += dz * 0.5 * (rr_mean - c2)
+        z1 += dz * ((ra * (2 * za + zb) + rb * (za + 2 * zb)) / 6 - 0.5 * c * z_sum)
+        rz += dz * 0.5 * ((za * (3 * raa + 2 * rab + rbb) + zb * (raa + 2 * rab + 3 * rbb)) / 12 - 0.5 * c2 * z_sum)
+        r3 += dz * 0.25 * (((raa + rbb) * 3 * rr_mean - rab * rab) / 5 - c4)
+        zaa, zab, zbb = za * za, za * zb, zb * zb
+        rz2 += dz * 0.5 * ((raa * (6 * zaa + 3 * zab + zbb) + rab * (3 * zaa + 4 * zab + 3 * zbb)
+                            + rbb * (zaa + 3 * zab + 6 * zbb)) / 30 - c2 * zz_mean)
+        rds += math.hypot(zb - za, rb - ra) * 0.5 * (ra + rb)
+    return [a, r1, z1, rz, r3, rz2, rds]
 
 
 def _sine_moments(t0: float, dt: float) -> tuple[float, ...]:
@@ -235,9 +241,8 @@ def _sine_moments(t0: float, dt: float) -> tuple[float, ...]:
     return p1, p2, p3, p4, p5, (s1_2 - s0_2) / 2, (s1_3 - s0_3) / 3, (s1_4 - s0_4) / 4
 
 
-@functools.lru_cache(maxsize=8192)
-def _arc_terms(row: ArcRow, c: float) -> tuple[float, ...]:
-    """One arc's share of the seven sums (a, r1, z1, rz, r3, rz2, ∫r ds), in closed form.
+def _arc_sums(arcs: Sequence[ArcRow], c: float) -> list[float]:
+    """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over arcs, in closed form.
 
     On an arc r = rc + a sinθ, z = zc + a cosθ and dz = −a sinθ dθ, so each
     −∫ G_k dz = ∫ G_k a sinθ dθ is a polynomial in sinθ and cosθ, integrated
@@ -245,43 +250,34 @@ def _arc_terms(row: ArcRow, c: float) -> tuple[float, ...]:
     end values, so on a very short arc the error is about one rounding of the
     arc's largest term rather than of its (small) result.
     """
-    zc, rc, a, t0, dt = row
+    area = r1 = z1 = rz = r3 = rz2 = rds = 0.0
     c2 = c * c
-    p1, p2, p3, p4, p5, q1, q2, q3 = _sine_moments(t0, dt)
-    rc2, aa = rc * rc, a * a
-    # G0 = r − c and G1 = (r² − c²)/2 in powers of sinθ, each times one more sinθ from dz
-    g0_p = (rc - c) * p1 + a * p2
-    g0_q = (rc - c) * q1 + a * q2
-    e0, e1, e2 = 0.5 * (rc2 - c2), rc * a, 0.5 * aa
-    g1_p = e0 * p1 + e1 * p2 + e2 * p3
-    g1_q = e0 * q1 + e1 * q2 + e2 * q3
-    g1_cc = e0 * (p1 - p3) + e1 * (p2 - p4) + e2 * (p3 - p5)
-    # G4 = (r⁴ − c⁴)/4
-    g4_p = (0.25 * (rc2 * rc2 - c2 * c2) * p1 + rc2 * rc * a * p2 + 1.5 * rc2 * aa * p3
-            + rc * aa * a * p4 + 0.25 * aa * aa * p5)
-    return (a * g0_p, a * g1_p, a * (zc * g0_p + a * g0_q), a * (zc * g1_p + a * g1_q), a * g4_p,
-            a * (zc * zc * g1_p + 2 * zc * a * g1_q + aa * g1_cc), math.copysign(a, dt) * (rc * dt + a * p1))
-
-
-def _total(terms: Iterable[tuple[float, ...]]) -> list[float]:
-    """The seven sums over pieces, added up in loop order."""
-    a = r1 = z1 = rz = r3 = rz2 = rds = 0.0
-    for ta, tr1, tz1, trz, tr3, trz2, trds in terms:
-        a += ta
-        r1 += tr1
-        z1 += tz1
-        rz += trz
-        r3 += tr3
-        rz2 += trz2
-        rds += trds
-    return [a, r1, z1, rz, r3, rz2, rds]
+    for zc, rc, a, t0, dt in arcs:
+        p1, p2, p3, p4, p5, q1, q2, q3 = _sine_moments(t0, dt)
+        rc2, aa = rc * rc, a * a
+        # G0 = r − c and G1 = (r² − c²)/2 in powers of sinθ, each times one more sinθ from dz
+        g0_p = (rc - c) * p1 + a * p2
+        g0_q = (rc - c) * q1 + a * q2
+        e0, e1, e2 = 0.5 * (rc2 - c2), rc * a, 0.5 * aa
+        g1_p = e0 * p1 + e1 * p2 + e2 * p3
+        g1_q = e0 * q1 + e1 * q2 + e2 * q3
+        g1_cc = e0 * (p1 - p3) + e1 * (p2 - p4) + e2 * (p3 - p5)
+        # G4 = (r⁴ − c⁴)/4
+        g4_p = (0.25 * (rc2 * rc2 - c2 * c2) * p1 + rc2 * rc * a * p2 + 1.5 * rc2 * aa * p3
+                + rc * aa * a * p4 + 0.25 * aa * aa * p5)
+        area += a * g0_p
+        r1 += a * g1_p
+        z1 += a * (zc * g0_p + a * g0_q)
+        rz += a * (zc * g1_p + a * g1_q)
+        r3 += a * g4_p
+        rz2 += a * (zc * zc * g1_p + 2 * zc * a * g1_q + aa * g1_cc)
+        rds += math.copysign(a, dt) * (rc * dt + a * p1)
+    return [area, r1, z1, rz, r3, rz2, rds]
 
 
 def _sums(lines: Sequence[LineRow], arcs: Sequence[ArcRow], r_cut: float) -> SectionIntegrals:
     """The Green's-theorem sums over line and arc pieces that lie wholly at r ≥ r_cut."""
-    c = repeat(r_cut)
-    line_sums, arc_sums = _total(map(_line_terms, lines, c)), _total(map(_arc_terms, arcs, c))
-    a, r1, z1, rz, r3, rz2, rds = (x + y for x, y in zip(line_sums, arc_sums))
+    a, r1, z1, rz, r3, rz2, rds = (x + y for x, y in zip(_line_sums(lines, r_cut), _arc_sums(arcs, r_cut)))
     return SectionIntegrals(a, r1, z1, rz, r3, rz2, 2 * math.pi * rds)
 
 
