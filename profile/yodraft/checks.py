@@ -3,8 +3,7 @@ from __future__ import annotations
 
 import functools
 from collections.abc import Mapping, Sequence
-from dataclasses import dataclass
-from typing import TYPE_CHECKING, Any
+from typing import TYPE_CHECKING, Any, NamedTuple
 
 import numpy as np
 import shapely
@@ -15,9 +14,11 @@ if TYPE_CHECKING:  # pragma: no cover
 __all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks"]
 
 
-@dataclass(frozen=True)
-class Check:
-    """One rule applied to a design: ``feature.parameter`` is what to change when it fails."""
+class Check(NamedTuple):
+    """One rule applied to a design: ``feature.parameter`` is what to change when it fails.
+
+    A NamedTuple rather than a dataclass: a sweep makes tens of thousands, and this is the cheapest to build.
+    """
 
     name: str
     feature: str

@@ -13,7 +13,7 @@ from __future__ import annotations
 import functools
 import math
 from dataclasses import dataclass, field
-from typing import Union
+from typing import NamedTuple, Union
 
 import numpy as np
 import shapely
@@ -206,9 +206,11 @@ class Profile:
         return Profile(tuple(moved))
 
 
-@dataclass(frozen=True)
-class FilletVertex:
-    """A loop corner, optionally rounded with ``radius``; ``owner`` names the feature.parameter of the radius."""
+class FilletVertex(NamedTuple):
+    """A loop corner, optionally rounded with ``radius``; ``owner`` names the feature.parameter of the radius.
+
+    A NamedTuple rather than a dataclass: a sweep makes one per corner per variant.
+    """
 
     point: Point
     radius: float = 0.0
