@@ -92,11 +92,36 @@ class Arc:
 
     def points(self, tol: float = 0.01) -> list[Point]:
         """Start point and interior points with chord error at most ``tol``."""
+        return list(self.flattened(tol))
+
+    def flattened(self, tol: float) -> tuple[Point, ...]:
+        """What ``points(tol)`` gives, kept on the arc for the last ``tol`` asked (a sweep reuses unchanged arcs)."""
+        kept = self.__dict__.get("_flattened")
+        if kept is not None and kept[0] == tol:
+            return kept[1]
         step = 2 * math.acos(max(-1.0, 1 - tol / self.radius)) if tol < self.radius else math.pi / 2
         n = max(2, math.ceil(abs(self.sweep) / max(step, 1e-6)))
         (zc, rc), a, t0, sweep = self.center, self.radius, self.start_angle, self.sweep
         cos, sin = math.cos, math.sin
-        return [(zc + a * cos(t), rc + a * sin(t)) for t in [t0 + sweep * i / n for i in range(n)]]
+        pts = tuple((zc + a * cos(t), rc + a * sin(t)) for t in [t0 + sweep * i / n for i in range(n)])
+        self.__dict__["_flattened"] = (tol, pts)  # a cache, not a field: equality and hashing ignore it
+        return pts
+
+    @functools.cached_property
+    def extent(self) -> tuple[float, float, float, float]:
+        """(z_min, r_min, z_max, r_max) of the start point and every quarter-turn direction the arc passes.
+
+        The end is the next segment's start, so a loop's bounds are exact from these.
+        """
+        zs, rs = [self.start[0]], [self.start[1]]
+        lo, hi = sorted((self.start_angle, self.end_angle))
+        k = math.ceil(lo / (math.pi / 2))
+        while k * math.pi / 2 < hi:
+            z, r = self.point_at(k * math.pi / 2)
+            zs.append(z)
+            rs.append(r)
+            k += 1
+        return min(zs), min(rs), max(zs), max(rs)
 
     def reversed(self) -> "Arc":
         return Arc(self.center, self.radius, self.end_angle, -self.sweep)
@@ -106,23 +131,6 @@ class Arc:
 
 
 Segment = Union[Line, Arc]
-
-
-@functools.lru_cache(maxsize=4096)  # a sweep measures the same unchanged arcs again and again
-def _arc_box(arc: Arc) -> tuple[float, float, float, float]:
-    """(z_min, r_min, z_max, r_max) of an arc's start and every quarter-turn direction it passes.
-
-    Its end is the next segment's start, so a loop's bounds are exact from these.
-    """
-    zs, rs = [arc.start[0]], [arc.start[1]]
-    lo, hi = sorted((arc.start_angle, arc.end_angle))
-    k = math.ceil(lo / (math.pi / 2))
-    while k * math.pi / 2 < hi:
-        z, r = arc.point_at(k * math.pi / 2)
-        zs.append(z)
-        rs.append(r)
-        k += 1
-    return min(zs), min(rs), max(zs), max(rs)
 
 
 @dataclass(frozen=True)
@@ -151,7 +159,7 @@ class Profile:
             if isinstance(seg, Line):
                 out.append(seg.start)  # what Line.points gives, without the call
             else:
-                out.extend(seg.points(tol))
+                out.extend(seg.flattened(tol))
         return out
 
     def polygon(self, tol: float = 0.005) -> shapely.Polygon:
@@ -179,7 +187,7 @@ class Profile:
         rs: list[float] = []
         for seg in self.segments:
             if isinstance(seg, Arc):
-                z_lo, r_lo, z_hi, r_hi = _arc_box(seg)
+                z_lo, r_lo, z_hi, r_hi = seg.extent
                 zs += (z_lo, z_hi)
                 rs += (r_lo, r_hi)
             else:
