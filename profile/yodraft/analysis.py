@@ -1,7 +1,9 @@
 """Mass properties, spin metrics and balance of a resolved design: one half, the small parts, the assembly."""
 from __future__ import annotations
 
+import functools
 from dataclasses import dataclass
+from typing import Any
 
 from .balance import BalanceResult, balance
 from .builder import Resolved
@@ -26,29 +28,41 @@ class Analysis:
     axle_length_mm: float
 
 
-def small_parts(resolved: Resolved) -> tuple[list[PointPart], float]:
+def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
     """The bearing, the axle and the two response pads placed where they sit, and the axle length.
 
     The axle spans the post spacing and runs into each half's thread short of the
     full-thread depth by one pitch (common practice, no published source).
     """
     v = resolved.values
-    parts_spec = resolved.design["parts"]
-    bearing = ring_part("bearing", v["bearing.mass"], v["bearing.bore"] / 2, v["bearing.od"] / 2, v["bearing.width"], 0.0)
-    pad_class = resolved.features["pad_groove"].extra["pad"]
-    r_in, r_out = v["pad_groove.inner_diameter"] / 2, v["pad_groove.pad_diameter"] / 2
-    depth = v["pad_groove.depth"]
-    pad_mass = parts_spec["pad_mass"]
+    spec = resolved.design["parts"]
+    pad_density = resolved.features["pad_groove"].extra["pad"].pad_density_g_cm3
+    return _placed_parts(
+        (v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"]),
+        (spec["pad_mass"], pad_density, v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"],
+         v["pad_groove.depth"], v["pad_groove.face_z"]),
+        (spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"], v["axle_bore.pitch"],
+         v["axle_bore.major_diameter"]),
+    )
+
+
+@functools.lru_cache(maxsize=256)  # a sweep of the outer shape places the same small parts every time
+def _placed_parts(bearing: tuple[float, ...], pad: tuple[Any, ...],
+                  axle: tuple[Any, ...]) -> tuple[tuple[PointPart, ...], float]:
+    bearing_mass, bore, od, width = bearing
+    pad_mass, pad_density, pad_inner_d, pad_outer_d, depth, face_z = pad
+    axle_mass, spacing, thread_depth, pitch, major_d = axle
+    bearing_part = ring_part("bearing", bearing_mass, bore / 2, od / 2, width, 0.0)
+    r_in, r_out = pad_inner_d / 2, pad_outer_d / 2
     if pad_mass is None:
-        pad_mass = ring_mass_g(pad_class.pad_density_g_cm3, r_in, r_out, depth)
-    pad = ring_part("response pad", pad_mass, r_in, r_out, depth, v["pad_groove.face_z"] + depth / 2)
-    axle_length = v["bearing_seat.spacing"] + 2 * (v["axle_bore.thread_depth"] - v["axle_bore.pitch"])
-    axle_r = (v["axle_bore.major_diameter"] - PITCH_DIAMETER_FACTOR * v["axle_bore.pitch"]) / 2
-    axle_mass = parts_spec["axle_mass"]
+        pad_mass = ring_mass_g(pad_density, r_in, r_out, depth)
+    pad_part = ring_part("response pad", pad_mass, r_in, r_out, depth, face_z + depth / 2)
+    axle_length = spacing + 2 * (thread_depth - pitch)
+    axle_r = (major_d - PITCH_DIAMETER_FACTOR * pitch) / 2
     if axle_mass is None:
         axle_mass = ring_mass_g(AXLE_DENSITY_G_CM3, 0.0, axle_r, axle_length)
-    axle = cylinder_part("axle", axle_mass, axle_r, axle_length, 0.0)
-    return [bearing, axle, pad, mirrored_part(pad)], axle_length
+    axle_part = cylinder_part("axle", axle_mass, axle_r, axle_length, 0.0)
+    return (bearing_part, axle_part, pad_part, mirrored_part(pad_part)), axle_length
 
 
 @dataclass(frozen=True)
