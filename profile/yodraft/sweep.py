@@ -14,6 +14,7 @@ resolved once.
 """
 from __future__ import annotations
 
+import gc
 import math
 import os
 import re
@@ -238,11 +239,16 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
     else:
         size = max(16, math.ceil(total / (workers * 8)))
         chunks = [points[k:k + size] for k in range(0, total, size)]
-        with ProcessPoolExecutor(max_workers=workers, mp_context=_context()) as pool:
-            for result in pool.map(_run_chunk, [base] * len(chunks), [tuple(axes)] * len(chunks), chunks):
-                done.extend(result)
-                if progress:
-                    progress(len(done), total)
+        # objects that exist before the fork are frozen, so no worker's collector walks (and copies) them
+        gc.freeze()
+        try:
+            with ProcessPoolExecutor(max_workers=workers, mp_context=_context()) as pool:
+                for result in pool.map(_run_chunk, [base] * len(chunks), [tuple(axes)] * len(chunks), chunks):
+                    done.extend(result)
+                    if progress:
+                        progress(len(done), total)
+        finally:
+            gc.unfreeze()
     done.sort(key=lambda v: v.index)
     return SweepResult(base.name, tuple(axes), tuple(done))
 
