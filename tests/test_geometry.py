@@ -1,7 +1,6 @@
 """Exact lines, arcs and loops: areas, bounds, fillets, mirroring, immutability."""
 from __future__ import annotations
 
-import dataclasses
 import math
 
 import pytest
@@ -70,7 +69,7 @@ def test_segments_and_profiles_are_immutable() -> None:
     arc = Arc((0, 0), 1.0, 0.0, 1.0)
     square = Profile.from_points([(0, 0), (1, 0), (1, 1), (0, 1)])
     for obj, field in ((line, "start"), (arc, "radius"), (square, "segments")):
-        with pytest.raises(dataclasses.FrozenInstanceError):
+        with pytest.raises(AttributeError):  # a frozen dataclass's FrozenInstanceError is one too
             setattr(obj, field, None)
 
 

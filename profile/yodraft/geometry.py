@@ -31,9 +31,8 @@ class GeometryError(ValueError):
 _dist = math.dist  # distance between two points (the same sum as math.hypot of the differences)
 
 
-@dataclass(frozen=True)
-class Line:
-    """A straight segment from ``start`` to ``end``."""
+class Line(NamedTuple):
+    """A straight segment from ``start`` to ``end`` (a NamedTuple: a sweep makes one per edge per variant)."""
 
     start: Point
     end: Point
@@ -258,7 +257,7 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     not fit on their edges (those corners are left sharp).
     """
     n = len(vertices)
-    pts = [(v.point[0] + 0.0, v.point[1] + 0.0) for v in vertices]  # + 0.0 turns −0.0 into 0.0: one key per corner
+    pts = [v.point for v in vertices]
     edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]  # edge i runs from corner i to corner i + 1
     if min(edge, default=0.0) <= 1e-9:
         # drop repeated points so every edge has a direction

@@ -12,8 +12,11 @@ __all__ = ["Context", "FeatureResult", "V"]
 
 
 def V(z: float, r: float, radius: float = 0.0, owner: str = "") -> FilletVertex:
-    """A loop corner at (z, r), optionally rounded; ``owner`` names the radius parameter."""
-    return FilletVertex((float(z), float(r)), float(radius), owner)
+    """A loop corner at (z, r), optionally rounded; ``owner`` names the radius parameter.
+
+    A zero is always +0.0, so equal corners are equal keys for the fillet cache, sign of zero included.
+    """
+    return FilletVertex((float(z) + 0.0, float(r) + 0.0), float(radius), owner)
 
 
 @dataclass
