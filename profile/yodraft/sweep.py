@@ -237,7 +237,7 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
             if progress:
                 progress(len(done), total)
     else:
-        size = max(16, math.ceil(total / (workers * 8)))
+        size = max(16, math.ceil(total / (workers * 16)))  # small chunks: no worker idles long at the end
         chunks = [points[k:k + size] for k in range(0, total, size)]
         # objects that exist before the fork are frozen, so no worker's collector walks (and copies) them
         gc.freeze()
