@@ -22,6 +22,29 @@ def test_template_dir_is_the_repository_folder() -> None:
     assert template_dir() == TEMPLATES
 
 
+def test_a_regular_install_finds_the_copies_under_its_prefix(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    # no checkout beside the package: the templates come from <prefix>/share/yodraft/templates
+    import sys
+
+    import yodraft.templates as templates
+
+    installed = tmp_path / "share" / "yodraft" / "templates"
+    installed.mkdir(parents=True)
+    (installed / "string-trick.toml").write_bytes((TEMPLATES / "string-trick.toml").read_bytes())
+    monkeypatch.setattr(templates, "__file__", str(tmp_path / "site" / "yodraft" / "templates.py"))
+    monkeypatch.setattr(sys, "prefix", str(tmp_path))
+    assert template_dir() == installed
+    assert [t.name for t in list_templates()] == ["string-trick"]
+    monkeypatch.setattr(sys, "prefix", str(tmp_path / "elsewhere"))
+    assert template_dir() is None
+
+
+def test_pyproject_installs_every_template() -> None:
+    # the data-files entry of pyproject.toml is what puts the templates under the prefix
+    data = tomllib.loads((TEMPLATES.parent / "pyproject.toml").read_text(encoding="utf-8"))
+    assert data["tool"]["setuptools"]["data-files"] == {"share/yodraft/templates": ["templates/*.toml"]}
+
+
 def test_templates_lists_every_file_with_its_description(capsys: pytest.CaptureFixture[str]) -> None:
     assert main(["templates"]) == 0
     out = capsys.readouterr().out.splitlines()

@@ -2,17 +2,22 @@
 
 The templates are the ``*.toml`` files of the project's ``templates/`` folder,
 beside the ``profile/`` source root (an editable install, as the README sets
-up, finds them there). Each template's first comment line is its one-line description.
+up, finds them there; a regular install copies them under the environment's
+``share/yodraft/templates``). Each template's first comment line is its one-line description.
 """
 from __future__ import annotations
 
 import re
+import sys
 from dataclasses import dataclass
 from pathlib import Path
 
 from .errors import DesignInputError
 
-__all__ = ["Template", "template_dir", "list_templates", "find_template", "new_design"]
+__all__ = ["Template", "template_dir", "list_templates", "find_template", "new_design", "INSTALLED_TEMPLATES"]
+
+#: where a regular (not editable) install puts the templates, below the environment's prefix
+INSTALLED_TEMPLATES = Path("share") / "yodraft" / "templates"
 
 
 @dataclass(frozen=True)
@@ -25,9 +30,15 @@ class Template:
 
 
 def template_dir() -> Path | None:
-    """The folder holding the starter designs, or None when none can be found."""
-    beside = Path(__file__).resolve().parents[2] / "templates"
-    return beside if beside.is_dir() else None
+    """The folder holding the starter designs, or None when none can be found.
+
+    The project's ``templates/`` beside ``profile/`` (a checkout or an editable
+    install), else the copy a regular install puts under ``<prefix>/share/yodraft/templates``.
+    """
+    for folder in (Path(__file__).resolve().parents[2] / "templates", Path(sys.prefix) / INSTALLED_TEMPLATES):
+        if folder.is_dir():
+            return folder
+    return None
 
 
 def _description(text: str) -> str:
