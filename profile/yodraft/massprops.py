@@ -313,6 +313,8 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[Ar
                 lines.append((z0, r0, z1, r1))
         else:
             zc, rc = s.center
+            if rc + s.radius <= r_cut:
+                continue  # the whole circle lies at or below the cut: no piece of the arc is kept
             cuts = [0.0, 1.0]
             q = (r_cut - rc) / s.radius
             if -1 < q < 1:
