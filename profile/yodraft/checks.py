@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import functools
+from itertools import chain
 from collections.abc import Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
@@ -116,7 +117,8 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    ring = shapely.linearrings(np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE)))
+    flat = profile.flatten(LOOP_CHECK_TOLERANCE)
+    ring = shapely.linearrings(np.fromiter(chain.from_iterable(flat), float, 2 * len(flat)).reshape(-1, 2))
     simple = ring.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, r_min, z_max, r_max = profile.bounds()
     out = [

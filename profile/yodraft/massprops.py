@@ -24,6 +24,7 @@ Units: mm, g, g·mm²; densities in g/cm³ at the call (1 g/cm³ = 1e-3 g/mm³).
 """
 from __future__ import annotations
 
+import functools
 import math
 from dataclasses import dataclass
 from typing import NamedTuple, Sequence
@@ -139,7 +140,18 @@ class AssemblyProps:
     izz_g_mm2: float
     ixx_g_mm2: float
     z_centroid_mm: float
-    budget: tuple[BudgetLine, ...]
+
+    @functools.cached_property
+    def budget(self) -> tuple[BudgetLine, ...]:
+        """The mass budget: the two halves, then each kind of part (parts with the same name counted together)."""
+        lines = [BudgetLine("half", 2, self.half.mass_g, 2 * self.half.mass_g)]
+        seen: dict[str, list[PointPart]] = {}
+        for p in self.parts:
+            seen.setdefault(p.name, []).append(p)
+        for name, group in seen.items():
+            m = sum(p.mass_g for p in group)
+            lines.append(BudgetLine(name, len(group), m / len(group), m))
+        return tuple(lines)
 
 
 # --------------------------------------------------------------------- section integrals
@@ -444,11 +456,4 @@ def assemble(half: BodyProps, parts: Sequence[PointPart]) -> AssemblyProps:
     izz = 2 * half.izz_g_mm2 + sum(p.izz_g_mm2 for p in parts)
     ixx = 2 * half.ixx_g_mm2 + sum(p.ixx_g_mm2 for p in parts)
     zc = sum(p.mass_g * p.z_mm for p in parts) / total if total > 0 else 0.0
-    budget = [BudgetLine("half", 2, half.mass_g, 2 * half.mass_g)]
-    seen: dict[str, list[PointPart]] = {}
-    for p in parts:
-        seen.setdefault(p.name, []).append(p)
-    for name, group in seen.items():
-        m = sum(p.mass_g for p in group)
-        budget.append(BudgetLine(name, len(group), m / len(group), m))
-    return AssemblyProps(half, parts, total, izz, ixx, zc, tuple(budget))
+    return AssemblyProps(half, parts, total, izz, ixx, zc)
