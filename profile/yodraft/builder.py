@@ -159,9 +159,7 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
     memo = memo if memo is not None else BuildMemo()
     values: dict[str, Any] = {}
     values.update(memo.source("bearing", design["bearing"], lambda: resolve_bearing(design)))
-    material = design["design"]
-    values.update(memo.source("material", (material["material"], material["density"]),
-                              lambda: resolve_material(design)))
+    values.update(memo.source("material", design["design"], lambda: resolve_material(design)))
     values.update({f"envelope.{k}": v for k, v in design["envelope"].items()})
     results: dict[str, FeatureResult] = {}
     readable = MappingProxyType(values)  # features read earlier values, never write them

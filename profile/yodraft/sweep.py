@@ -24,11 +24,12 @@ from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, Any
 
+from .builder import BuildMemo, build
 from .errors import DesignInputError, YodraftError
 from .params import DISPLAY_UNITS
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .builder import BuildMemo, Resolved
+    from .builder import Resolved
     from .design import Design
 
 __all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text", "svg_plot",
@@ -178,13 +179,11 @@ def _outputs(resolved: "Resolved") -> dict[str, float | None]:
 
 
 def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float],
-                memo: "BuildMemo | None" = None) -> Variant:
+                memo: BuildMemo | None = None) -> Variant:
     """Resolve and check one variant; an input the builder rejects makes it a failed variant, not an error.
 
     ``memo`` carries the features the varied keys do not reach over from the previous variant.
     """
-    from .builder import build
-
     assignments = list(zip([a.key for a in axes], values))
     shown = tuple(a.shown(v) for a, v in zip(axes, values))
     try:
@@ -196,8 +195,6 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
 
 
 def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:
-    from .builder import BuildMemo
-
     memo = BuildMemo()
     return [run_variant(base, axes, i, vals, memo) for i, vals in points]
 
@@ -229,8 +226,6 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
     workers = workers if workers is not None else min(os.cpu_count() or 1, 8)
     done: list[Variant] = []
     if workers <= 1 or total < 64:
-        from .builder import BuildMemo
-
         memo = BuildMemo()
         for i, vals in points:
             done.append(run_variant(base, axes, i, vals, memo))
