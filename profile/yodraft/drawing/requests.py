@@ -1,0 +1,256 @@
+"""What the sheet dimensions, as plain data: one ``DimensionRequest`` per dimension, in model coordinates.
+
+This module decides WHICH dimensions the sheet carries and what their texts say; the layout
+(``drawing/layout.py``) decides WHERE they go (lanes, text positions, flips) and never the reverse.
+Every point comes from the drawn profile (``locate``), so each dimension measures the geometry.
+
+>>> r = DimensionRequest(("rim.width",), "linear", ((10.0, 28.0), (18.0, 28.0)), direction="axial")
+>>> measure(r), label(r, "8")
+(8.0, '8')
+>>> label(DimensionRequest(("rim.diameter",), "diameter", ((18.0, 28.0),), auxiliary=True), "56")
+'(Ø56)'
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from ..builder import Resolved
+from ..geometry import Arc, Point, Profile
+from ..units import MM_PER_INCH as IN
+from .locate import corner, on_face, on_radius
+
+__all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
+           "detail_requests", "detail_region", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+
+DIA = "Ø"
+KINDS = ("linear", "diameter", "radius", "angle")
+VIEWS = ("main", "detail")
+SIDES = ("", "above", "below", "left", "right")
+
+
+@dataclass(frozen=True)
+class DimensionRequest:
+    """One dimension the sheet must show.
+
+    keys        feature.parameter keys it shows (the DXF DIMENSION carries them as YODRAFT xdata)
+    kind        ``linear`` (``points`` = p1, p2; ``direction`` ``axial`` measures Δz, ``radial`` Δr),
+                ``diameter`` (``points`` = (p,), a point of the upper outline at radius r: shows 2r as a
+                half-shown diameter from the axis, ISO 129-1), ``radius`` (``points`` = (centre, a point
+                of the arc)) or ``angle`` (``points`` = (vertex, p1, p2), counter-clockwise from p1 to p2)
+    view        ``main`` (the section) or ``detail`` (the seat enlargement)
+    text        the value's text: ``<>`` is the measured value; empty means the kind's prefix (Ø, R) + ``<>``
+    tolerance   written after the value, e.g. ``±0.005`` or ``+0.05/0``; a second line may follow ``\\n``
+    auxiliary   shown in parentheses, not toleranced, for information only (ISO 129-1 auxiliary dimension)
+    side        where the layout tries first: ``above``/``below`` (axial) or ``left``/``right`` (radial and
+                diameters; left is the gap side), empty for the kind's default; the layout may move it
+    lower       draw it on the mirrored (lower) half of the section
+    decimals    most decimals of the measured value (trailing zeros dropped)
+    """
+
+    keys: tuple[str, ...]
+    kind: str
+    points: tuple[Point, ...]
+    view: str = "main"
+    direction: str = ""
+    text: str = ""
+    tolerance: str = ""
+    auxiliary: bool = False
+    side: str = ""
+    lower: bool = False
+    decimals: int = 2
+
+    def __post_init__(self) -> None:
+        need = {"linear": 2, "diameter": 1, "radius": 2, "angle": 3}
+        if self.kind not in KINDS or len(self.points) != need[self.kind]:
+            raise ValueError(f"dimension {self.keys}: kind {self.kind!r} with {len(self.points)} points")
+        if self.view not in VIEWS or self.side not in SIDES:
+            raise ValueError(f"dimension {self.keys}: view {self.view!r}, side {self.side!r}")
+        if self.kind == "linear" and self.direction not in ("axial", "radial"):
+            raise ValueError(f"dimension {self.keys}: a linear dimension is axial or radial")
+
+
+def measure(req: DimensionRequest) -> float:
+    """The value the dimension shows: mm, or degrees for an angle."""
+    p = req.points
+    if req.kind == "linear":
+        i = 0 if req.direction == "axial" else 1
+        return abs(p[1][i] - p[0][i])
+    if req.kind == "diameter":
+        return 2.0 * abs(p[0][1])
+    if req.kind == "radius":
+        return math.dist(p[0], p[1])
+    a1 = math.atan2(p[1][1] - p[0][1], p[1][0] - p[0][0])
+    a2 = math.atan2(p[2][1] - p[0][1], p[2][0] - p[0][0])
+    return math.degrees((a2 - a1) % (2 * math.pi))
+
+
+def format_value(value: float, decimals: int) -> str:
+    """``value`` to at most ``decimals`` places, trailing zeros dropped (ISO 129-1 writes 8, not 8.00).
+
+    >>> format_value(8.0, 2), format_value(1.875, 2), format_value(0.5, 3)
+    ('8', '1.88', '0.5')
+    """
+    s = f"{value:.{decimals}f}"
+    if "." in s:
+        s = s.rstrip("0").rstrip(".")
+    return "0" if s in ("-0", "") else s
+
+
+def label(req: DimensionRequest, value: str) -> str:
+    """The first line of the dimension's text with ``value`` filled in (tolerance's first line included)."""
+    if req.text:
+        body = req.text.replace("<>", value)
+    else:
+        body = {"diameter": DIA, "radius": "R"}.get(req.kind, "") + value + ("°" if req.kind == "angle" else "")
+    tol = req.tolerance.split("\n")[0]
+    body = f"{body} {tol}" if tol else body
+    return f"({body})" if req.auxiliary else body
+
+
+def seat_fit(resolved: Resolved):  # type: ignore[no-untyped-def]
+    """The bearing seat's fit (post and wall bore limits) as the builder worked it out."""
+    fit = getattr(resolved, "seat_fit", None)
+    return fit if fit is not None else resolved.features["bearing_seat"].extra["seat_fit"]
+
+
+def datum_face_z(resolved: Resolved) -> float:
+    """z of datum face B, the outer (back) face: faced first, every axial position is measured from it."""
+    return float(resolved["rim.face_z"])
+
+
+def thread_callout(resolved: Resolved) -> str:
+    """The thread designation as ISO 965-1 writes it, e.g. ``M4×0.7-6H``."""
+    d = resolved.features["axle_bore"].dims
+    return f"{str(d['thread']).replace('x', '×')}-{d['tolerance_class']}"
+
+
+def detail_region(resolved: Resolved) -> tuple[float, float, float, float]:
+    """(z_min, r_min, z_max, r_max) of the seat detail: post, seat face, vent groove, wall and pad groove."""
+    v = resolved.values
+    z0 = v["bearing_seat.post_face_z"] - 1.0
+    z1 = max(v["vent_groove.bottom_z"], v["pad_groove.bottom_z"]) + 1.0
+    r1 = v["pad_groove.inner_diameter"] / 2 + 0.5
+    return (z0, 0.0, z1, r1)
+
+
+def _tolerance(tol_mm: float, nominal_mm: float, inch: bool) -> str:
+    text = f"±{tol_mm:.5f}"
+    if inch:
+        text += f"\n[{nominal_mm / IN:.5f} ±{tol_mm / IN:.5f} in]"
+    return text
+
+
+def section_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The dimensions of the main view (the seat's own sizes are on the detail)."""
+    profile = resolved.profile
+    assert profile is not None
+    v = resolved.values
+    R = profile.bounds()[3]
+    wall_z = v["bearing_seat.wall_face_z"]
+    out: list[DimensionRequest] = []
+    # diameters on the outer side
+    for keys, at in (
+        (("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),
+        (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
+        (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
+        (("rim.diameter",), on_radius(profile, R)),
+    ):
+        out.append(DimensionRequest(keys, "diameter", (at,), side="right"))
+    # diameters on the gap side that the detail does not carry
+    for keys, at in (
+        (("pad_groove.inner_diameter", "bearing_seat.wall_outside_diameter"),
+         on_radius(profile, v["pad_groove.inner_diameter"] / 2, prefer="min")),
+        (("pad_groove.outer_diameter",), on_radius(profile, v["pad_groove.outer_diameter"] / 2, prefer="min")),
+        (("catch_zone.start_diameter",), corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))),
+    ):
+        out.append(DimensionRequest(keys, "diameter", (at,), side="left"))
+    r_t = v["axle_bore.major_diameter"] / 2
+    z_post = v["bearing_seat.post_face_z"]
+    thread = thread_callout(resolved)
+    out.append(DimensionRequest(("axle_bore.major_diameter",), "diameter", ((z_post, r_t),), side="left",
+                                lower=True, text="M<>" + thread[len(f"M{v['axle_bore.major_diameter']:g}"):]))
+    pad_r0 = v["pad_groove.inner_diameter"] / 2
+    out.append(DimensionRequest(("pad_groove.depth",), "linear", (
+        corner(profile, (wall_z, pad_r0)), corner(profile, (v["pad_groove.bottom_z"], pad_r0))), direction="axial"))
+    out.append(DimensionRequest(("axle_bore.thread_depth",), "linear", (
+        (z_post, r_t), (z_post + v["axle_bore.thread_depth"], r_t)), direction="axial", lower=True))
+    # axial positions from datum face B (the outer face), below the mirror half
+    zb = datum_face_z(resolved)
+    b = on_face(profile, zb)
+    for keys, p in (
+        (("bearing_seat.seat_face_z",), on_face(profile, v["bearing_seat.seat_face_z"], prefer="min")),
+        (("bearing_seat.wall_face_z",), corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))),
+        (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, z_post, prefer="min")),
+    ):
+        out.append(DimensionRequest(keys, "linear", (p, b), direction="axial", side="below", lower=True))
+    # rim band, cup depth and hub height
+    out.append(DimensionRequest(("rim.width",), "linear", (
+        corner(profile, (v["catch_zone.end_z"], R)), corner(profile, (v["rim.face_z"], R))),
+        direction="axial", side="above"))
+    cup0 = corner(profile, (v["rim.floor_z"], v["rim.cup_diameter"] / 2))
+    cup1 = corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))
+    out.append(DimensionRequest(("rim.cup_depth",), "linear", (cup0, cup1), direction="axial"))
+    hub = on_radius(profile, v["rim.hub_diameter"] / 2)
+    floor = corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))
+    out.append(DimensionRequest(("rim.hub_height",), "linear", (floor, hub), direction="axial"))
+    # catch-zone angle and cup floor cone, both from the gap plane
+    start = corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))
+    tip = corner(profile, (v["catch_zone.end_z"], R))
+    out.append(DimensionRequest(("catch_zone.angle",), "angle", (start, tip, (start[0], start[1] + 10.0)),
+                                decimals=1))
+    out.append(DimensionRequest(("rim.floor_angle",), "angle", (cup0, floor, (cup0[0], cup0[1] - 10.0)),
+                                decimals=1))
+    # fillet and edge radii (a sharp edge, radius 0, has none)
+    for key, near in (
+        ("rim.edge_radius", (v["rim.face_z"], R)),
+        ("rim.lip_radius", (v["rim.face_z"], v["rim.cup_diameter"] / 2)),
+        ("catch_zone.edge_radius", (v["catch_zone.end_z"], R)),
+        ("rim.cup_radius", (v["rim.floor_z"], v["rim.cup_diameter"] / 2)),
+    ):
+        arc = _arc_near(profile, v[key], near)
+        if arc is not None:
+            mid = arc.point_at(arc.start_angle + arc.sweep / 2)
+            out.append(DimensionRequest((key,), "radius", (arc.center, mid), decimals=2))
+    return out
+
+
+def detail_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The dimensions of the seat detail: the fitted diameters, groove depth, post length and wall offset."""
+    profile = resolved.profile
+    assert profile is not None
+    v = resolved.values
+    fit = seat_fit(resolved)
+    inch = bool(v["bearing.inch"])
+    out = [
+        DimensionRequest(("bearing_seat.post_diameter",), "diameter",
+                         (on_radius(profile, v["bearing_seat.post_diameter"] / 2, prefer="min"),), view="detail",
+                         side="left", decimals=5, tolerance=_tolerance(fit.post.tolerance_mm, fit.post.nominal_mm, inch)),
+        DimensionRequest(("bearing_seat.seat_face_diameter", "vent_groove.inner_diameter"), "diameter",
+                         (on_radius(profile, v["bearing_seat.seat_face_diameter"] / 2, prefer="min"),),
+                         view="detail", side="left", decimals=5),
+        DimensionRequest(("bearing_seat.wall_bore", "vent_groove.outer_diameter"), "diameter",
+                         (on_radius(profile, v["bearing_seat.wall_bore"] / 2, prefer="min"),), view="detail",
+                         side="left", decimals=5, tolerance=_tolerance(fit.wall.tolerance_mm, fit.wall.nominal_mm, inch)),
+    ]
+    seat_z = v["bearing_seat.seat_face_z"]
+    face_r = v["bearing_seat.seat_face_diameter"] / 2
+    out.append(DimensionRequest(("vent_groove.depth",), "linear", (
+        corner(profile, (seat_z, face_r)), corner(profile, (v["vent_groove.bottom_z"], face_r))),
+        view="detail", direction="axial"))
+    seat = on_face(profile, seat_z)
+    post = on_face(profile, v["bearing_seat.post_face_z"])
+    wall = on_face(profile, v["bearing_seat.wall_face_z"], prefer="min")
+    out.append(DimensionRequest(("bearing_seat.post_length",), "linear", (post, seat), view="detail",
+                                direction="axial", side="above"))
+    out.append(DimensionRequest(("bearing_seat.wall_offset",), "linear", (wall, seat), view="detail",
+                                direction="axial", side="above"))
+    return out
+
+
+def _arc_near(profile: Profile, radius: float, near: Point) -> Arc | None:
+    """The fillet arc of ``radius`` whose centre is nearest ``near``; None for a sharp edge (radius 0)."""
+    if radius <= 0:
+        return None
+    arcs = [s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - radius) < 1e-9]
+    return min(arcs, key=lambda a: math.dist(a.center, near)) if arcs else None

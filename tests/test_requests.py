@@ -1,0 +1,75 @@
+"""The dimension requests: each measures the drawn profile and equals the value the design resolved to;
+the labels follow ISO 129-1 (Ø, R prefixes; auxiliary dimensions in parentheses)."""
+from __future__ import annotations
+
+import math
+from pathlib import Path
+
+import pytest
+
+from yodraft.builder import build
+from yodraft.design import load
+from yodraft.drawing.requests import (DimensionRequest, detail_requests, format_value, label, measure,
+                                      section_requests)
+
+TEMPLATES = sorted((Path(__file__).resolve().parents[1] / "templates").glob("*.toml"))
+
+
+def _expected(r) -> dict[str, float]:
+    """What each key's dimension must read (mm; angles in degrees)."""
+    v = r.values
+    zb = v["rim.face_z"]
+    return {
+        "rim.diameter": v["rim.diameter"], "rim.cup_diameter": v["rim.cup_diameter"],
+        "rim.hub_diameter": v["rim.hub_diameter"], "rim.floor_diameter": v["rim.floor_diameter"],
+        "rim.width": v["rim.width"], "rim.cup_depth": v["rim.cup_depth"], "rim.hub_height": v["rim.hub_height"],
+        "rim.floor_angle": math.degrees(v["rim.floor_angle"]),
+        "catch_zone.start_diameter": v["catch_zone.start_diameter"],
+        "catch_zone.angle": math.degrees(v["catch_zone.angle"]),
+        "pad_groove.inner_diameter": v["pad_groove.inner_diameter"],
+        "pad_groove.outer_diameter": v["pad_groove.outer_diameter"], "pad_groove.depth": v["pad_groove.depth"],
+        "bearing_seat.wall_bore": v["bearing_seat.wall_bore"],
+        "bearing_seat.seat_face_diameter": v["bearing_seat.seat_face_diameter"],
+        "bearing_seat.post_diameter": v["bearing_seat.post_diameter"],
+        "bearing_seat.seat_face_z": zb - v["bearing_seat.seat_face_z"],
+        "bearing_seat.wall_face_z": zb - v["bearing_seat.wall_face_z"],
+        "bearing_seat.post_face_z": zb - v["bearing_seat.post_face_z"],
+        "bearing_seat.post_length": v["bearing_seat.post_length"],
+        "bearing_seat.wall_offset": v["bearing_seat.wall_offset"],
+        "vent_groove.depth": v["vent_groove.depth"],
+        "axle_bore.major_diameter": v["axle_bore.major_diameter"],
+        "axle_bore.thread_depth": v["axle_bore.thread_depth"],
+        "rim.edge_radius": v["rim.edge_radius"], "rim.lip_radius": v["rim.lip_radius"],
+        "rim.cup_radius": v["rim.cup_radius"], "catch_zone.edge_radius": v["catch_zone.edge_radius"],
+    }
+
+
+@pytest.mark.parametrize("path", TEMPLATES, ids=lambda p: p.stem)
+def test_every_request_measures_what_the_design_resolved(path):
+    r = build(load(path))
+    requests = section_requests(r) + detail_requests(r)
+    shown = {key: req for req in requests for key in req.keys}
+    for key, value in _expected(r).items():
+        assert key in shown, f"no dimension for {key}"
+        assert measure(shown[key]) == pytest.approx(value, abs=1e-6), key
+
+
+def test_angle_is_counter_clockwise_from_p1_to_p2():
+    # a right angle: from the +z axis to the +r axis, counter-clockwise (plane geometry)
+    req = DimensionRequest(("x.angle",), "angle", ((0.0, 0.0), (1.0, 0.0), (0.0, 1.0)))
+    assert measure(req) == pytest.approx(90.0)
+
+
+def test_labels_follow_iso_129():
+    # ISO 129-1: Ø before a diameter, R before a radius, an auxiliary dimension in parentheses, no trailing zeros
+    dia = DimensionRequest(("a.d",), "diameter", ((0.0, 5.0),), tolerance="±0.01")
+    assert label(dia, format_value(measure(dia), 2)) == "Ø10 ±0.01"
+    rad = DimensionRequest(("a.r",), "radius", ((0.0, 0.0), (0.0, 1.5)), auxiliary=True)
+    assert label(rad, format_value(measure(rad), 2)) == "(R1.5)"
+
+
+def test_a_request_refuses_a_wrong_number_of_points():
+    with pytest.raises(ValueError):
+        DimensionRequest(("a.d",), "diameter", ((0.0, 1.0), (2.0, 1.0)))
+    with pytest.raises(ValueError):
+        DimensionRequest(("a.l",), "linear", ((0.0, 1.0), (2.0, 1.0)))  # no direction
