@@ -8,10 +8,11 @@ from typing import Any
 from .balance import BalanceResult, balance
 from .builder import Resolved
 from .massprops import (AssemblyProps, BodyProps, PointPart, SectionIntegrals, assemble, body_props,
-                        clipped_section_integrals, cylinder_part, mirrored_part, ring_mass_g, ring_part)
+                        clipped_section_integrals, combine_bodies, cylinder_part, mirrored_part, ring_mass_g,
+                        ring_part, weighted_integrals)
 from .spin import SpinMetrics, spin_metrics
 
-__all__ = ["Analysis", "MassAndSpin", "analyse", "mass_and_spin", "AXLE_DENSITY_G_CM3"]
+__all__ = ["Analysis", "MassAndSpin", "analyse", "mass_and_spin", "part_props", "AXLE_DENSITY_G_CM3"]
 
 AXLE_DENSITY_G_CM3 = 7.85  # carbon steel set screw, from memory
 PITCH_DIAMETER_FACTOR = 0.649519  # d2 = d − 0.649519 P (ISO 724)
@@ -19,13 +20,17 @@ PITCH_DIAMETER_FACTOR = 0.649519  # d2 = d − 0.649519 P (ISO 724)
 
 @dataclass(frozen=True)
 class Analysis:
-    """What the design weighs and how it spins, before any metal is cut."""
+    """What the design weighs and how it spins, before any metal is cut.
+
+    ``half`` sums the half's parts; ``parts`` gives each part (body first) on its own.
+    """
 
     half: BodyProps
     assembly: AssemblyProps
     spin: SpinMetrics
     balance: BalanceResult
     axle_length_mm: float
+    parts: tuple[tuple[str, str, BodyProps], ...] = ()
 
 
 def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
@@ -72,32 +77,54 @@ class MassAndSpin:
     half: BodyProps
     assembly: AssemblyProps
     spin: SpinMetrics
+    #: the rim band's section integrals, turned with ``rim_density_g_cm3`` (1 when density-weighted over parts)
     rim_integrals: SectionIntegrals
+    rim_density_g_cm3: float
     axle_length_mm: float
+    parts: tuple[tuple[str, str, BodyProps], ...] = ()
+
+
+def part_props(resolved: Resolved) -> tuple[tuple[str, str, BodyProps], ...]:
+    """(name, material, mass properties) of each part of one half, the body first."""
+    return tuple((p.name, p.material, body_props(p.profile, p.density_g_cm3)) for p in resolved.parts)
 
 
 def mass_and_spin(resolved: Resolved) -> MassAndSpin:
-    """Mass, inertia and spin metrics of ``resolved`` (its profile must exist and pass the loop checks)."""
+    """Mass, inertia and spin metrics of ``resolved`` (its profile must exist and pass the loop checks).
+
+    The half is the sum of its parts, each turned from its own loop with its own density.
+    """
     profile = resolved.profile
     if profile is None or not resolved.can_analyse:
         raise ValueError("the design has no valid closed profile to analyse (see its loop and axle checks)")
     v = resolved.values
     a = resolved.design["analysis"]
-    density = v["material.density_g_cm3"]
-    half = body_props(profile, density)
-    parts, axle_length = small_parts(resolved)
-    assembly = assemble(half, parts)
-    rim = clipped_section_integrals(profile, a["rim_radius_ratio"] * profile.bounds()[3])
+    each = part_props(resolved)
+    half = combine_bodies([props for _, _, props in each])
+    small, axle_length = small_parts(resolved)
+    assembly = assemble(half, small)
+    r_cut = a["rim_radius_ratio"] * profile.bounds()[3]
+    rim, density = _rim_integrals(resolved, r_cut)
     spin = spin_metrics(profile, density, assembly, string_radius_mm=v["bearing.od"] / 2, rpm=a["spin_rate"],
                         drag_torque_n_mm=a["drag_torque"], rim_radius_fraction=a["rim_radius_ratio"], rim_integrals=rim)
-    return MassAndSpin(half, assembly, spin, rim, axle_length)
+    return MassAndSpin(half, assembly, spin, rim, density, axle_length, each)
+
+
+def _rim_integrals(resolved: Resolved, r_cut: float) -> tuple[SectionIntegrals, float]:
+    """The rim band's section integrals and the density to turn them with: the body's own for a body
+    alone, else density-weighted over the parts (turned with 1 g/cm³)."""
+    if len(resolved.parts) == 1:
+        body = resolved.parts[0]
+        return clipped_section_integrals(body.profile, r_cut), body.density_g_cm3
+    pairs = [(clipped_section_integrals(p.profile, r_cut), p.density_g_cm3) for p in resolved.parts]
+    return weighted_integrals(pairs), 1.0
 
 
 def analyse(resolved: Resolved) -> Analysis:
     """Mass, inertia, spin metrics and balance of ``resolved`` (its profile must exist)."""
     m = mass_and_spin(resolved)
     a = resolved.design["analysis"]
-    bal = balance(resolved.profile, resolved.values["material.density_g_cm3"], grade_mm_s=a["balance_grade"],
+    bal = balance(resolved.profile, m.rim_density_g_cm3, grade_mm_s=a["balance_grade"],
                   rpm=a["spin_rate"], rim_radius_fraction=a["rim_radius_ratio"], half=m.half,
                   rim_integrals=m.rim_integrals)
-    return Analysis(m.half, m.assembly, m.spin, bal, m.axle_length_mm)
+    return Analysis(m.half, m.assembly, m.spin, bal, m.axle_length_mm, m.parts)

@@ -16,6 +16,7 @@ from .features import FEATURES, LOOP_ORDER
 from .features.base import Context, FeatureResult
 from .geometry import GeometryError, Profile, fillet_loop
 from .params import check_unknown
+from .parts import BODY, Part, cut_seats, feature_parts, seat_checks
 from .tolerances.bearings import PRECISION_CLASSES, bearing_deviation_um
 
 __all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material"]
@@ -23,13 +24,18 @@ __all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_materia
 
 @dataclass(frozen=True)
 class Resolved:
-    """A design resolved: every feature's dimensions, the half-profile and every check."""
+    """A design resolved: every feature's dimensions, the half-profile and every check.
+
+    ``profile`` is the body's loop; ``parts`` are the half's parts, the body first and then
+    any a feature adds (a ring), each with its own loop and material (empty when the body has no loop).
+    """
 
     design: Design
     values: Mapping[str, Any]
     features: Mapping[str, FeatureResult]
     profile: Profile | None
     checks: tuple[Check, ...]
+    parts: tuple[Part, ...] = ()
 
     @property
     def ok(self) -> bool:
@@ -167,6 +173,8 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
         results[name], published = memo.feature(module, design.features[name], readable, design["shop"])
         values.update(published)
     vertices = [v for feature, chunk in LOOP_ORDER for v in results[feature].chunks[chunk]]
+    seats = [s for r in results.values() for s in r.seats]
+    vertices, seat_failures = cut_seats(vertices, seats)
     try:
         profile, misfits = fillet_loop(vertices)
     except GeometryError:
@@ -176,8 +184,14 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
     checks += radial_order(values)
     checks += wall_checks(values, chunks, design["shop"]["min_wall"])
     checks += loop_checks(profile, design["envelope"], misfits)
+    checks += seat_failures
+    parts: tuple[Part, ...] = ()
     if profile is not None:
+        added, part_failures = feature_parts(tuple(results.values()))
+        checks += part_failures + seat_checks(profile, seats, design["shop"]["min_wall"])
+        parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,
+                      design["shop"]["coating"]),) + added
         z_min, _, z_max, r_max = profile.bounds()
         values.update({"profile.outer_diameter": 2 * r_max, "profile.width": 2 * z_max,
                        "profile.gap": values["bearing_seat.gap"], "profile.post_length": values["bearing_seat.post_length"]})
-    return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks))
+    return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks), parts)

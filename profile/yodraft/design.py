@@ -9,6 +9,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
+from .catalog.finishes import FINISHES
 from .errors import DesignInputError
 from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, read_table
@@ -52,7 +53,8 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
     "shop": (
         ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, 0.0, 0.5),
         ParamSpec("fit_clearance", "length", "diametral clearance wanted at the seat on top of the worst case", 0.0005 * IN, 0.0, 0.5, lo_closed=True),
-        ParamSpec("coating", "text", "finish of the body", "none", choices=("none", "anodize type II", "anodize type III", "bead blast")),
+        ParamSpec("coating", "text", "finish of the body (it must suit the body material: anodize on aluminium alloys only)",
+                  "none", choices=tuple(FINISHES)),
         ParamSpec("coating_thickness", "length", "coating thickness", 0.0, 0.0, 0.1, lo_closed=True),
         ParamSpec("coating_outward_share", "number", "share of the coating thickness that builds outward", 0.5, 0.0, 1.0, lo_closed=True),
         ParamSpec("mask_seat", "bool", "mask the bearing seat from coating (else turn it to pre-coat size)", False),
@@ -195,6 +197,7 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
         sections[section] = values
     _check_design_section(sections["design"], source)
     _check_catalog_names(sections, source)
+    check_finish(sections["shop"]["coating"], sections["design"]["material"], source, "shop.coating")
     feature_tables = raw.get("features", {})
     if not isinstance(feature_tables, Mapping):
         raise DesignInputError(source, "features", f"got {type(feature_tables).__name__}", "a table of feature tables")
@@ -204,6 +207,7 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
         table = feature_tables.get(fname, {})
         features[fname] = read_table(table, module.PARAMS, source, f"features.{fname}")
         given.update(f"features.{fname}.{k}" for k in table)
+        _check_feature_materials(features[fname], source, f"features.{fname}")
     revisions = _read_revisions(raw.get("revisions", []), source)
     return Design(source, sections, features, frozenset(given), revisions, raw)
 
@@ -243,6 +247,28 @@ def _check_catalog_names(sections: Mapping[str, Mapping[str, Any]], source: str)
                    "bearing")
     check_name(bearing["precision"], normalise_precision, list(PRECISION_CLASSES), source, "bearing.precision",
                "precision class")
+
+
+def check_finish(finish: str, material: str, source: str, key: str) -> None:
+    """A finish must suit its part's material (anodize on aluminium alloys only, polymers none); else exit 2 at ``key``."""
+    from .catalog.finishes import finishes_for, suits
+    from .catalog.materials import lookup_material
+
+    family = lookup_material(material).family
+    if not suits(finish, family):
+        raise DesignInputError(source, key, f"{finish!r} does not suit {lookup_material(material).name} ({family})",
+                               f"a finish for {family}: " + ", ".join(repr(f) for f in finishes_for(family)))
+
+
+def _check_feature_materials(values: Mapping[str, Any], source: str, path: str) -> None:
+    """A feature that makes a part of its own names a catalog material and a finish that suits it."""
+    from .catalog.materials import MATERIALS, lookup_material
+
+    if values.get("material") is None:
+        return
+    check_name(values["material"], lookup_material, list(MATERIALS), source, f"{path}.material", "material")
+    if values.get("coating") is not None:
+        check_finish(values["coating"], values["material"], source, f"{path}.coating")
 
 
 def _read_revisions(items: Any, source: str) -> tuple[Revision, ...]:

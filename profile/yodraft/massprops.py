@@ -40,6 +40,8 @@ __all__ = [
     "section_integrals",
     "clipped_section_integrals",
     "body_props",
+    "combine_bodies",
+    "weighted_integrals",
     "props_from_integrals",
     "ring_part",
     "cylinder_part",
@@ -411,6 +413,47 @@ def body_props(profile: Profile, density_g_cm3: float) -> BodyProps:
     1.0
     """
     return props_from_integrals(section_integrals(profile), density_g_cm3)
+
+
+def combine_bodies(bodies: Sequence[BodyProps]) -> BodyProps:
+    """The parts of one half (body and rings, each with its own density) taken as one body.
+
+    Mass, volume, area, surface and inertias add; the density is the mean (mass over volume);
+    the centroid is mass-weighted and the own transverse inertia follows by the parallel-axis theorem.
+
+    >>> from yodraft.geometry import Profile
+    >>> inner = body_props(Profile.from_points([(0, 0), (1, 0), (1, 5), (0, 5)]), 2.7)
+    >>> outer = body_props(Profile.from_points([(0, 5), (1, 5), (1, 6), (0, 6)]), 8.0)
+    >>> whole = combine_bodies([inner, outer])
+    >>> round(whole.mass_g - inner.mass_g - outer.mass_g, 12), round(whole.izz_g_mm2 - inner.izz_g_mm2 - outer.izz_g_mm2, 9)
+    (0.0, 0.0)
+    """
+    if len(bodies) == 1:
+        return bodies[0]
+    mass = sum(b.mass_g for b in bodies)
+    volume = sum(b.volume_mm3 for b in bodies)
+    zc = sum(b.mass_g * b.z_centroid_mm for b in bodies) / mass if mass > 0 else 0.0
+    ixx = sum(b.ixx_g_mm2 for b in bodies)
+    return BodyProps(
+        area_mm2=sum(b.area_mm2 for b in bodies),
+        volume_mm3=volume,
+        surface_mm2=sum(b.surface_mm2 for b in bodies),
+        density_g_cm3=mass / (volume * G_PER_MM3_PER_G_CM3) if volume > 0 else bodies[0].density_g_cm3,
+        mass_g=mass,
+        z_centroid_mm=zc,
+        izz_g_mm2=sum(b.izz_g_mm2 for b in bodies),
+        ixx_g_mm2=ixx,
+        ixx_cg_g_mm2=ixx - mass * zc * zc,
+    )
+
+
+def weighted_integrals(pairs: Sequence[tuple[SectionIntegrals, float]]) -> SectionIntegrals:
+    """Σ ρᵢ·Sᵢ over (integrals, density g/cm³) pairs: turned with density 1 g/cm³ it gives the parts'
+    summed mass and inertias (each is linear in ρ·S). Volume and surface of the result are not lengths."""
+    if len(pairs) == 1 and pairs[0][1] == 1.0:
+        return pairs[0][0]
+    fields = ("a", "r1", "z1", "rz", "r3", "rz2", "surface")
+    return SectionIntegrals(*(sum(getattr(s, f) * rho for s, rho in pairs) for f in fields))
 
 
 # --------------------------------------------------------------------- small parts and the assembly

@@ -129,9 +129,14 @@ def report_markdown(data: Mapping[str, Any]) -> str:
         lines += [f"### {name}", ""] + _table(("dimension", "value"), rows)
     for section in [k for k in data if k not in _KNOWN]:  # mass, spin, balance … as they land
         value = data[section]
-        heading = {"mass": "Mass budget", "spin": "Spin metrics", "balance": "Balance"}.get(section, section)
+        heading = {"mass": "Mass budget", "spin": "Spin metrics", "balance": "Balance",
+                   "parts": "Parts of one half"}.get(section, section)
         lines += [f"## {heading}", ""]
-        lines += _key_table(value) if isinstance(value, Mapping) else [_cell(value), ""]
+        if section == "parts":
+            lines += _table(("part", "material", "mass", "Izz"), [
+                (p["name"], p["material"], _cell(p["mass_g"], "g"), _cell(p["izz_g_mm2"], "g·mm²")) for p in value])
+        else:
+            lines += _key_table(value) if isinstance(value, Mapping) else [_cell(value), ""]
     lines += ["## Checks", ""]
     lines += _table(("", "check", "where", "result"), [
         ("ok" if c["ok"] else "**FAIL**", c["name"], f"{c['feature']}.{c['parameter']}", _cell(c["message"]))

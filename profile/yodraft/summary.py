@@ -70,6 +70,8 @@ def _mass_sections(resolved: Resolved) -> dict[str, Any]:
     a = analyse(resolved)
     s, b = a.spin, a.balance
     return {
+        "parts": [{"name": name, "material": material, "mass_g": props.mass_g, "izz_g_mm2": props.izz_g_mm2}
+                  for name, material, props in a.parts],
         "mass": {
             "half_g": a.half.mass_g, "half_izz_g_mm2": a.half.izz_g_mm2, "half_ixx_g_mm2": a.half.ixx_g_mm2,
             "half_volume_mm3": a.half.volume_mm3, "half_surface_mm2": a.half.surface_mm2,

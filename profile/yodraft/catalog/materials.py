@@ -1,36 +1,67 @@
-"""Body materials: density and the thread engagement a tapped hole needs in it."""
+"""Materials: density, the thread engagement a tapped hole needs, and the elastic and thermal
+properties a press fit is worked out with (Young's modulus, Poisson's ratio, expansion, yield)."""
 from __future__ import annotations
 
 from dataclasses import dataclass
 
-__all__ = ["Material", "MATERIALS", "lookup_material"]
+__all__ = ["Material", "MATERIALS", "FAMILIES", "lookup_material"]
+
+#: the material families the finish rules (catalog.finishes) are written for
+FAMILIES = ("aluminium alloy", "titanium alloy", "stainless steel", "copper alloy", "tungsten alloy", "polymer")
 
 
 @dataclass(frozen=True)
 class Material:
-    """A body material. ``engagement_factor`` × thread diameter is the least full-thread depth."""
+    """A body or ring material. ``engagement_factor`` × thread diameter is the least full-thread depth.
+
+    ``e_gpa`` Young's modulus, ``poisson`` Poisson's ratio, ``alpha_per_k`` the linear thermal
+    expansion coefficient near room temperature, ``yield_mpa`` the 0.2 % proof (yield) strength
+    in tension; ``properties_source`` says where those four come from.
+    """
 
     name: str
+    family: str
     density_g_cm3: float
     engagement_factor: float
     source: str
+    e_gpa: float
+    poisson: float
+    alpha_per_k: float
+    yield_mpa: float
+    properties_source: str
+
+    def __post_init__(self) -> None:
+        if self.family not in FAMILIES:
+            raise ValueError(f"material {self.name!r}: unknown family {self.family!r}")
+        if not (self.e_gpa > 0 and 0 < self.poisson < 0.5 and self.alpha_per_k > 0 and self.yield_mpa > 0):
+            raise ValueError(f"material {self.name!r}: elastic and thermal properties out of range")
 
 
 MATERIALS: dict[str, Material] = {
     m.name: m
     for m in (
-        Material("6061-T6", 2.70, 1.5, "ASM Handbook Vol. 2, wrought aluminium 6061 (from memory)"),
-        Material("7075-T6", 2.81, 1.5, "ASM Handbook Vol. 2, wrought aluminium 7075 (from memory)"),
-        Material("7068-T6511", 2.85, 1.5, "aluminium producer's 7068 extrusion datasheet (from memory)"),
-        Material("Ti-6Al-4V", 4.43, 1.0, "ASM Materials Properties Handbook: Titanium Alloys (from memory)"),
-        Material("304", 8.00, 1.0, "ASM Handbook Vol. 1, austenitic stainless 304 (from memory)"),
-        Material("C36000", 8.50, 1.0, "Copper Development Association data for free-cutting brass C36000 (from memory)"),
-        Material("POM", 1.41, 2.0, "typical acetal homopolymer datasheet (from memory)"),
-        Material("PC", 1.20, 2.0, "typical polycarbonate datasheet (from memory)"),
+        Material("6061-T6", "aluminium alloy", 2.70, 1.5, "ASM Handbook Vol. 2, wrought aluminium 6061 (from memory)",
+                 68.9, 0.33, 23.6e-6, 276.0, "ASM Handbook Vol. 2, 6061-T6 typical properties (from memory)"),
+        Material("7075-T6", "aluminium alloy", 2.81, 1.5, "ASM Handbook Vol. 2, wrought aluminium 7075 (from memory)",
+                 71.7, 0.33, 23.6e-6, 503.0, "ASM Handbook Vol. 2, 7075-T6 typical properties (from memory)"),
+        Material("7068-T6511", "aluminium alloy", 2.85, 1.5, "aluminium producer's 7068 extrusion datasheet (from memory)",
+                 73.1, 0.32, 23.4e-6, 683.0, "aluminium producer's 7068-T6511 datasheet, typical values (from memory)"),
+        Material("Ti-6Al-4V", "titanium alloy", 4.43, 1.0, "ASM Materials Properties Handbook: Titanium Alloys (from memory)",
+                 113.8, 0.342, 8.6e-6, 880.0, "ASM Materials Properties Handbook: Titanium Alloys, annealed Ti-6Al-4V (from memory)"),
+        Material("304", "stainless steel", 8.00, 1.0, "ASM Handbook Vol. 1, austenitic stainless 304 (from memory)",
+                 193.0, 0.29, 17.3e-6, 215.0, "ASM Handbook Vol. 1, annealed 304; ASTM A276 minimum yield 205 MPa (from memory)"),
+        Material("C36000", "copper alloy", 8.50, 1.0, "Copper Development Association data for free-cutting brass C36000 (from memory)",
+                 97.0, 0.31, 20.5e-6, 310.0, "Copper Development Association, C36000 half-hard rod (from memory)"),
+        Material("W90", "tungsten alloy", 17.0, 1.0, "ASTM B777 Class 1 tungsten heavy alloy, 16.85–17.25 g/cm³ (from memory)",
+                 310.0, 0.28, 4.6e-6, 517.0, "ASTM B777 Class 1: minimum yield 75 ksi; modulus and expansion from makers' datasheets (from memory)"),
+        Material("POM", "polymer", 1.41, 2.0, "typical acetal homopolymer datasheet (from memory)",
+                 3.1, 0.35, 110e-6, 70.0, "typical acetal homopolymer datasheet, tensile yield at 23 °C (from memory)"),
+        Material("PC", "polymer", 1.20, 2.0, "typical polycarbonate datasheet (from memory)",
+                 2.35, 0.37, 68e-6, 62.0, "typical polycarbonate datasheet, tensile yield at 23 °C (from memory)"),
     )
 }
 # engagement factors: 1.5 x D in aluminium (common practice, no published source); 1.0 x D in
-# steels, titanium and brass and 2.0 x D in plastics (common practice, no published source)
+# steels, titanium, brass and tungsten alloy and 2.0 x D in plastics (common practice, no published source)
 
 
 def lookup_material(name: str) -> Material:

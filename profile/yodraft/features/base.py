@@ -6,9 +6,9 @@ from dataclasses import dataclass, field
 from typing import Any
 
 from ..checks import Check
-from ..geometry import FilletVertex
+from ..geometry import FilletVertex, Point
 
-__all__ = ["Context", "FeatureResult", "V"]
+__all__ = ["Context", "FeatureResult", "PartOutline", "SeatCut", "V"]
 
 
 def V(z: float, r: float, radius: float = 0.0, owner: str = "") -> FilletVertex:
@@ -45,8 +45,43 @@ class Context:
 
 
 @dataclass(frozen=True)
+class PartOutline:
+    """A part a feature adds to the half (a pressed-in ring): its own closed counter-clockwise loop
+    of corners, its material and its finish."""
+
+    name: str
+    material: str
+    density_g_cm3: float
+    corners: tuple[FilletVertex, ...]
+    coating: str = "none"
+
+
+@dataclass(frozen=True)
+class SeatCut:
+    """A seat turned into the body for a part: ``corners`` take the place of the body's loop corner at
+    ``at`` (``mode="corner"``), or go into the body's straight edge through ``at`` (``mode="edge"``).
+
+    ``where`` ("feature.param") is named when the body has no such corner or edge; ``bottom`` are the
+    seat's deepest corners, whose distance to the rest of the body is the wall behind the seat, named
+    ``wall_where`` when thinner than the shop's least wall.
+    """
+
+    at: Point
+    corners: tuple[FilletVertex, ...]
+    mode: str
+    where: str
+    bottom: tuple[Point, ...]
+    wall_where: str
+
+    def __post_init__(self) -> None:
+        if self.mode not in ("corner", "edge"):
+            raise ValueError(f"seat mode {self.mode!r} is not 'corner' or 'edge'")
+
+
+@dataclass(frozen=True)
 class FeatureResult:
-    """A resolved feature: its dimensions (mm, rad), which were derived, its loop corners and checks."""
+    """A resolved feature: its dimensions (mm, rad), which were derived, its loop corners and checks;
+    and any parts it adds to the half with the seats they sit in."""
 
     name: str
     dims: Mapping[str, Any]
@@ -54,6 +89,8 @@ class FeatureResult:
     chunks: Mapping[str, tuple[FilletVertex, ...]]
     checks: tuple[Check, ...] = ()
     extra: Mapping[str, Any] = field(default_factory=dict)
+    parts: tuple[PartOutline, ...] = ()
+    seats: tuple[SeatCut, ...] = ()
 
 
 def pick(params: Mapping[str, Any], key: str, derived_value: Any, derived: set[str]) -> Any:

@@ -1,0 +1,50 @@
+"""Finishes and the material families each suits: anodize on aluminium alloys only, titanium and
+stainless steels their own finishes, polymers none.
+
+>>> suits("anodize type II", "titanium alloy"), suits("titanium anodize", "titanium alloy")
+(False, True)
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from .materials import FAMILIES
+
+__all__ = ["Finish", "FINISHES", "suits", "finishes_for"]
+
+_METALS = tuple(f for f in FAMILIES if f != "polymer")
+
+
+@dataclass(frozen=True)
+class Finish:
+    """A finish a shop applies after turning, and the material families it is made for."""
+
+    name: str
+    families: tuple[str, ...]
+    source: str
+
+
+FINISHES: dict[str, Finish] = {
+    f.name: f
+    for f in (
+        Finish("none", FAMILIES, "no finish"),
+        # sulphuric-acid anodizing converts the aluminium surface itself
+        Finish("anodize type II", ("aluminium alloy",), "MIL-A-8625 Type II, aluminium and its alloys"),
+        Finish("anodize type III", ("aluminium alloy",), "MIL-A-8625 Type III (hard coat), aluminium and its alloys"),
+        Finish("titanium anodize", ("titanium alloy",), "AMS 2488, anodic treatment of titanium and titanium alloys"),
+        Finish("passivate", ("stainless steel",), "ASTM A967, chemical passivation of stainless steel parts"),
+        Finish("electroless nickel", ("copper alloy", "stainless steel"), "ASTM B733, autocatalytic nickel-phosphorus on metal"),
+        # blasting leaves a polymer surface torn rather than matte  # common practice, no published source
+        Finish("bead blast", _METALS, "glass-bead blasting of metal surfaces (common practice, no published source)"),
+    )
+}
+
+
+def suits(finish: str, family: str) -> bool:
+    """Whether ``finish`` is made for a material of ``family``."""
+    return family in FINISHES[finish].families
+
+
+def finishes_for(family: str) -> list[str]:
+    """The finishes that suit a material of ``family``, in catalog order."""
+    return [f.name for f in FINISHES.values() if family in f.families]
