@@ -138,12 +138,14 @@ def build_outputs(design_path: Path, directory: Path, force: bool = False) -> tu
     from .builder import build
     from .design import load
     from .drawing.drawing import render_files
+    from .pictures.assembly import assembly_svg
 
     resolved = build(load(design_path))
     if not resolved.ok:
         return [], resolved
     stem = safe_stem(resolved.design.name, resolved.design.revision)
     files = render_files(resolved, stem)
+    files[f"{stem}-assembly.svg"] = assembly_svg(resolved)
     directory = prepare_directory(directory)
     files.update(revision.guard(directory, stem, resolved, force))
     targets = {output_path(directory, name): data for name, data in files.items()}

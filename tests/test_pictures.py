@@ -1,0 +1,160 @@
+"""The pictures: valid SVG, exact arcs, a true silhouette, byte-identical runs, and a rasteriser's view of them."""
+from __future__ import annotations
+
+import math
+import re
+import shutil
+import subprocess
+import xml.etree.ElementTree as ET
+from pathlib import Path
+
+import pytest
+import shapely
+
+from conftest import TEMPLATES
+from yodraft import analyse, build, load
+from yodraft.cli import main
+from yodraft.geometry import Arc, Profile
+from yodraft.pictures.assembly import assembly_svg, drawing_scale, material_colour
+from yodraft.pictures.silhouette import outline_chains, outline_runs
+from yodraft.pictures.svg import View, segments_d
+
+SVG = "{http://www.w3.org/2000/svg}"
+TEMPLATE_FILES = sorted(TEMPLATES.glob("*.toml"))
+
+
+def parse(data: bytes) -> ET.Element:
+    """The picture parsed by the standard library's XML parser; the root must be an SVG element."""
+    root = ET.fromstring(data)
+    assert root.tag == f"{SVG}svg"
+    assert re.fullmatch(r"[\d.]+mm", root.get("width", "")) and root.get("viewBox")
+    return root
+
+
+def _texts(root: ET.Element) -> str:
+    return " ".join("".join(t.itertext()) for t in root.iter(f"{SVG}text"))
+
+
+def rasterise(svg: Path, tmp_path: Path) -> bytes:
+    """PNG bytes from the resvg command line (the test is skipped where it is not installed)."""
+    tool = shutil.which("resvg")
+    if tool is None:
+        pytest.skip("no SVG rasteriser (resvg) on PATH")
+    png = tmp_path / (svg.stem + ".png")
+    done = subprocess.run([tool, str(svg), str(png)], capture_output=True, text=True, timeout=120)
+    assert done.returncode == 0, done.stderr
+    data = png.read_bytes()
+    assert data[:8] == b"\x89PNG\r\n\x1a\n" and len(data) > 2000
+    return data
+
+
+# ---------------------------------------------------------------- the SVG arc command
+def _svg_arc_centre(p1: tuple[float, float], p2: tuple[float, float], r: float, large: int, sweep: int):
+    """Centre of an SVG elliptical arc with rx = ry = r, no rotation (SVG 1.1, appendix F.6.5, steps 1–3)."""
+    x1p, y1p = (p1[0] - p2[0]) / 2, (p1[1] - p2[1]) / 2
+    root = math.sqrt(max(0.0, (r * r * r * r - r * r * y1p * y1p - r * r * x1p * x1p) / (r * r * y1p * y1p + r * r * x1p * x1p)))
+    sign = -1.0 if large == sweep else 1.0
+    cxp, cyp = sign * root * y1p, -sign * root * x1p
+    return cxp + (p1[0] + p2[0]) / 2, cyp + (p1[1] + p2[1]) / 2
+
+
+@pytest.mark.parametrize("kz,kr", [(1, 1), (-1, 1), (1, -1), (-1, -1)])
+@pytest.mark.parametrize("start,sweep", [(0.3, 1.2), (2.0, -0.9), (-1.0, 2.9), (0.5, -3.5), (0.0, 2 * math.pi)])
+def test_arc_lands_on_its_centre_in_every_mirror(kz: int, kr: int, start: float, sweep: float) -> None:
+    arc = Arc((3.0, 7.0), 2.5, start, sweep)
+    view = View(50.0, 60.0, 2.0, kz, kr)
+    d = segments_d([arc], view)
+    numbers = [float(x) for x in re.findall(r"-?[\d.]+", d)]
+    x, y = numbers[:2]
+    centre = view(*arc.center)
+    for k in range(2, len(numbers), 7):
+        rx, _, _, large, flag, x2, y2 = numbers[k:k + 7]
+        assert rx == pytest.approx(5.0)
+        cx, cy = _svg_arc_centre((x, y), (x2, y2), rx, int(large), int(flag))
+        assert (cx, cy) == pytest.approx(centre, abs=2e-3)
+        x, y = x2, y2
+    assert (x, y) == pytest.approx(view(*arc.end), abs=1e-3)
+
+
+# ---------------------------------------------------------------- silhouette
+def _shapely_top(polygon: shapely.Polygon, z: float) -> float:
+    """Largest r of the polygon at station z, from shapely's intersection with a radial line."""
+    cut = polygon.intersection(shapely.LineString([(z, -1.0), (z, 1000.0)]))
+    return 0.0 if cut.is_empty else cut.bounds[3]
+
+
+def _chain_top(chains: list[list], z: float) -> float:
+    best = 0.0
+    for chain in chains:
+        pts = [p for s in chain for p in (s.points(0.001) if isinstance(s, Arc) else [s.start])] + [chain[-1].end]
+        best = max(best, _shapely_top(shapely.Polygon(pts), z))
+    return best
+
+
+@pytest.mark.parametrize("template", TEMPLATE_FILES, ids=lambda p: p.stem)
+def test_silhouette_is_the_largest_radius_at_every_station(template: Path) -> None:
+    profile = build(load(template)).profile
+    chains = outline_chains([profile.segments])
+    reference = profile.polygon(0.001)
+    z0, _, z1, _ = profile.bounds()
+    for i in range(1, 160):
+        z = z0 + (z1 - z0) * i / 160
+        assert _chain_top(chains, z) == pytest.approx(_shapely_top(reference, z), abs=0.01), z
+
+
+def test_outermost_part_hides_the_rest() -> None:
+    """A washer inside a tall ring shows only where it stands out (textbook first-angle projection)."""
+    tall = Profile.from_points([(0, 0), (2, 0), (2, 10), (0, 10)]).segments
+    wide = Profile.from_points([(-3, 0), (5, 0), (5, 4), (-3, 4)]).segments
+    runs = outline_runs([tall, wide])
+    spans = [(owner, round(chain[0].start[0], 6), round(chain[-1].end[0], 6)) for owner, chain in runs]
+    assert spans == [(1, -3.0, 0.0), (0, 0.0, 2.0), (1, 2.0, 5.0)]
+
+
+def test_drawing_scale_is_a_standard_one() -> None:
+    # ISO 5455: recommended scales 5:1, 2:1, 1:1, 1:2, 1:5
+    assert drawing_scale(56, 44) == 2.0
+    assert drawing_scale(20, 15) == 5.0
+    assert drawing_scale(100, 60) == 1.0
+
+
+# ---------------------------------------------------------------- assembly picture
+def test_build_writes_the_assembly_picture(tmp_path: Path) -> None:
+    assert main(["build", str(TEMPLATES / "string-trick.toml"), "-o", str(tmp_path)]) == 0
+    picture = tmp_path / "larchmere-ls56-A-assembly.svg"
+    root = parse(picture.read_bytes())
+    resolved = build(load(TEMPLATES / "string-trick.toml"))
+    a = analyse(resolved)
+    text = _texts(root)
+    # the caption carries the figures of the analysis, rounded as printed
+    assert f"mass {a.assembly.total_g:.2f} g" in text
+    assert f"{a.assembly.izz_g_mm2:,.0f}".replace(",", " ") in text
+    assert "Ø56.00 mm" in text and "gap 4.36 mm" in text
+    # the section's fill paths trace the profile's exact arcs: every fillet radius appears at drawing scale (2:1)
+    d = " ".join(p.get("d", "") for p in root.iter(f"{SVG}path"))
+    radii = {round(float(m), 3) for m in re.findall(r"A ([\d.]+) ", d)}
+    for seg in resolved.profile.segments:
+        if isinstance(seg, Arc):
+            assert round(seg.radius * 2, 3) in radii
+    assert resolved.values["bearing.designation"] in text
+
+
+@pytest.mark.parametrize("template", TEMPLATE_FILES, ids=lambda p: p.stem)
+def test_assembly_picture_is_byte_identical(template: Path) -> None:
+    resolved = build(load(template))
+    if not resolved.ok:
+        pytest.skip("a design that fails its checks is not built")
+    first = assembly_svg(resolved)
+    assert assembly_svg(build(load(template))) == first
+    parse(first)
+
+
+def test_assembly_picture_renders(tmp_path: Path) -> None:
+    svg = tmp_path / "a.svg"
+    svg.write_bytes(assembly_svg(build(load(TEMPLATES / "string-trick.toml"))))
+    rasterise(svg, tmp_path)
+
+
+def test_material_colours_tell_parts_apart() -> None:
+    names = ["6061-T6", "C36000", "304", "Ti-6Al-4V", "POM", "silicone", "steel"]
+    assert len({material_colour(n) for n in names}) == len(names)
