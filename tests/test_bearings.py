@@ -64,7 +64,7 @@ def test_deviation_step_bounds_and_order() -> None:
         assert bands == sorted(bands, reverse=True)
 
 
-@pytest.mark.parametrize(("kind", "size"), [("bore", 0.5), ("bore", 20.0), ("od", 2.0), ("od", 31.0), ("width", 5.0)])
+@pytest.mark.parametrize(("kind", "size"), [("bore", 0.5), ("bore", 20.0), ("od", 2.0), ("od", 31.0), ("width", 20.0), ("length", 5.0)])
 def test_deviation_out_of_range(kind: str, size: float) -> None:
     with pytest.raises(ValueError):
         bearing_deviation_um("P5", kind, size)

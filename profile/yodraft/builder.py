@@ -18,6 +18,8 @@ from .geometry import GeometryError, Profile, fillet_loop
 from .params import check_unknown
 from .parts import BODY, Part, cut_seats, feature_parts, seat_checks
 from .tolerances.bearings import PRECISION_CLASSES, bearing_deviation_um
+from .tolerances.general import general_tolerance_mm
+from .tolerances.stack import Link, Stack, stack
 
 __all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material"]
 
@@ -78,6 +80,7 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
     try:
         bore_dev = bearing_deviation_um(b["precision"], "bore", bore)
         od_dev = bearing_deviation_um(b["precision"], "od", od)
+        width_dev = bearing_deviation_um(b["precision"], "width", bore)
     except KeyError:
         check_unknown({b["precision"]: None}, list(PRECISION_CLASSES), design.source, "bearing.precision", "precision class")
         raise
@@ -85,9 +88,12 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
         bore_dev = (0.0, -1000.0 * b["bore_tolerance"])
     if b["od_tolerance"] is not None:
         od_dev = (0.0, -1000.0 * b["od_tolerance"])
+    if b["width_tolerance"] is not None:
+        width_dev = (0.0, -1000.0 * b["width_tolerance"])
     return {"bearing.designation": designation, "bearing.bore": bore, "bearing.od": od, "bearing.width": width,
             "bearing.mass": mass, "bearing.inch": inch, "bearing.precision": b["precision"],
-            "bearing.bore_deviation_um": bore_dev, "bearing.od_deviation_um": od_dev}
+            "bearing.bore_deviation_um": bore_dev, "bearing.od_deviation_um": od_dev,
+            "bearing.width_deviation_um": width_dev}
 
 
 def resolve_material(design: Design) -> dict[str, Any]:
@@ -101,6 +107,21 @@ def resolve_material(design: Design) -> dict[str, Any]:
     density = design["design"]["density"] or m.density_g_cm3
     return {"material.name": m.name, "material.density_g_cm3": density,
             "material.engagement_factor": m.engagement_factor, "material.source": m.source}
+
+
+def seat_depth_stack(values: Mapping[str, Any], general: str) -> tuple[float, float, Stack]:
+    """The seat face's depth below the outer face (datum B), its ± and the assembled width's stack.
+
+    The depth takes the general tolerance of its size (ISO 2768-1), written on the
+    sheet as its own tolerance; the assembled width is the inner ring's width plus
+    both halves' depths.
+    """
+    depth = values["rim.face_z"] - values["bearing_seat.seat_face_z"]
+    tol = general_tolerance_mm(general, depth) or general_tolerance_mm(general, 0.5) or 0.0
+    dev = values["bearing.width_deviation_um"]
+    width = stack((Link("bearing width", values["bearing.width"], dev[0] / 1000, dev[1] / 1000),
+                   Link("seat depth, this half", depth, tol, -tol), Link("seat depth, other half", depth, tol, -tol)))
+    return depth, tol, width
 
 
 def _same(a: Any, b: Any) -> bool:
@@ -192,6 +213,8 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
         parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,
                       design["shop"]["coating"]),) + added
         z_min, _, z_max, r_max = profile.bounds()
+        depth, depth_tol, width_stack = seat_depth_stack(values, design["shop"]["general_tolerance"])
+        values.update({"axial.seat_depth": depth, "axial.seat_depth_tolerance": depth_tol, "axial.width_stack": width_stack})
         values.update({"profile.outer_diameter": 2 * r_max, "profile.width": 2 * z_max,
                        "profile.gap": values["bearing_seat.gap"], "profile.post_length": values["bearing_seat.post_length"]})
     return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks), parts)

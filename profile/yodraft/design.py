@@ -49,6 +49,7 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("precision", "text", 'precision class, ISO 492 ("P4") or ABEC ("ABEC 7")', "ABEC 1", max_length=12),
         ParamSpec("bore_tolerance", "length", "overrides the class: bore deviation 0/−this", None, 0.0, 0.05, lo_closed=True),
         ParamSpec("od_tolerance", "length", "overrides the class: outside-diameter deviation 0/−this", None, 0.0, 0.05, lo_closed=True),
+        ParamSpec("width_tolerance", "length", "overrides the class: inner ring width deviation 0/−this", None, 0.0, 0.5, lo_closed=True),
     ),
     "shop": (
         ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, 0.0, 0.5),

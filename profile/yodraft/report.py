@@ -119,6 +119,21 @@ def report_markdown(data: Mapping[str, Any]) -> str:
                      f"{s[rss + '_min_mm'] * 1000:.1f} to {s[rss + '_max_mm'] * 1000:.1f} µm", f"{s[p]:.2g}"))
     lines += _table(("part", "nominal", "inch", "turn before coating", "clearance, worst case",
                      "clearance, RSS (±3σ)", "P(no slide)"), rows)
+    lines += ["## Axial stack (gap and seat depth)", ""]
+    rows = [("gap (assembled)", f"{data['profile']['gap_mm']:.3f} mm", f"halves ± {s['gap_tolerance_mm']:.3f} mm",
+             f"{s['gap_worst_mm'][0]:.3f} to {s['gap_worst_mm'][1]:.3f} mm",
+             f"{s['gap_rss_mm'][0]:.3f} to {s['gap_rss_mm'][1]:.3f} mm"),
+            ("wall offset from seat face", f"{data['features']['bearing_seat']['dimensions']['wall_offset_mm']:.3f} mm",
+             f"± {s['wall_offset_tolerance_mm']:.3f} mm", "", ""),
+            ("post length from seat face", f"{data['profile']['post_length_mm']:.3f} mm",
+             f"± {s['post_length_tolerance_mm']:.3f} mm", f"post faces ≥ {s['post_spacing_worst_min_mm']:.3f} mm apart", "")]
+    if "seat_depth_mm" in s:
+        rows += [("seat face below outer face B", f"{s['seat_depth_mm']:.3f} mm", f"± {s['seat_depth_tolerance_mm']:.3f} mm",
+                  "", ""),
+                 ("assembled width", f"{data['profile']['width_mm']:.3f} mm", "",
+                  f"{s['width_worst_mm'][0]:.3f} to {s['width_worst_mm'][1]:.3f} mm",
+                  f"{s['width_rss_mm'][0]:.3f} to {s['width_rss_mm'][1]:.3f} mm")]
+    lines += _table(("length", "nominal", "tolerance", "worst case (bearing width included)", "RSS (±3σ)"), rows)
     lines += ["## Resolved dimensions (* derived)", ""]
     for name, feature in data["features"].items():
         derived = set(feature.get("derived", []))

@@ -45,7 +45,8 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
         "bearing": {"designation": v["bearing.designation"], "bore_mm": v["bearing.bore"], "od_mm": v["bearing.od"],
                     "width_mm": v["bearing.width"], "precision": v["bearing.precision"],
                     "bore_deviation_um": list(v["bearing.bore_deviation_um"]),
-                    "od_deviation_um": list(v["bearing.od_deviation_um"])},
+                    "od_deviation_um": list(v["bearing.od_deviation_um"]),
+                    "width_deviation_um": list(v["bearing.width_deviation_um"])},
         "bearing_seat": {
             "post_diameter_mm": fit.post.nominal_mm, "post_tolerance_mm": fit.post.tolerance_mm,
             "post_precoat_diameter_mm": fit.post.precoat_mm,
@@ -58,12 +59,31 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
             "post_p_no_slide": fit.post.p_no_slide, "wall_p_no_slide": fit.wall.p_no_slide,
             "coating_growth_mm": fit.post.nominal_mm - fit.post.precoat_mm,
             "masked": bool(d["shop"]["mask_seat"]),
+            **_axial(resolved),
         },
         "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
         **(_mass_sections(resolved) if resolved.can_analyse else {}),
         **({"features": resolved_dimensions(resolved),
             "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
     }
+
+
+def _axial(resolved: Resolved) -> dict[str, Any]:
+    """The axial stack: gap tolerance, its allocation, worst case and RSS; the seat depth from datum B."""
+    v = resolved.values
+    gap = resolved.features["bearing_seat"].extra["gap_stack"]
+    out: dict[str, Any] = {
+        "gap_tolerance_mm": v["bearing_seat.gap_tolerance"],
+        "wall_offset_tolerance_mm": v["bearing_seat.wall_offset_tolerance"],
+        "post_length_tolerance_mm": v["bearing_seat.post_length_tolerance"],
+        "gap_worst_mm": list(gap.worst_mm), "gap_rss_mm": list(gap.rss_mm),
+        "post_spacing_worst_min_mm": v["bearing_seat.spacing_worst_min"],
+    }
+    if "axial.seat_depth" in v:
+        width = v["axial.width_stack"]
+        out.update({"seat_depth_mm": v["axial.seat_depth"], "seat_depth_tolerance_mm": v["axial.seat_depth_tolerance"],
+                    "width_worst_mm": list(width.worst_mm), "width_rss_mm": list(width.rss_mm)})
+    return out
 
 
 def _mass_sections(resolved: Resolved) -> dict[str, Any]:

@@ -39,6 +39,18 @@ def check_text(resolved: Resolved) -> str:
                      f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm worst case, "
                      f"{part.rss_min_mm * 1000:.1f} to {part.rss_max_mm * 1000:.1f} µm RSS, "
                      f"P(no slide) {part.p_no_slide:.2g}")
+    gap = resolved.features["bearing_seat"].extra["gap_stack"]
+    lines.append(f"gap {v['bearing_seat.gap']:.3f} mm, halves add ± {v['bearing_seat.gap_tolerance']:.3f} mm "
+                 f"(wall offset {v['bearing_seat.wall_offset']:.3f} ± {v['bearing_seat.wall_offset_tolerance']:.3f} mm each; "
+                 f"post length {v['bearing_seat.post_length']:.3f} ± {v['bearing_seat.post_length_tolerance']:.3f} mm); "
+                 f"with the bearing width {v['bearing.width_deviation_um'][0]:+g}/{v['bearing.width_deviation_um'][1]:+g} µm: "
+                 f"{gap.worst_min_mm:.3f} to {gap.worst_max_mm:.3f} mm worst case, "
+                 f"{gap.rss_min_mm:.3f} to {gap.rss_max_mm:.3f} mm RSS")
+    if "axial.seat_depth" in v:
+        width = v["axial.width_stack"]
+        lines.append(f"seat face {v['axial.seat_depth']:.3f} ± {v['axial.seat_depth_tolerance']:.3f} mm below outer face B; "
+                     f"assembled width {width.worst_min_mm:.3f} to {width.worst_max_mm:.3f} mm worst case, "
+                     f"{width.rss_min_mm:.3f} to {width.rss_max_mm:.3f} mm RSS")
     lines.append("")
     lines.append("resolved dimensions (* derived)")
     for name, feature in resolved.features.items():

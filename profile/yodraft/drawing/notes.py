@@ -37,6 +37,11 @@ def fit_lines(resolved: Resolved) -> list[str]:
         out.append(f"{label} Ø max {_mm_in(f.max_mm)}, min {_mm_in(f.min_mm)}")
         out.append(f"   clearance to {race} {f.clearance_min_mm * 1000:.1f}…{f.clearance_max_mm * 1000:.1f} µm "
                    f"worst case, {f.rss_min_mm * 1000:.1f}…{f.rss_max_mm * 1000:.1f} µm RSS")
+    gap = resolved.features["bearing_seat"].extra["gap_stack"]
+    out.append(f"Gap {v['bearing_seat.gap']:.3f} ±{v['bearing_seat.gap_tolerance']:.3f} from the halves (wall offset "
+               f"±{v['bearing_seat.wall_offset_tolerance']:.3f}, post length ±{v['bearing_seat.post_length_tolerance']:.3f} "
+               f"from the seat face); with bearing width: {gap.worst_min_mm:.3f}…{gap.worst_max_mm:.3f} worst case, "
+               f"{gap.rss_min_mm:.3f}…{gap.rss_max_mm:.3f} RSS")
     out.append(f"Bearing {v['bearing.designation']} {v['bearing.precision']}: bore Ø{v['bearing.bore']:.4f}, "
                f"OD Ø{v['bearing.od']:.4f}, width {v['bearing.width']:.4f} mm")
     return out

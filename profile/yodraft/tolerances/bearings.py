@@ -2,7 +2,8 @@
 
 ISO 492 tolerance classes Normal, P6, P5, P4, P2 for radial bearings, with the
 ABEC 1/3/5/7/9 equivalents of ABMA Std 20. The deviations are those of the
-mean bore diameter (Δdmp) and the mean outside diameter (ΔDmp), upper then
+mean bore diameter (Δdmp), the mean outside diameter (ΔDmp) and the inner ring
+width (ΔBs, which sets the distance between the two seat faces), upper then
 lower, in µm, for the small size steps a yo-yo bearing falls in:
 bore 0.6–2.5, 2.5–10, 10–18 mm; outside diameter 2.5–6, 6–18, 18–30 mm
 (each step "over … up to and including"; the first bore step includes 0.6 mm).
@@ -41,6 +42,14 @@ _OD: dict[str, tuple[tuple[float, float], ...]] = {
     "P4": ((0.0, -4.0), (0.0, -4.0), (0.0, -5.0)),
     "P2": ((0.0, -2.5), (0.0, -2.5), (0.0, -4.0)),
 }
+# (upper, lower) µm per bore step  # ISO 492, inner ring width deviation ΔBs (from memory)
+_WIDTH: dict[str, tuple[tuple[float, float], ...]] = {
+    "Normal": ((0.0, -40.0), (0.0, -120.0), (0.0, -120.0)),
+    "P6": ((0.0, -40.0), (0.0, -120.0), (0.0, -120.0)),
+    "P5": ((0.0, -40.0), (0.0, -40.0), (0.0, -80.0)),
+    "P4": ((0.0, -40.0), (0.0, -40.0), (0.0, -80.0)),
+    "P2": ((0.0, -40.0), (0.0, -40.0), (0.0, -80.0)),
+}
 ISO_CLASSES: tuple[str, ...] = tuple(_BORE)
 _ABEC = {"ABEC 1": "Normal", "ABEC 3": "P6", "ABEC 5": "P5", "ABEC 7": "P4", "ABEC 9": "P2"}  # ABMA Std 20
 _ALIASES = {"P0": "Normal", "PN": "Normal", "NORMAL": "Normal", "P6": "P6", "P5": "P5", "P4": "P4", "P2": "P2"}
@@ -73,7 +82,8 @@ def _step(steps: tuple[tuple[float, float], ...], size_mm: float, kind: str) -> 
 
 
 def bearing_deviation_um(precision: str, kind: str, size_mm: float) -> tuple[float, float]:
-    """(upper, lower) mean deviation in µm of the bearing ``kind`` ("bore" or "od").
+    """(upper, lower) deviation in µm of the bearing ``kind``: "bore" or "od" (mean diameters),
+    or "width" (inner ring width, looked up by the bore ``size_mm``).
 
     KeyError for an unknown precision class, ValueError for an unknown kind or a
     size outside the held steps.
@@ -83,4 +93,6 @@ def bearing_deviation_um(precision: str, kind: str, size_mm: float) -> tuple[flo
         return _BORE[name][_step(BORE_STEPS, size_mm, kind)]
     if kind == "od":
         return _OD[name][_step(OD_STEPS, size_mm, "outside diameter")]
-    raise ValueError(f"bearing diameter kind {kind!r} is unknown (expected 'bore' or 'od')")
+    if kind == "width":
+        return _WIDTH[name][_step(BORE_STEPS, size_mm, "bore")]
+    raise ValueError(f"bearing deviation kind {kind!r} is unknown (expected 'bore', 'od' or 'width')")
