@@ -99,7 +99,7 @@ def test_every_listed_dimension_measures_the_model(files, resolved):
 def test_toleranced_diameters_show_the_fit_limits(files, resolved):
     doc, _ = _read(files[f"{STEM}.dxf"])
     dims = _dims(doc)
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     for key, f in (("bearing_seat.post_diameter", fit.post), ("bearing_seat.wall_bore", fit.wall)):
         dim = dims[key][0]
         text = " ".join(t.plain_text() for t in dim.get_geometry_block().query("MTEXT"))
@@ -145,7 +145,7 @@ def test_title_and_note_blocks(files, resolved):
                    "Document type", "Identification number", "ISO 13715", "Ra 0.8", f"{data.runout_mm:.3f}",
                    "First issue for prototype", "Prototype and verify", "toy-safety"):
         assert needle in text, needle
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     assert f"{fit.post.max_mm:.5f}" in text and f"{fit.post.min_mm / 25.4:.5f}" in text
     assert f"{fit.post.precoat_mm:.5f}" in text  # coated, not masked: pre-coat sizes
 

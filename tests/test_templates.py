@@ -59,14 +59,29 @@ def test_templates_lists_every_file_with_its_description(capsys: pytest.CaptureF
 
 def test_new_writes_a_design_that_checks(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
     target = tmp_path / "mine.toml"
-    assert main(["new", str(target), "--template", "string-trick", "--name", "my-ls56"]) == 0
+    assert main(["new", str(target), "--template", "string-trick", "--name", "my-ls56", "--date", "2027-01-05",
+                 "--creator", "C. Turner"]) == 0
     data = tomllib.loads(target.read_text(encoding="utf-8"))
     source = tomllib.loads((TEMPLATES / "string-trick.toml").read_text(encoding="utf-8"))
     assert data["design"]["name"] == "my-ls56"
-    data["design"]["name"] = source["design"]["name"]
-    assert data == source  # only the name differs
+    # nothing personal of the demo company comes along: blank unless given, the date as asked
+    assert (data["design"]["owner"], data["design"]["identification"], data["design"]["approver"]) == ("", "", "")
+    assert data["design"]["creator"] == "C. Turner" and data["design"]["date"] == "2027-01-05"
+    assert data["revisions"] == [{"letter": source["design"]["revision"], "date": "2027-01-05", "note": "First issue"}]
+    for key in ("name", "owner", "identification", "creator", "approver", "date"):
+        data["design"][key] = source["design"][key]
+    data["revisions"] = source["revisions"]
+    assert data == source  # the design itself is the template's
     capsys.readouterr()
     assert main(["check", str(target)]) == 0
+
+
+def test_new_dates_today_by_default(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    import datetime
+
+    target = tmp_path / "mine.toml"
+    assert main(["new", str(target), "-t", "string-trick"]) == 0
+    assert tomllib.loads(target.read_text(encoding="utf-8"))["design"]["date"] == datetime.date.today().isoformat()
 
 
 def test_new_refuses_to_overwrite(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:

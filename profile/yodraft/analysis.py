@@ -1,7 +1,6 @@
 """Mass properties, spin metrics and balance of a resolved design: one half, the small parts, the assembly."""
 from __future__ import annotations
 
-import functools
 from dataclasses import dataclass
 from typing import Any
 
@@ -42,21 +41,11 @@ def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
     v = resolved.values
     spec = resolved.design["parts"]
     pad_density = resolved.features["pad_groove"].extra["pad"].pad_density_g_cm3
-    return _placed_parts(
-        (v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"]),
-        (spec["pad_mass"], pad_density, v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"],
-         v["pad_groove.depth"], v["pad_groove.face_z"]),
-        (spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"], v["axle_bore.pitch"],
-         v["axle_bore.major_diameter"]),
-    )
-
-
-@functools.lru_cache(maxsize=256)  # a sweep of the outer shape places the same small parts every time
-def _placed_parts(bearing: tuple[float, ...], pad: tuple[Any, ...],
-                  axle: tuple[Any, ...]) -> tuple[tuple[PointPart, ...], float]:
-    bearing_mass, bore, od, width = bearing
-    pad_mass, pad_density, pad_inner_d, pad_outer_d, depth, face_z = pad
-    axle_mass, spacing, thread_depth, pitch, major_d = axle
+    bearing_mass, bore, od, width = v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"]
+    pad_mass, pad_inner_d, pad_outer_d = spec["pad_mass"], v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"]
+    depth, face_z = v["pad_groove.depth"], v["pad_groove.face_z"]
+    axle_mass, spacing, thread_depth = spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"]
+    pitch, major_d = v["axle_bore.pitch"], v["axle_bore.major_diameter"]
     bearing_part = ring_part("bearing", bearing_mass, bore / 2, od / 2, width, 0.0)
     r_in, r_out = pad_inner_d / 2, pad_outer_d / 2
     if pad_mass is None:

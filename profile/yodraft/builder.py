@@ -20,6 +20,7 @@ from .parts import BODY, Part, cut_seats, feature_parts, seat_checks
 from .tolerances.bearings import PRECISION_CLASSES, bearing_deviation_um
 from .tolerances.general import general_tolerance_mm
 from .tolerances.stack import Link, Stack, stack
+from .tolerances.seat import SeatFit
 
 __all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material"]
 
@@ -38,6 +39,12 @@ class Resolved:
     profile: Profile | None
     checks: tuple[Check, ...]
     parts: tuple[Part, ...] = ()
+
+    @property
+    def seat_fit(self) -> SeatFit:
+        """The bearing seat's two fits (post in the bore, outer race in the wall bore) as the stack sized them."""
+        fit: SeatFit = self.features["bearing_seat"].extra["seat_fit"]
+        return fit
 
     @property
     def ok(self) -> bool:

@@ -66,14 +66,12 @@ BACK_WALLS: tuple[tuple[str, str, str], ...] = (
 
 def radial_order(values: Mapping[str, Any]) -> list[Check]:
     """Each diameter must lie outside the one before it (post < vent groove < wall < pad groove < catch zone < rim)."""
-    return [_radial_check(i, values[inner], values[outer]) for i, (_, inner, outer, _, _) in enumerate(_RADIAL_PAIRS)]
-
-
-@functools.lru_cache(maxsize=1024)  # a sweep meets the same unchanged pairs again and again
-def _radial_check(pair: int, inner_value: float, outer_value: float) -> Check:
-    name, inner, _, feature, parameter = _RADIAL_PAIRS[pair]
-    return Check(name, feature, parameter, bool(outer_value > inner_value + 1e-9),
-                 f"Ø{outer_value:.3f} mm must exceed {inner} Ø{inner_value:.3f} mm")
+    out = []
+    for name, inner, outer, feature, parameter in _RADIAL_PAIRS:
+        inner_value, outer_value = values[inner], values[outer]
+        out.append(Check(name, feature, parameter, bool(outer_value > inner_value + 1e-9),
+                         f"Ø{outer_value:.3f} mm must exceed {inner} Ø{inner_value:.3f} mm"))
+    return out
 
 
 #: each neighbouring pair of RADIAL_ORDER as (check name, inner key, outer key, outer feature, outer parameter)

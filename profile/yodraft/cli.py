@@ -10,7 +10,7 @@ from pathlib import Path
 from typing import Any
 
 from . import __version__
-from .errors import CheckFailure, DesignInputError, YodraftError, one_line
+from .errors import CheckFailure, DesignInputError, UsageError, YodraftError, one_line
 
 __all__ = ["main", "INTERNAL_ERROR"]
 
@@ -22,7 +22,7 @@ class _Parser(argparse.ArgumentParser):
     """argparse that reports a usage error as one line and exit 2."""
 
     def error(self, message: str) -> None:  # type: ignore[override]
-        raise DesignInputError(self.prog, "", message, f"see '{self.prog} --help'")
+        raise UsageError(self.prog, message)
 
 
 def _parser() -> argparse.ArgumentParser:
@@ -36,7 +36,7 @@ def _parser() -> argparse.ArgumentParser:
     p.set_defaults(run=_check)
     p = sub.add_parser("build", help="check a design, then write its drawing into out/")
     p.add_argument("design", help="design file (.toml)")
-    p.add_argument("-o", "--out", default="out", help="output folder (default: out)")
+    p.add_argument("-o", "--output", "--out", dest="out", default="out", help="output folder (default: out)")
     p.add_argument("--force", action="store_true",
                    help="overwrite a drawing of the same revision even if its geometry changed")
     p.set_defaults(run=_build)
@@ -48,8 +48,9 @@ def _parser() -> argparse.ArgumentParser:
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("--target", required=True, help='what to hit, e.g. mass=66g, izz=30000g*mm^2, gap=4.2mm')
     p.add_argument("--vary", required=True, help="numeric parameter to move, e.g. features.rim.width")
-    p.add_argument("-o", "--out", help="where to write the solved design (default: beside it, named by the new revision)")
-    p.add_argument("--date", help="date of the new revision, YYYY-MM-DD (default: the design's date of issue)")
+    p.add_argument("-o", "--output", "--out", dest="out",
+                   help="where to write the solved design (default: beside it, named by the new revision)")
+    p.add_argument("--date", help="date of the new revision, YYYY-MM-DD (default: today)")
     p.set_defaults(run=_solve)
     p = sub.add_parser("keys", help="print the design-file reference: every key, what it takes and its default")
     p.set_defaults(run=_keys)
@@ -72,6 +73,9 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("file", help="design file to create (never overwritten)")
     p.add_argument("-t", "--template", required=True, help="starter design name (see 'yodraft templates')")
     p.add_argument("--name", help="design.name of the new design (default: the template's)")
+    p.add_argument("--date", help="date of issue, YYYY-MM-DD (default: today)")
+    for field in ("owner", "creator", "approver", "identification"):
+        p.add_argument(f"--{field}", default="", help=f"design.{field} for the title block (default: blank)")
     p.set_defaults(run=_new)
     p = sub.add_parser("report", help="the design report: inputs, dimensions, fits, mass, checks, cautions")
     p.add_argument("design", help="design file (.toml)")
@@ -87,17 +91,20 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("--vary", action="append", required=True, metavar="KEY=START:STOP:COUNT",
                    help="e.g. features.rim.width=6mm:3mm:4; give once or twice")
-    p.add_argument("--csv", help="write the CSV here (default: print it)")
+    p.add_argument("-o", "--output", "--csv", dest="csv", help="write the CSV here (default: print it)")
     p.add_argument("--plot", help="write an SVG plot of the outputs here")
     p.add_argument("--jobs", type=int, help="worker processes (default: one per core)")
     p.set_defaults(run=_sweep)
     p = sub.add_parser("watch", help="rebuild the drawing each time the design file is saved")
     p.add_argument("design", help="design file (.toml)")
-    p.add_argument("-o", "--out", default="out", help="output folder (default: out)")
+    p.add_argument("-o", "--output", "--out", dest="out", default="out", help="output folder (default: out)")
     p.add_argument("--interval", type=float, default=0.25, help="seconds between polls (default: 0.25)")
     p.add_argument("--max-builds", type=int, help="stop after this many builds")
     p.add_argument("--timeout", type=float, help="stop after this many seconds")
     p.add_argument("--force", action="store_true", help="as for build: overwrite a drawing whose geometry changed")
+    level = p.add_mutually_exclusive_group()
+    level.add_argument("-q", "--quiet", action="store_true", help="print only what was built or why not")
+    level.add_argument("-v", "--verbose", action="store_true", help="print every changed value after each save")
     p.set_defaults(run=_watch)
 
 
@@ -129,9 +136,10 @@ def _templates(args: argparse.Namespace) -> int:
 
 
 def _new(args: argparse.Namespace) -> int:
-    from .templates import new_design
+    from .templates import PERSONAL, new_design
 
-    print(new_design(Path(args.file), args.template, args.name))
+    people = {key: getattr(args, key) for key in PERSONAL}
+    print(new_design(Path(args.file), args.template, args.name, date=args.date, people=people))
     return 0
 
 
@@ -184,6 +192,10 @@ def _sweep(args: argparse.Namespace) -> int:
     return 0 if result.passed else 1
 
 
+#: changed values a watch shows after each save, unless --verbose (all) or --quiet (none)
+WATCH_LINES = 6
+
+
 def _watch(args: argparse.Namespace) -> int:
     from .diff import diff_text
     from .watch import watch
@@ -206,9 +218,9 @@ def _watch(args: argparse.Namespace) -> int:
                     print(f"  FAILED {line}", flush=True)
             else:
                 print(f"not built: {event.message}", flush=True)
-            if event.changes is not None and not event.changes.same:
+            if event.changes is not None and not event.changes.same and not args.quiet:
                 label = "changed since the last good build" if event.kind == "failed" else "changed"
-                print(f"{label}:\n" + diff_text(event.changes, limit=20), flush=True)
+                print(f"{label}:\n" + diff_text(event.changes, limit=None if args.verbose else WATCH_LINES), flush=True)
     except KeyboardInterrupt:
         pass
     return 0
@@ -217,7 +229,7 @@ def _watch(args: argparse.Namespace) -> int:
 def _solve(args: argparse.Namespace) -> int:
     from .design import DATE_PATTERN, load
     from .output import write_atomic
-    from .solve import parse_target, quantity_text, solve, solved_text
+    from .solve import TARGET_UNITS, parse_target, quantity_text, solve, solved_text
     from .textout import failed_lines
     from .tomledit import bump_revision
 
@@ -242,12 +254,20 @@ def _solve(args: argparse.Namespace) -> int:
     if out.exists() or out.resolve() == source.resolve():
         raise DesignInputError(str(out), "", "already exists", "a new file name for the solved design (-o)")
     text = solved_text(source.read_text(encoding="utf-8"), result, args.target.partition("=")[2], revision,
-                       args.date or design["design"]["date"], str(out))
+                       args.date or _today(), str(out))
     write_atomic(out, text.encode("utf-8"))
-    print(f"{result.key} = {quantity_text(result.value, result.spec)}: {name} {result.achieved:.4f} "
-          f"(target {goal:g}) after {result.evaluations} trials; every check passes")
+    unit = TARGET_UNITS[name]
+    print(f"{result.key} = {quantity_text(result.value, result.spec)}: {name} {result.achieved:.4f} {unit} "
+          f"(target {goal:g} {unit}) after {result.evaluations} trials; every check passes")
     print(out)
     return 0
+
+
+def _today() -> str:
+    """Today's date, YYYY-MM-DD (the date a new revision or a new design gets unless --date is given)."""
+    import datetime
+
+    return datetime.date.today().isoformat()
 
 
 def _fit(args: argparse.Namespace) -> int:
@@ -296,9 +316,19 @@ def _build(args: argparse.Namespace) -> int:
 
 def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the ``yodraft`` command."""
+    argv = sys.argv[1:] if argv is None else list(argv)
+    code = 0
     try:
+        if not argv:  # a first try with no arguments: show what the program does, not an error
+            _parser().print_help()
+            return 0
         args = _parser().parse_args(argv)
-        return int(args.run(args))
+        code = int(args.run(args))
+        sys.stdout.flush()
+        return code
+    except BrokenPipeError:  # the reader (e.g. `| head`) had enough: not an error of ours
+        _silence_stdout()
+        return code
     except YodraftError as exc:
         print(f"yodraft: {exc}", file=sys.stderr)
         return exc.exit_code
@@ -311,3 +341,12 @@ def main(argv: Sequence[str] | None = None) -> int:
         print(f"yodraft: internal error ({one_line(f'{type(exc).__name__}: {exc}')}); please report it with the "
               "design file, or set YODRAFT_TRACEBACK=1 to see where", file=sys.stderr)
         return INTERNAL_ERROR
+
+
+def _silence_stdout() -> None:
+    """Point stdout at the null device so the interpreter's last flush cannot fail again."""
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError):
+        pass

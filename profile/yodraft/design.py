@@ -4,8 +4,8 @@ from __future__ import annotations
 import datetime
 import re
 import tomllib
-from collections.abc import Mapping
-from dataclasses import dataclass, field
+from collections.abc import Mapping, Sequence
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any
 
@@ -15,12 +15,18 @@ from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, read_table
 from .units import MM_PER_INCH as IN
 
-__all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "NAME_PATTERN"]
+__all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "with_values", "NAME_PATTERN",
+           "OUTPUT_WORDS"]
 
 NAME_PATTERN = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")
 DATE_PATTERN = re.compile(r"^\d{4}-\d{2}-\d{2}$")
 #: no design file comes near this; a larger one is the wrong file (or /dev/zero)
-MAX_DESIGN_BYTES = 64 * 2**20
+MAX_DESIGN_BYTES = 2**20  # a design is a few kilobytes; a megabyte is already a mistake
+#: the deepest key path a design file needs (features.rim.width is three parts)
+MAX_KEY_PARTS = 6
+#: words a build puts after ``<name>-<revision>`` in its file names: a revision may not be one of them,
+#: or design ``x-A`` at revision ``profile`` would write over the CAM profile of design ``x`` at revision ``A``
+OUTPUT_WORDS = frozenset({"profile", "ring", "assembly", "sheet", "build", "report", "lot", "bom", "overlay"})
 
 SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
     "design": (
@@ -156,7 +162,7 @@ def load(path: str | Path) -> Design:
     except OSError as exc:
         raise DesignInputError(name, "", f"cannot be read ({exc.strerror})", "a readable design file") from None
     if len(data) > MAX_DESIGN_BYTES:
-        raise DesignInputError(name, "", f"is larger than {MAX_DESIGN_BYTES // 2**20} MiB",
+        raise DesignInputError(name, "", f"is larger than {MAX_DESIGN_BYTES // 2**10} KiB",
                                "a design file (a few kilobytes of TOML)")
     try:
         text = data.decode("utf-8-sig")  # an editor's byte-order mark is not part of the design
@@ -169,6 +175,9 @@ def loads(text: str, source: str = "<design>") -> Design:
     """Read design-file text; ``source`` names it in messages."""
     if "\x00" in text:
         raise DesignInputError(source, "", "contains NUL bytes (a binary file?)", "a TOML design file")
+    if len(text) > MAX_DESIGN_BYTES:
+        raise DesignInputError(source, "", f"is longer than {MAX_DESIGN_BYTES // 2**10} KiB", "a design file of a few kilobytes")
+    _check_key_depth(text, source)
     try:
         raw = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
@@ -177,6 +186,75 @@ def loads(text: str, source: str = "<design>") -> Design:
         raise DesignInputError(source, "", "nests arrays or inline tables too deeply to read",
                                "a design file of plain tables and values") from None
     return from_dict(raw, source)
+
+
+_KEY_PART = re.compile(r"""\s*(?:[A-Za-z0-9_-]+|"(?:[^"\\\n]|\\.)*"|'[^'\n]*')\s*""")
+
+
+def _check_key_depth(text: str, source: str) -> None:
+    """Refuse, before parsing, a key or table name of more parts than any design key has
+    (tomllib would build a table for every part: 20,000 parts take seconds and gigabytes).
+
+    >>> _check_key_depth('a.b.c = 1', "x.toml")
+    >>> _check_key_depth('a' + '.a' * 9 + ' = 1', "x.toml")
+    Traceback (most recent call last):
+    ...
+    yodraft.errors.DesignInputError: x.toml: line 1: a key of 10 dotted parts (expected at most 6 parts, e.g. features.rim.width)
+    """
+    for number, line in enumerate(text.splitlines(), 1):
+        head = line.lstrip().lstrip("[")
+        pos, parts = 0, 0
+        while True:
+            m = _KEY_PART.match(head, pos)
+            if not m or m.end() == pos:
+                break
+            parts, pos = parts + 1, m.end()
+            if pos >= len(head) or head[pos] != ".":
+                break
+            pos += 1
+        if parts > MAX_KEY_PARTS:
+            raise DesignInputError(source, f"line {number}", f"a key of {parts} dotted parts",
+                                   f"at most {MAX_KEY_PARTS} parts, e.g. features.rim.width")
+
+
+def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Design:
+    """A variant of ``base``: each key path (``features.rim.width``, ``shop.fit_clearance``) set to a value in
+    base units (mm, g, rad …), its parsed TOML updated alike. The one way a sweep, a solve or a lot makes a variant.
+
+    >>> d = with_values(loads(EXAMPLE_TEXT), [("features.rim.thickness", 5.0)])
+    >>> d.features["rim"]["thickness"], d.raw["features"]["rim"]["thickness"], d.is_given("features.rim.thickness")
+    (5.0, '5 mm', True)
+    """
+    sections = dict(base.sections)
+    features = dict(base.features)
+    raw = dict(base.raw)
+    keys = []
+    for key, value in assignments:
+        found = find_param(key)
+        if found is None:
+            raise DesignInputError(base.source, key, "is not a design key",
+                                   "a key path such as features.rim.width or shop.fit_clearance")
+        parts, spec = found
+        keys.append(".".join(parts))
+        written = spec.written(value)
+        if parts[0] == "features":
+            features[parts[1]] = {**features[parts[1]], parts[2]: value}
+            tables = dict(raw.get("features", {}))
+            tables[parts[1]] = {**tables.get(parts[1], {}), parts[2]: written}
+            raw["features"] = tables
+        else:
+            sections[parts[0]] = {**sections[parts[0]], parts[1]: value}
+            raw[parts[0]] = {**raw.get(parts[0], {}), parts[1]: written}
+    return replace(base, sections=sections, features=features, given=base.given | frozenset(keys), raw=raw)
+
+
+#: a design for doctests: everything but the envelope takes its default
+EXAMPLE_TEXT = '''[design]
+name = "example"
+[envelope]
+diameter = "56 mm"
+width = "44 mm"
+'''
 
 
 def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
@@ -233,6 +311,9 @@ def _check_design_section(values: dict[str, Any], source: str) -> None:
     if not re.match(r"^[A-Za-z0-9]{1,8}$", values["revision"]):
         raise DesignInputError(source, "design.revision", f"{values['revision']!r} is not a revision mark",
                                "letters or digits, e.g. A or 2")
+    if values["revision"].lower() in OUTPUT_WORDS:
+        raise DesignInputError(source, "design.revision", f"{values['revision']!r} is a word yodraft puts in its file names",
+                               "a revision mark such as A, B or 2")
 
 
 def _check_catalog_names(sections: Mapping[str, Mapping[str, Any]], source: str) -> None:

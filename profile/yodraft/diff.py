@@ -16,6 +16,8 @@ from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
+from .units import unit_of
+
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
     from .design import Design
@@ -27,12 +29,6 @@ REL_TOL = 1e-9
 ABS_TOL = 1e-9  # mm, g …: far below anything a lathe or a scale resolves
 #: summary keys that say where a design came from, not what it is
 IGNORED = ("design.source",)
-# longest suffix first: "_g_mm2" before "_mm2" before "_g"
-_UNITS = (("_kg_m2_per_s", "kg·m²/s"), ("_m_s2", "m/s²"), ("_mm_s", "mm/s"), ("_g_mm2", "g·mm²"), ("_g_mm", "g·mm"), ("_g_cm3", "g/cm³"), ("_n_mm", "N·mm"), ("_rad_s", "rad/s"), ("_mm2", "mm²"),
-          ("_mm3", "mm³"), ("_mm", "mm"), ("_um", "µm"), ("_deg", "°"), ("_rpm", "rpm"), ("_g", "g"),
-          ("_j", "J"), ("_mj", "mJ"), ("_s", "s"), ("_pct", "%"), ("_n", "N"))
-
-
 @dataclass(frozen=True)
 class Change:
     """One changed value: ``delta`` is new − old when both are numbers."""
@@ -81,15 +77,6 @@ class DesignDiff:
         return {"a": dict(self.a), "b": dict(self.b), "same": self.same,
                 "inputs": [c.as_dict() for c in self.inputs], "derived": [c.as_dict() for c in self.derived],
                 "checks": [c.as_dict() for c in self.checks]}
-
-
-def unit_of(key: str) -> str:
-    """The unit a summary key carries in its suffix ("" for none)."""
-    leaf = key.rsplit(".", 1)[-1].split("[", 1)[0]
-    for suffix, unit in _UNITS:
-        if leaf.endswith(suffix):
-            return unit
-    return ""
 
 
 def flatten(tree: Mapping[str, Any], prefix: str = "") -> dict[str, Any]:

@@ -8,7 +8,7 @@ from typing import TYPE_CHECKING
 if TYPE_CHECKING:  # pragma: no cover
     from .checks import Check
 
-__all__ = ["YodraftError", "DesignInputError", "CheckFailure", "one_line"]
+__all__ = ["YodraftError", "DesignInputError", "UsageError", "CheckFailure", "one_line"]
 
 
 def one_line(text: str) -> str:
@@ -57,6 +57,26 @@ class DesignInputError(YodraftError, ValueError):
         if self.expected:
             text += f" (expected {self.expected})"
         return one_line(text)
+
+
+class UsageError(YodraftError, ValueError):
+    """A command line that cannot be read: names the command and where to find its usage.
+
+    >>> str(UsageError("yodraft new", "the following arguments are required: -t/--template"))
+    "new: the following arguments are required: -t/--template (see 'yodraft new --help')"
+    """
+
+    exit_code = 2
+
+    def __init__(self, prog: str, problem: str) -> None:
+        self.prog = prog
+        self.problem = problem
+        super().__init__(prog, problem)
+
+    def __str__(self) -> str:
+        command = self.prog.partition(" ")[2]
+        text = f"{command}: {self.problem}" if command else self.problem
+        return one_line(f"{text} (see '{self.prog} --help')")
 
 
 class CheckFailure(YodraftError):

@@ -14,21 +14,13 @@ from dataclasses import dataclass
 from typing import Any
 
 from .errors import DesignInputError
-from .units import KINDS, UnitError, parse_quantity
+from .units import DISPLAY_UNITS, KINDS, UnitError, parse_quantity, written
 
 __all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "DISPLAY_UNITS"]
 
 _QUANTITY_KINDS = set(KINDS)
 _OTHER_KINDS = {"text", "bool", "number"}
 _CONTROL = re.compile(r"[\x00-\x1f\x7f]")
-#: how a value of each kind is shown to the user and written back into a design file:
-#: (divisor from the base unit, unit text, suffix of a column or JSON key holding it)
-DISPLAY_UNITS: dict[str, tuple[float, str, str]] = {
-    "length": (1.0, "mm", "_mm"), "angle": (math.pi / 180, "deg", "_deg"), "mass": (1.0, "g", "_g"),
-    "torque": (1.0, "N*mm", "_n_mm"), "density": (1.0, "g/cm^3", "_g_cm3"), "speed": (1.0, "rpm", "_rpm"),
-    "roughness": (1.0, "um", "_um"), "number": (1.0, "", "")}
-
-
 #: the smallest non-zero magnitude any quantity may have, in its base unit (mm, g, rad, N*mm, ...)
 SMALLEST = 1e-9
 
@@ -73,11 +65,15 @@ class ParamSpec:
             div, unit, _ = DISPLAY_UNITS.get(self.kind, (1.0, "", ""))
             parts = []
             if self.lo is not None:
-                parts.append(f"{'at least' if self.lo_closed else 'above'} {self.lo / div:g} {unit}".rstrip())
+                parts.append(f"{'at least' if self.lo_closed else 'above'} {_shown(self.lo / div, up=True)} {unit}".rstrip())
             if self.hi is not None:
-                parts.append(f"at most {self.hi / div:g} {unit}".rstrip())
+                parts.append(f"at most {_shown(self.hi / div, up=False)} {unit}".rstrip())
             text += ", " + " and ".join(parts)
         return text
+
+    def written(self, value: float) -> Any:
+        """``value`` (base units) as the design file writes it, e.g. ``"5.5 mm"``."""
+        return written(value, self.kind)
 
     def read(self, raw: Any, file: str, key: str) -> Any:
         """Validate ``raw`` (a TOML value) and return it in base units."""
@@ -122,8 +118,33 @@ class ParamSpec:
             raise DesignInputError(file, key, f"{raw!r} is out of range", self.expected())
 
 
+def _shown(bound: float, up: bool) -> str:
+    """A bound shown to six significant digits, rounded towards the allowed side, so that the value
+    a message shows is itself accepted.
+
+    >>> _shown(80.21409479, up=False), _shown(0.1234567, up=True), _shown(40.0, up=False)
+    ('80.2140', '0.12346', '40')
+    """
+    text = f"{bound:.6g}"
+    if "e" in text or float(text) == bound:
+        return text
+    digits = max(0, 6 - len(str(int(abs(bound)))))
+    step = 10.0 ** -digits
+    value = (math.ceil(bound / step) if up else math.floor(bound / step)) * step
+    return f"{value:.{digits}f}"
+
+
 def _suggest(word: str, options: Sequence[str]) -> str:
-    close = difflib.get_close_matches(word, list(options), n=1, cutoff=0.6)
+    """A "did you mean" only for a near miss — a typo, or a known name with something added or cut —
+    never for a merely similar word.
+
+    >>> _suggest("widht", ["width"]), _suggest("owner_name", ["owner"]), _suggest("response", ["revision"])
+    ("; did you mean 'width'?", "; did you mean 'owner'?", '')
+    """
+    close = difflib.get_close_matches(word, list(options), n=1, cutoff=0.75)
+    if not close:
+        low = word.lower()
+        close = [o for o in options if len(o) >= 4 and (low.startswith(o.lower()) or o.lower().startswith(low))][:1]
     return f"; did you mean {close[0]!r}?" if close else ""
 
 

@@ -5,9 +5,10 @@ from collections.abc import Iterator
 
 from .design import REQUIRED, REVISION_SPECS, SECTIONS
 from .features import FEATURES
-from .params import DISPLAY_UNITS, ParamSpec
+from .params import ParamSpec
+from .units import DISPLAY_UNITS
 
-__all__ = ["reference_rows", "reference_markdown"]
+__all__ = ["reference_rows", "reference_markdown", "catalog_markdown"]
 
 
 
@@ -48,4 +49,40 @@ def reference_markdown() -> str:
                     "| key | takes | default | meaning |", "| --- | --- | --- | --- |"]
             current = table
         out.append(f"| `{key}` | {expected.replace('|', '/')} | {default} | {doc} |")
-    return "\n".join(out).strip() + "\n"
+    return "\n".join(out).strip() + "\n\n" + catalog_markdown()
+
+
+def _cell(text: str) -> str:
+    return text.replace("|", "/")
+
+
+def catalog_markdown() -> str:
+    """The catalogs a design names rows of — bearings, pad classes, threads, materials — each row with its source."""
+    from .catalog.bearings import BEARINGS, LETTER_SIZES
+    from .catalog.materials import MATERIALS
+    from .catalog.pads import PAD_CLASSES
+    from .catalog.threads import THREADS
+
+    letters = {v: k for k, v in LETTER_SIZES.items()}
+    out = ["**Catalogs** (`profile/yodraft/catalog/`). Rows marked \"from memory\" are to be confirmed against the "
+           "maker's drawing before a production run.", "",
+           "Bearings (`bearing.size`: the designation, or a trade letter size)", "",
+           "| designation | bore × OD × width (mm) | mass (g) | source |", "| --- | --- | --- | --- |"]
+    for b in BEARINGS.values():
+        name = b.designation + (f" (size {letters[b.designation]})" if b.designation in letters else "")
+        out.append(f"| {name} | {b.bore_mm:.4g} × {b.od_mm:.4g} × {b.width_mm:.4g} | {b.mass_g:g} | {_cell(b.source)} |")
+    out += ["", "Pad classes (`features.pad_groove.pad_class`)", "",
+            "| class | pad Ø (mm) | groove inner Ø (mm) | groove depth (mm) | source |", "| --- | --- | --- | --- | --- |"]
+    for c in PAD_CLASSES.values():
+        out.append(f"| {c.name} | {c.pad_diameter_mm:g} | {c.groove_inner_diameter_mm:g} | {c.groove_depth_mm:g} | "
+                   f"{_cell(c.source)} |")
+    out += ["", "Threads (`features.axle_bore.thread`)", "",
+            "| thread | major Ø (mm) | pitch (mm) | tap drill (mm) | class | source |", "| --- | --- | --- | --- | --- | --- |"]
+    for t in THREADS.values():
+        out.append(f"| {t.name} | {t.major_mm:.4g} | {t.pitch_mm:.4g} | {t.tap_drill_mm:.4g} | {t.tolerance_class} | "
+                   f"{_cell(t.source)} |")
+    out += ["", "Materials (`design.material`)", "",
+            "| material | density (g/cm³) | source |", "| --- | --- | --- |"]
+    for m in MATERIALS.values():
+        out.append(f"| {m.name} | {m.density_g_cm3:g} | {_cell(m.source)} |")
+    return "\n".join(out) + "\n"

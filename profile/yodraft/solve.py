@@ -6,20 +6,19 @@ the parameter's own bounds, so each trial is a design the builder accepts.
 """
 from __future__ import annotations
 
-import copy
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from typing import Any
 
 from .analysis import analyse
 from .builder import Resolved, build
-from .design import Design, find_param, from_dict, loads
+from .design import Design, find_param, loads, with_values
 from .errors import DesignInputError
-from .params import DISPLAY_UNITS, ParamSpec
+from .params import ParamSpec
 from .tomledit import add_revision, set_key
 from .units import UnitError, parse_quantity
 
-__all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "with_value", "quantity_text", "parse_target", "solved_text"]
+__all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "quantity_text", "parse_target", "solved_text"]
 
 #: what can be aimed at: name -> (kind of the target value, how to read it off a resolved design, tolerance)
 TARGETS: dict[str, tuple[str, Callable[[Resolved], float], float]] = {
@@ -56,20 +55,7 @@ def find_spec(key: str, source: str) -> tuple[list[str], ParamSpec]:
 
 def quantity_text(value: float, spec: ParamSpec) -> Any:
     """``value`` (base units) as a design-file value: a quantity string, or a plain number."""
-    if spec.kind == "number":
-        return round(value, 9)
-    div, unit, _ = DISPLAY_UNITS[spec.kind]
-    return f"{value / div:.6f} {unit}"
-
-
-def with_value(design: Design, parts: list[str], spec: ParamSpec, value: float) -> Design:
-    """A copy of ``design`` with the parameter at ``parts`` set to ``value`` (base units)."""
-    raw = copy.deepcopy(dict(design.raw))
-    table: dict[str, Any] = raw
-    for name in parts[:-1]:
-        table = table.setdefault(name, {})
-    table[parts[-1]] = quantity_text(value, spec)
-    return from_dict(raw, design.source)
+    return spec.written(value)
 
 
 def _current(design: Design, parts: list[str], spec: ParamSpec) -> float | None:
@@ -103,7 +89,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
         nonlocal count, best
         count += 1
         try:
-            candidate = with_value(design, parts, spec, x)
+            candidate = with_values(design, [(".".join(parts), x)])
             resolved = build(candidate)
             if resolved.profile is None:
                 return None
@@ -178,7 +164,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
                 side = 1
         if abs(fb) > tol:
             raise ValueError(f"{key}: could not close on {target} {goal:g} within {max_evaluations} trials")
-    solved = with_value(design, parts, spec, b)
+    solved = with_values(design, [(".".join(parts), b)])
     resolved = build(solved)
     return SolveResult(".".join(parts), target, spec, b, measure(resolved), goal, count, resolved, solved)
 

@@ -34,7 +34,7 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
     """
     v = resolved.values
     d = resolved.design
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     return {
         "ok": resolved.ok,
         "design": {"name": d.name, "revision": d.revision, "title": d["design"]["title"], "source": d.source},

@@ -21,12 +21,13 @@ import re
 import sys
 from collections.abc import Callable, Mapping, Sequence
 from concurrent.futures import ProcessPoolExecutor
-from dataclasses import dataclass, replace
+from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
 from .builder import BuildMemo, build
+from .design import with_values
 from .errors import DesignInputError, YodraftError
-from .params import DISPLAY_UNITS
+from .units import DISPLAY_UNITS
 
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
@@ -138,35 +139,12 @@ def parse_vary(text: str, design: "Design") -> Axis:
     return Axis(full, spec.kind, values[0], values[1], count)
 
 
-def _variant_design(base: "Design", assignments: Sequence[tuple[str, float]]) -> "Design":
-    """The base design with each key path set to a value (base units); the parsed TOML is updated alike."""
-    sections = dict(base.sections)
-    features = dict(base.features)
-    raw = dict(base.raw)
-    from .design import find_param
-
-    for key, value in assignments:
-        parts, spec = find_param(key)  # type: ignore[misc]  # keys come from parsed axes
-        div, unit, _ = DISPLAY_UNITS[spec.kind]
-        written = value if spec.kind == "number" else f"{value / div:.12g} {unit}"
-        if parts[0] == "features":
-            features[parts[1]] = {**features[parts[1]], parts[2]: value}
-            tables = dict(raw.get("features", {}))
-            tables[parts[1]] = {**tables.get(parts[1], {}), parts[2]: written}
-            raw["features"] = tables
-        else:
-            sections[parts[0]] = {**sections[parts[0]], parts[1]: value}
-            raw[parts[0]] = {**raw.get(parts[0], {}), parts[1]: written}
-    keys = frozenset(k for k, _ in assignments)
-    return replace(base, sections=sections, features=features, given=base.given | keys, raw=raw)
-
-
 def _outputs(resolved: "Resolved") -> dict[str, float | None]:
     """A variant's OUTPUT_KEYS, valued as in its ``check --json`` summary (mass keys only when it can be weighed)."""
     from .analysis import mass_and_spin
 
     v = resolved.values
-    post = resolved.features["bearing_seat"].extra["seat_fit"].post
+    post = resolved.seat_fit.post
     out = {"profile.gap_mm": v["bearing_seat.gap"], "profile.outer_diameter_mm": v.get("profile.outer_diameter"),
            "profile.width_mm": v.get("profile.width"), "bearing_seat.clearance_min_mm": post.clearance_min_mm,
            "bearing_seat.clearance_max_mm": post.clearance_max_mm}
@@ -187,7 +165,7 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
     assignments = list(zip([a.key for a in axes], values))
     shown = tuple(a.shown(v) for a, v in zip(axes, values))
     try:
-        resolved = build(_variant_design(base, assignments), memo)
+        resolved = build(with_values(base, assignments), memo)
     except (YodraftError, ValueError) as exc:
         return Variant(index, shown, False, (f"input: {exc}",), {})
     failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
@@ -223,7 +201,11 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
         points = [(i, (v,)) for i, v in enumerate(grids[0])]
     else:
         points = [(i * len(grids[1]) + j, (u, v)) for i, u in enumerate(grids[0]) for j, v in enumerate(grids[1])]
-    workers = workers if workers is not None else min(os.cpu_count() or 1, 8)
+    # never more workers than the machine has cores, nor than chunks to give them
+    workers = min(workers if workers is not None else 8, os.cpu_count() or 1)
+    size = max(16, math.ceil(total / (workers * 16)))  # small chunks: no worker idles long at the end
+    chunks = [points[k:k + size] for k in range(0, total, size)]
+    workers = min(workers, len(chunks))
     done: list[Variant] = []
     if workers <= 1 or total < 64:
         memo = BuildMemo()
@@ -232,8 +214,6 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
             if progress:
                 progress(len(done), total)
     else:
-        size = max(16, math.ceil(total / (workers * 16)))  # small chunks: no worker idles long at the end
-        chunks = [points[k:k + size] for k in range(0, total, size)]
         # objects that exist before the fork are frozen, so no worker's collector walks (and copies) them
         gc.freeze()
         try:

@@ -7,8 +7,11 @@ up, finds them there; a regular install copies them under the environment's
 """
 from __future__ import annotations
 
+import datetime
+import os
 import re
 import sys
+from collections.abc import Mapping
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -70,31 +73,58 @@ def find_template(name: str, folder: Path | None = None) -> Template:
     raise DesignInputError("new", "--template", f"no template {name!r}", f"one of {names}")
 
 
-def new_design(path: Path, template: str, name: str | None = None, folder: Path | None = None) -> Path:
+#: the title-block fields a new design gets blank unless given: who owns, drew and approved it, and its number
+PERSONAL = ("owner", "creator", "approver", "identification")
+
+
+def new_design(path: Path, template: str, name: str | None = None, folder: Path | None = None, *,
+               date: str | None = None, people: Mapping[str, str] | None = None) -> Path:
     """Write a new design file at ``path`` from a template, refusing to overwrite anything.
 
-    ``name`` replaces the template's ``design.name`` (so output files do not clash).
-    The result is read back before it is written, so a bad name is reported, not saved.
+    ``name`` replaces the template's ``design.name`` (so output files do not clash). Nothing
+    personal of the demo company is copied: owner, creator, approver and identification are blank
+    unless ``people`` gives them, the date of issue is ``date`` (default today) and the revision
+    history starts afresh with one entry for the template's revision on that date.
+    The result is read back before it is written, so a bad value is reported, not saved.
     """
     from .design import NAME_PATTERN, loads
+    from .tomledit import add_revision, drop_revisions, set_key
 
     path = Path(path)
     text = find_template(template, folder).path.read_text(encoding="utf-8")
+    if name is not None and not NAME_PATTERN.match(name):
+        raise DesignInputError("new", "--name", f"{name[:40]!r} cannot name a file",
+                               "letters, digits, '.', '_' or '-', starting with a letter or digit")
+    date = date if date is not None else datetime.date.today().isoformat()
+    revision = loads(text, str(path)).revision
     if name is not None:
-        if not NAME_PATTERN.match(name):
-            raise DesignInputError("new", "--name", f"{name[:40]!r} cannot name a file",
-                                   "letters, digits, '.', '_' or '-', starting with a letter or digit")
-        text, n = re.subn(r'(?m)^(name\s*=\s*)"[^"\n]*"', lambda m: f'{m.group(1)}"{name}"', text, count=1)
-        if n != 1:
-            raise DesignInputError(str(path), "design.name", "the template has no name line to replace", "")
-    design = loads(text, str(path))
+        text = set_key(text, "design", "name", name)
+    for key in PERSONAL:
+        text = set_key(text, "design", key, (people or {}).get(key) or "")
+    text = set_key(text, "design", "date", date)
+    text = add_revision(drop_revisions(text), revision, date, "First issue")
+    design = loads(text, str(path))  # a bad --date, --owner … is reported here, naming its key
     if name is not None and design.name != name:
         raise DesignInputError(str(path), "design.name", "the template's first name line is not design.name", "")
+    _write_new(path, text)
+    return path
+
+
+def _write_new(path: Path, text: str) -> None:
+    """Write ``text`` to a file that must not exist yet; a failed write leaves no file behind."""
+    from .output import write_files
+
+    if path.exists() or path.is_symlink():
+        raise DesignInputError(str(path), "", "already exists; not overwritten", "a new file name")
     try:
-        with open(path, "x", encoding="utf-8", newline="\n") as handle:
-            handle.write(text)
+        fd = os.open(path, os.O_WRONLY | os.O_CREAT | os.O_EXCL, 0o666)  # claim the name: no race with another `new`
     except FileExistsError:
         raise DesignInputError(str(path), "", "already exists; not overwritten", "a new file name") from None
     except OSError as exc:
         raise DesignInputError(str(path), "", f"cannot be written ({exc.strerror})", "a writable path") from None
-    return path
+    os.close(fd)
+    try:
+        write_files({path: text.encode("utf-8")})  # staged and renamed over the claimed empty file
+    except BaseException:
+        os.unlink(path)  # a full disk must not leave an empty file that blocks the retry
+        raise

@@ -6,7 +6,7 @@ import math
 from .builder import Resolved
 from .units import MM_PER_INCH
 
-__all__ = ["check_text", "failed_lines", "fit_text"]
+__all__ = ["check_text", "mass_lines", "failed_lines", "fit_text"]
 
 
 def _fmt(key: str, value: object) -> str:
@@ -22,6 +22,20 @@ def failed_lines(resolved: Resolved) -> list[str]:
     return [f"FAILED {c.feature}.{c.parameter}: {c.name}: {c.message}" for c in resolved.failed]
 
 
+def mass_lines(resolved: Resolved) -> list[str]:
+    """The predicted mass and spin inertia, or why they cannot be worked out."""
+    if not resolved.can_analyse:
+        return ["mass: not worked out (the half does not close into a valid profile; see the failed checks)", ""]
+    from .analysis import mass_and_spin
+
+    m = mass_and_spin(resolved)
+    target = resolved.design["envelope"]["target_mass"]
+    aim = f" (target {target:.1f} g, {m.assembly.total_g - target:+.1f} g)" if target else ""
+    return [f"mass: assembled {m.assembly.total_g:.2f} g{aim}, one half {m.half.mass_g:.2f} g; "
+            f"Izz {m.assembly.izz_g_mm2:.0f} g·mm², Ixx {m.assembly.ixx_g_mm2:.0f} g·mm²; "
+            f"rim share {m.spin.rim_share:.1%}", ""]
+
+
 def check_text(resolved: Resolved) -> str:
     """Resolved dimensions, the bearing-seat fit and every check, for a terminal."""
     d, v = resolved.design, resolved.values
@@ -29,7 +43,7 @@ def check_text(resolved: Resolved) -> str:
              f"bearing {v['bearing.designation']} {v['bearing.bore']:.3f} × {v['bearing.od']:.3f} × "
              f"{v['bearing.width']:.4f} mm, {v['bearing.precision']}; material {v['material.name']} "
              f"({v['material.density_g_cm3']:.2f} g/cm³)", ""]
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     masked = d["shop"]["mask_seat"] or d["shop"]["coating"] == "none"
     lines.append("bearing seat fit (finished sizes" + ("; seat masked or uncoated)" if masked else ")"))
     for label, part in (("post", fit.post), ("wall bore", fit.wall)):
@@ -52,6 +66,7 @@ def check_text(resolved: Resolved) -> str:
                      f"assembled width {width.worst_min_mm:.3f} to {width.worst_max_mm:.3f} mm worst case, "
                      f"{width.rss_min_mm:.3f} to {width.rss_max_mm:.3f} mm RSS")
     lines.append("")
+    lines += mass_lines(resolved)
     lines.append("resolved dimensions (* derived)")
     for name, feature in resolved.features.items():
         lines.append(f"  {name}")

@@ -5,7 +5,7 @@ import json
 import re
 from typing import Any
 
-__all__ = ["set_key", "bump_revision", "add_revision"]
+__all__ = ["set_key", "bump_revision", "add_revision", "drop_revisions"]
 
 
 def _value(value: Any) -> str:
@@ -73,3 +73,21 @@ def add_revision(text: str, letter: str, date: str, note: str) -> str:
     """``text`` with a ``[[revisions]]`` line appended to the history."""
     return text.rstrip("\n") + (f"\n\n[[revisions]]\nletter = {_value(letter)}\ndate = {_value(date)}\n"
                                 f"note = {_value(note)}\n")
+
+
+def drop_revisions(text: str) -> str:
+    r"""``text`` without its ``[[revisions]]`` history (each table up to the next table header).
+
+    >>> drop_revisions('[design]\nname = "a"\n\n[[revisions]]\nletter = "A"\n\n[envelope]\n')
+    '[design]\nname = "a"\n\n[envelope]\n'
+    """
+    out: list[str] = []
+    skipping = False
+    for line in text.splitlines():
+        stripped = line.strip()
+        if stripped.startswith("["):
+            skipping = re.match(r"^\[\[\s*revisions\s*\]\]", stripped) is not None
+        if not skipping:
+            out.append(line)
+    cleaned = "\n".join(out) + "\n"
+    return re.sub(r"\n{3,}", "\n\n", cleaned)

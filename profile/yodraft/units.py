@@ -19,7 +19,7 @@ from pathlib import Path
 
 import pint
 
-__all__ = ["registry", "parse_quantity", "KINDS", "MM_PER_INCH", "UnitError"]
+__all__ = ["registry", "parse_quantity", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH", "UnitError"]
 
 MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
 
@@ -34,6 +34,44 @@ KINDS: dict[str, tuple[str, str]] = {
     "inertia": ("gram * millimeter ** 2", 'a moment of inertia with a unit, e.g. "30000 g*mm^2"'),
     "roughness": ("micrometer", 'a roughness with a unit, e.g. "0.8 um"'),
 }
+
+#: how a value of each kind is shown to the user and written back into a design file:
+#: (divisor from the base unit, unit text, suffix of a column or JSON key holding it)
+DISPLAY_UNITS: dict[str, tuple[float, str, str]] = {
+    "length": (1.0, "mm", "_mm"), "angle": (math.pi / 180, "deg", "_deg"), "mass": (1.0, "g", "_g"),
+    "torque": (1.0, "N*mm", "_n_mm"), "density": (1.0, "g/cm^3", "_g_cm3"), "speed": (1.0, "rpm", "_rpm"),
+    "inertia": (1.0, "g*mm^2", "_g_mm2"), "roughness": (1.0, "um", "_um"), "number": (1.0, "", "")}
+
+#: the unit a summary or column key holds, read from its suffix; longest suffix first ("_g_mm2" before "_g")
+SUFFIX_UNITS = (("_kg_m2_per_s", "kg·m²/s"), ("_m_s2", "m/s²"), ("_mm_s", "mm/s"), ("_g_mm2", "g·mm²"),
+                ("_g_mm", "g·mm"), ("_g_cm3", "g/cm³"), ("_n_mm", "N·mm"), ("_rad_s", "rad/s"), ("_mm2", "mm²"),
+                ("_mm3", "mm³"), ("_mm", "mm"), ("_um", "µm"), ("_deg", "°"), ("_rpm", "rpm"), ("_g", "g"),
+                ("_j", "J"), ("_mj", "mJ"), ("_s", "s"), ("_pct", "%"), ("_mpa", "MPa"), ("_gpa", "GPa"),
+                ("_k", "K"), ("_n", "N"))
+
+
+def written(value: float, kind: str) -> str | float:
+    """A value in base units as a design file writes it: ``"5.5 mm"``, ``"20 deg"``, or a plain number.
+
+    >>> written(5.5, "length"), written(math.radians(20), "angle"), written(0.8, "number")
+    ('5.5 mm', '20 deg', 0.8)
+    """
+    div, unit, _ = DISPLAY_UNITS[kind]
+    return round(value, 12) if kind == "number" else f"{value / div:.12g} {unit}"
+
+
+def unit_of(key: str) -> str:
+    """The unit a summary key holds, from its suffix ('' for a plain number).
+
+    >>> unit_of("mass.izz_g_mm2"), unit_of("bearing.od_deviation_um[1]"), unit_of("spin.rim_share")
+    ('g·mm²', 'µm', '')
+    """
+    base = key.split("[", 1)[0]
+    for suffix, unit in SUFFIX_UNITS:
+        if base.endswith(suffix):
+            return unit
+    return ""
+
 
 # "nan" and "inf" are read as numbers only so that the message can say they are not finite
 _NUMBER = r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?|[+-]?(?i:nan|inf(?:inity)?)"

@@ -54,7 +54,7 @@ MATERIALS: dict[str, Material] = {
                  97.0, 0.31, 20.5e-6, 310.0, "Copper Development Association, C36000 half-hard rod (from memory)"),
         Material("W90", "tungsten alloy", 17.0, 1.0, "ASTM B777 Class 1 tungsten heavy alloy, 16.85–17.25 g/cm³ (from memory)",
                  310.0, 0.28, 4.6e-6, 517.0, "ASTM B777 Class 1: minimum yield 75 ksi; modulus and expansion from makers' datasheets (from memory)"),
-        Material("POM", "polymer", 1.41, 2.0, "typical acetal homopolymer datasheet (from memory)",
+        Material("POM", "polymer", 1.41, 2.0, "acetal copolymer 1.41 g/cm3, homopolymer 1.42 g/cm3 (from memory)",
                  3.1, 0.35, 110e-6, 70.0, "typical acetal homopolymer datasheet, tensile yield at 23 °C (from memory)"),
         Material("PC", "polymer", 1.20, 2.0, "typical polycarbonate datasheet (from memory)",
                  2.35, 0.37, 68e-6, 62.0, "typical polycarbonate datasheet, tensile yield at 23 °C (from memory)"),

@@ -97,7 +97,7 @@ def _dimension(block, resolved: Resolved, scale: float) -> None:  # type: ignore
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     inch = bool(v["bearing.inch"])
     an = Annotator(block, scale)
     k = an.k

@@ -30,7 +30,7 @@ def _mm_in(value_mm: float, digits_mm: int = 5, digits_in: int = 5) -> str:
 
 def fit_lines(resolved: Resolved) -> list[str]:
     """Each seat fit: limits in mm and inch, worst-case and statistical clearance."""
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     v = resolved.values
     out = []
     for label, f, race in (("Post", fit.post, "bearing bore"), ("Wall bore", fit.wall, "bearing OD")):
@@ -50,7 +50,7 @@ def fit_lines(resolved: Resolved) -> list[str]:
 def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     """Coating, edge breaks, seat finish, thread and runout basis."""
     shop = resolved.design["shop"]
-    fit = resolved.features["bearing_seat"].extra["seat_fit"]
+    fit = resolved.seat_fit
     out = []
     if shop["coating"] == "none":
         out.append("Finish: none. Seat sizes are finished sizes.")

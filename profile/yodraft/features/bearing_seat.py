@@ -20,7 +20,7 @@ from typing import Any
 
 from ..checks import check
 from ..params import ParamSpec
-from ..tolerances.seat import SeatInputs, size_seat
+from ..tolerances.seat import SeatInputs, coating_growth_mm, size_seat
 from ..tolerances.stack import Link, stack
 from .base import Context, FeatureResult, V, pick
 
@@ -58,7 +58,7 @@ def coating_growth(shop: Mapping[str, Any]) -> float:
     """Diametral growth of a coated seat surface in mm (0 when uncoated or masked)."""
     if shop["coating"] == "none" or shop["mask_seat"]:
         return 0.0
-    return 2.0 * shop["coating_thickness"] * shop["coating_outward_share"]
+    return coating_growth_mm(shop["coating_thickness"], shop["coating_outward_share"])
 
 
 def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
