@@ -82,7 +82,9 @@ def catalog_markdown() -> str:
         out.append(f"| {t.name} | {t.major_mm:.4g} | {t.pitch_mm:.4g} | {t.tap_drill_mm:.4g} | {t.tolerance_class} | "
                    f"{_cell(t.source)} |")
     out += ["", "Materials (`design.material`)", "",
-            "| material | density (g/cm³) | source |", "| --- | --- | --- |"]
+            "| material | family | density (g/cm³) | E (GPa) | ν | α (1/K) | yield (MPa) | source |",
+            "| --- | --- | --- | --- | --- | --- | --- | --- |"]
     for m in MATERIALS.values():
-        out.append(f"| {m.name} | {m.density_g_cm3:g} | {_cell(m.source)} |")
+        out.append(f"| {m.name} | {m.family} | {m.density_g_cm3:g} | {m.e_gpa:g} | {m.poisson:g} | {m.alpha_per_k:.3g} | "
+                   f"{m.yield_mpa:g} | {_cell(m.source)}; {_cell(m.properties_source)} |")
     return "\n".join(out) + "\n"
