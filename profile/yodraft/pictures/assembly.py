@@ -16,6 +16,7 @@ from dataclasses import dataclass
 from ..analysis import MassAndSpin, mass_and_spin, small_parts
 from ..builder import Resolved
 from ..geometry import Arc, Line, Segment
+from ..parts import BODY
 from .silhouette import creases, outline_runs
 from .svg import Page, View, circle, hatch_pattern, line, num, path, rect, segments_d
 
@@ -73,20 +74,22 @@ def _mirror_z(seg: Segment) -> Segment:
 
 
 def part_sections(resolved: Resolved) -> list[PartSection]:
-    """Every part of the assembly as sections, halves first, in drawing order."""
+    """Every part of the assembly as sections in drawing order: each half's parts (body, rings), then the pads."""
     v = resolved.values
     assert resolved.profile is not None
-    half = tuple(resolved.profile.segments)
-    other = tuple(_mirror_z(s) for s in reversed(half))
-    body = v["material.name"]
-    out = [PartSection("half", body, (half,), material_colour(body)),
-           PartSection("half", body, (other,), material_colour(body))]
+    half_parts = [(p.name, p.material, tuple(p.profile.segments)) for p in resolved.parts] or \
+        [(BODY, v["material.name"], tuple(resolved.profile.segments))]
+    out = []
+    for name, material, loop in half_parts:
+        other = tuple(_mirror_z(s) for s in reversed(loop))
+        kind = "half" if name == BODY else name
+        out.append(PartSection(kind, material, (loop, other), material_colour(material)))
     parts, axle_length = small_parts(resolved)
     depth = v["pad_groove.depth"]
     for part in parts:
         if part.name == "response pad":
             loop = _box(part.z_mm - depth / 2, part.z_mm + depth / 2, part.r_in_mm, part.r_out_mm)
-            out.append(PartSection(part.name, "silicone", (loop,), SILICONE))
+            out.append(PartSection(part.name, "silicone", (loop,), SILICONE, hatched=False))
     return out
 
 
@@ -160,8 +163,9 @@ def _section(page: Page, resolved: Resolved, sections: list[PartSection], axle_l
     quads = [view.flipped(kr=k) for k in (1, -1)]
     for part in sections:
         _draw_loops(page, part.loops, quads, part.colour)
-        if part.hatched and part.name == "half":
-            _draw_loops(page, part.loops, quads, "url(#hatch-body)", outline=False)
+        if part.hatched:  # adjacent parts hatched at opposite angles (ISO 128-50)
+            hatch = "url(#hatch-body)" if part.name == "half" else "url(#hatch-part)"
+            _draw_loops(page, part.loops, quads, hatch, outline=False)
     _bearing(page, resolved, view)
     _axle(page, resolved, axle_length, view)
 
@@ -170,7 +174,7 @@ def _elevation(page: Page, resolved: Resolved, sections: list[PartSection], view
     """The side elevation: at each station the outermost part hides the rest (the bearing shows in the gap)."""
     v = resolved.values
     w, r_out = v["bearing.width"], v["bearing.od"] / 2
-    pieces = [(p.loops[0], p.colour) for p in sections if p.name == "half"]
+    pieces = [(loop, p.colour) for p in sections if p.hatched for loop in p.loops]
     pieces.append((_box(-w / 2, w / 2, 0.0, r_out), STEEL))
     r_top = max(v["profile.outer_diameter"] / 2, r_out)
     shades: dict[str, str] = {}
@@ -191,12 +195,12 @@ def _elevation(page: Page, resolved: Resolved, sections: list[PartSection], view
             page.add(line(a[0], a[1], b[0], b[1], stroke=OUTLINE, width=NARROW * 1.6))
 
 
-def _legend(page: Page, x: float, y: float, rows: list[tuple[str, str, bool]]) -> None:
-    for i, (label, colour, hatched) in enumerate(rows):
+def _legend(page: Page, x: float, y: float, rows: list[tuple[str, str, str | None]]) -> None:
+    for i, (label, colour, hatch) in enumerate(rows):
         yy = y + i * 6.5
         page.add(rect(x, yy - 3.6, 8, 4.6, fill=colour, stroke=OUTLINE, width=NARROW))
-        if hatched:
-            page.add(rect(x, yy - 3.6, 8, 4.6, fill="url(#hatch-body)"))
+        if hatch:
+            page.add(rect(x, yy - 3.6, 8, 4.6, fill=hatch))
         page.text(x + 10.5, yy, label, size=3.0)
 
 
@@ -209,16 +213,17 @@ def assembly_svg(resolved: Resolved, mass: MassAndSpin | None = None) -> bytes:
     s = drawing_scale(diameter, width)
     _, axle_length = small_parts(resolved)
     sections = part_sections(resolved)
-    margin, head, label = 14.0, 24.0, 9.0
+    margin, head, label_h = 14.0, 24.0, 9.0
     vw, vh = width * s, diameter * s
     left_cx = margin + 6 + vw / 2
     right_cx = left_cx + vw + 30
     legend_x = right_cx + vw / 2 + 16
     page_w = legend_x + 72
-    axis_y = head + label + vh / 2
+    axis_y = head + label_h + vh / 2
     page_h = axis_y + vh / 2 + 34
     page = Page(page_w, page_h, title=f"{d.name} rev {d.revision}: assembly")
     page.defs.append(hatch_pattern("hatch-body", 1.6, 45, OUTLINE, NARROW * 0.9))
+    page.defs.append(hatch_pattern("hatch-part", 1.2, -45, OUTLINE, NARROW * 0.9))
     page.defs.append(hatch_pattern("hatch-steel", 0.8, -45, OUTLINE, NARROW * 0.8))
     title = f"{d.name} rev {d.revision}" + (f" — {d['design']['title']}" if d["design"]["title"] else "")
     page.text(margin, 13, title, size=4.2, weight="bold")
@@ -233,10 +238,16 @@ def assembly_svg(resolved: Resolved, mass: MassAndSpin | None = None) -> bytes:
     for view in (sec_view, elev_view):
         _centre_lines(page, view, width / 2, diameter / 2)
     body = v["material.name"]
-    rows = [(f"half body, {body}", material_colour(body), True), (f"bearing {v['bearing.designation']}, steel", STEEL, False),
-            (f"axle {v['axle_bore.thread']}, steel", STEEL, False)]
-    rows += [(f"{p.name}, {p.material}", p.colour, False) for p in sections if p.name != "half"][:1]
-    _legend(page, legend_x, head + label + 4, rows)
+    rows: list[tuple[str, str, str | None]] = [
+        (f"half body, {body}", material_colour(body), "url(#hatch-body)"),
+        (f"bearing {v['bearing.designation']}, steel", STEEL, None), (f"axle {v['axle_bore.thread']}, steel", STEEL, None)]
+    seen = {r[0] for r in rows}
+    for p in sections[1:]:
+        label = f"{p.name}, {p.material}"
+        if p.name != "half" and label not in seen:
+            rows.append((label, p.colour, "url(#hatch-part)" if p.hatched else None))
+            seen.add(label)
+    _legend(page, legend_x, head + label_h + 4, rows)
     cy = axis_y + vh / 2 + 14
     page.text(margin, cy, f"overall Ø{diameter:.2f} mm × {width:.2f} mm wide · gap {gap:.2f} mm", size=3.6)
     page.text(margin, cy + 6, f"mass {m.assembly.total_g:.2f} g · Izz {m.assembly.izz_g_mm2:,.0f} g·mm² "
