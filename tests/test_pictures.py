@@ -173,3 +173,48 @@ def test_a_pressed_in_ring_is_drawn_in_its_material_colour() -> None:
     filled = [p for p in root.iter(f"{SVG}path") if p.get("fill") == brass]
     # both halves' rings, each drawn above and below the axis: four rectangles of four lines
     assert filled and filled[0].get("d").count("M ") == 4
+
+
+# ---------------------------------------------------------------- overlay
+def _revised(tmp_path: Path) -> tuple[Path, Path]:
+    """The template (A) and a revision B with a wider rim and a deeper cup."""
+    from conftest import set_in
+
+    a = tmp_path / "a.toml"
+    a.write_text((TEMPLATES / "string-trick.toml").read_text(encoding="utf-8"), encoding="utf-8")
+    text = set_in(a.read_text(encoding="utf-8"), "design", "revision", "B")
+    text = set_in(text, "features.rim", "width", "9 mm")
+    b = tmp_path / "b.toml"
+    b.write_text(set_in(text, "features.rim", "cup_depth", "9 mm"), encoding="utf-8")
+    return a, b
+
+
+def test_diff_plot_overlays_both_profiles(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    a, b = _revised(tmp_path)
+    plot = tmp_path / "o.svg"
+    assert main(["diff", str(a), str(b), "--plot", str(plot)]) == 0
+    assert str(plot) in capsys.readouterr().err
+    root = parse(plot.read_bytes())
+    text = _texts(root)
+    assert "larchmere-ls56 rev A" in text and "larchmere-ls56 rev B" in text and "a.toml" in text
+    # the two outlines differ in width and in dash, not only in colour (legible in grey print)
+    outlines = [p for p in root.iter(f"{SVG}path") if p.get("stroke") and p.get("fill") == "none"]
+    styles = {(p.get("stroke-width"), p.get("stroke-dasharray")) for p in outlines}
+    assert len(styles) == 2 and len({w for w, _ in styles}) == 2 and {d is None for _, d in styles} == {True, False}
+    # the changed feature is called out with what changed, as written in the files
+    assert "rim:" in text and "width 8 mm → 9 mm" in text
+    ma = analyse(build(load(a))).assembly.total_g
+    mb = analyse(build(load(b))).assembly.total_g
+    assert f"{ma:.2f}" in text and f"{mb:.2f}" in text and f"{abs(mb - ma):.2f}" in text
+    again = tmp_path / "o2.svg"
+    assert main(["diff", str(a), str(b), "--plot", str(again)]) == 0
+    assert again.read_bytes() == plot.read_bytes()
+    rasterise(plot, tmp_path)
+
+
+def test_diff_plot_never_writes_over_an_input(tmp_path: Path) -> None:
+    a, b = _revised(tmp_path)
+    before = b.read_bytes()
+    assert main(["diff", str(a), str(b), "--plot", str(b)]) == 2
+    assert main(["diff", str(a), str(b), "--plot", str(tmp_path / "." / "a.toml")]) == 2
+    assert b.read_bytes() == before

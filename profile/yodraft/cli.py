@@ -86,6 +86,7 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("a", help="old design file")
     p.add_argument("b", help="new design file")
     p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.add_argument("--plot", metavar="FILE.svg", help="also write the two half-profiles overlaid, as SVG")
     p.set_defaults(run=_diff)
     p = sub.add_parser("sweep", help="resolve and check a grid of variants over one or two parameters")
     p.add_argument("design", help="design file (.toml)")
@@ -160,9 +161,35 @@ def _diff(args: argparse.Namespace) -> int:
     from .design import load
     from .diff import diff, diff_text
 
-    result = diff(build(load(args.a)), build(load(args.b)))
+    if args.plot is not None:
+        _check_picture_target(args.plot, [args.a, args.b])
+    a, b = build(load(args.a)), build(load(args.b))
+    result = diff(a, b)
+    if args.plot is not None:
+        from .output import write_atomic
+        from .pictures.overlay import overlay_svg
+
+        for source, resolved in ((args.a, a), (args.b, b)):
+            if resolved.profile is None:
+                raise DesignInputError(source, "", "has no closed half-profile to draw",
+                                       "designs whose loops close (see 'yodraft check')")
+        write_atomic(Path(args.plot), overlay_svg(a, b, result))
     print(json.dumps(result.as_dict(), indent=2, ensure_ascii=False) if args.json else diff_text(result))
+    if args.plot is not None:
+        print(args.plot, file=sys.stderr)
     return 0
+
+
+def _check_picture_target(target: str, inputs: Sequence[str]) -> None:
+    """A picture goes to a new or replaceable file in an existing folder, never over an input."""
+    path = Path(target)
+    if path.is_dir():
+        raise DesignInputError(target, "", "is a folder", "a file name for the picture")
+    if not path.parent.is_dir():
+        raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+    for source in inputs:
+        if Path(source).exists() and path.resolve() == Path(source).resolve():
+            raise DesignInputError(target, "", "is one of the input files", "another file name for the picture")
 
 
 def _progress(done: int, total: int) -> None:
