@@ -4,6 +4,7 @@ from __future__ import annotations
 import argparse
 import json
 import os
+import re
 import sys
 from collections.abc import Sequence
 from pathlib import Path
@@ -96,6 +97,7 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("--plot", help="write an SVG plot of the outputs here")
     p.add_argument("--jobs", type=int, help="worker processes (default: one per core)")
     p.set_defaults(run=_sweep)
+    _add_lot(sub)
     p = sub.add_parser("watch", help="rebuild the drawing each time the design file is saved")
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("-o", "--output", "--out", dest="out", default="out", help="output folder (default: out)")
@@ -107,6 +109,100 @@ def _add_revising(sub: Any) -> None:
     level.add_argument("-q", "--quiet", action="store_true", help="print only what was built or why not")
     level.add_argument("-v", "--verbose", action="store_true", help="print every changed value after each save")
     p.set_defaults(run=_watch)
+
+
+def _add_lot(sub: Any) -> None:
+    """The production-lot command: a lot of halves drawn within their tolerances."""
+    p = sub.add_parser("lot", help="a production lot drawn within the tolerances: fits, gap, mass pairing, balance")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--units", default="1000", help="halves in the lot (default: 1000)")
+    p.add_argument("--seed", default="1", help="seed of the random draws (default: 1); the same seed gives the same lot")
+    p.add_argument("--pair-window", default="0.1 g", help="largest mass difference of a matched pair (default: 0.1 g)")
+    p.add_argument("--mass-window", default="1 g", help="± on the target mass of an assembled yo-yo (default: 1 g)")
+    p.add_argument("--distribution", choices=("normal", "uniform"), default="normal",
+                   help="spread within each band: normal with the band as ±3σ (default) or uniform")
+    p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.add_argument("-o", "--output", "--csv", dest="csv", help="write every half of the lot to this CSV file")
+    p.add_argument("--plot", help="write an SVG plot of the distributions with their limits here")
+    p.set_defaults(run=_lot)
+
+
+def _whole_number(text: str, option: str, low: int, high: int) -> int:
+    if not re.fullmatch(r"\s*\d+\s*", text):
+        raise DesignInputError(option, "", f"got {text[:40]!r}", f"a whole number from {low} to {high}")
+    value = int(text)
+    if not low <= value <= high:
+        raise DesignInputError(option, "", f"{value} is out of range", f"a whole number from {low} to {high}")
+    return value
+
+
+def _mass_option(text: str, option: str) -> float:
+    from .units import UnitError, parse_quantity
+
+    try:
+        value = parse_quantity(text, "mass")
+    except UnitError as exc:
+        raise DesignInputError(option, "", str(exc), 'a mass with a unit above 0 g, e.g. "0.1 g"') from None
+    if not value > 0:
+        raise DesignInputError(option, "", f"{text[:40]!r} is not above 0 g", 'a mass with a unit above 0 g, e.g. "0.1 g"')
+    return value
+
+
+def _output_targets(design: str, targets: Sequence[str | None]) -> None:
+    """Refuse an output file that is the design file itself, or one in a folder that does not exist."""
+    source = Path(design).resolve()
+    for target in targets:
+        if target is None:
+            continue
+        if Path(target).resolve() == source:
+            raise DesignInputError(target, "", "is the design file", "a different file for the output")
+        if not Path(target).parent.is_dir():
+            raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+
+
+def _lot(args: argparse.Namespace) -> int:
+    from .builder import build
+    from .design import load
+    from .lot import MAX_UNITS, lot_csv, lot_summary, lot_svg, lot_text, run_lot
+
+    units = _whole_number(args.units, "--units", 2, MAX_UNITS)
+    seed = _whole_number(args.seed, "--seed", 0, 2**63 - 1)
+    pair_window = _mass_option(args.pair_window, "--pair-window")
+    mass_window = _mass_option(args.mass_window, "--mass-window")
+    _output_targets(args.design, (args.csv, args.plot))
+    if args.csv and args.plot and Path(args.csv).resolve() == Path(args.plot).resolve():
+        raise DesignInputError(args.plot, "", "is also the --csv file", "two different files for --csv and --plot")
+    design = load(args.design)
+    resolved = build(design)
+    if not resolved.can_analyse:
+        from .textout import failed_lines
+
+        print("\n".join(failed_lines(resolved)))
+        raise CheckFailure(str(args.design), resolved.failed)
+    try:
+        result = run_lot(design, units=units, seed=seed, distribution=args.distribution, pair_window_g=pair_window,
+                         mass_window_g=mass_window, resolved=resolved)
+    except ValueError as exc:  # a tolerance band that breaks the profile: a design matter, not bad input
+        if isinstance(exc, DesignInputError):
+            raise
+        print(f"yodraft: {args.design}: {exc}", file=sys.stderr)
+        return 1
+    data = lot_summary(result)
+    files = {}
+    if args.csv:
+        files[Path(args.csv)] = lot_csv(result).encode("utf-8")
+    if args.plot:
+        files[Path(args.plot)] = lot_svg(result, data).encode("utf-8")
+    if files:
+        from .output import write_files
+
+        write_files(files)
+    print(json.dumps(data, indent=2, ensure_ascii=False) if args.json else lot_text(data), end="" if not args.json else "\n")
+    for path in files:
+        print(path, file=sys.stderr)
+    if not resolved.ok:
+        raise CheckFailure(str(args.design), resolved.failed)
+    return 0
 
 
 def _write_or_print(text: str, target: str | None) -> None:
