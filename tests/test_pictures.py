@@ -218,3 +218,82 @@ def test_diff_plot_never_writes_over_an_input(tmp_path: Path) -> None:
     assert main(["diff", str(a), str(b), "--plot", str(b)]) == 2
     assert main(["diff", str(a), str(b), "--plot", str(tmp_path / "." / "a.toml")]) == 2
     assert b.read_bytes() == before
+
+
+# ---------------------------------------------------------------- sweep plots
+def _targeted(tmp_path: Path) -> Path:
+    from conftest import set_in
+
+    design = tmp_path / "t.toml"
+    text = set_in((TEMPLATES / "string-trick.toml").read_text(encoding="utf-8"), "envelope", "target_izz",
+                  "30000 g*mm^2")
+    design.write_text(text, encoding="utf-8")
+    return design
+
+
+def test_one_key_sweep_plot_marks_where_the_target_is_met(tmp_path: Path) -> None:
+    import csv
+    import io
+
+    import numpy as np
+
+    plot, table = tmp_path / "s.svg", tmp_path / "s.csv"
+    design = _targeted(tmp_path)
+    assert main(["sweep", str(design), "--vary", "rim.thickness=3mm:4mm:6", "-o", str(table), "--plot", str(plot),
+                 "--y", "mass,gap,izz"]) == 0
+    root = parse(plot.read_bytes())
+    text = _texts(root)
+    assert "assembled mass, g" in text and "Izz, assembled, g·mm²" in text and "features.rim.thickness, mm" in text
+    # the gap does not move with the rim: left out, with its value
+    assert "left out: profile.gap_mm = 4.3625 mm in every variant" in text
+    assert len(list(root.iter(f"{SVG}polyline"))) == 2
+    rows = list(csv.DictReader(io.StringIO(table.read_text(encoding="utf-8"))))
+    x = [float(r["features.rim.thickness_mm"]) for r in rows]
+    for key, target in (("mass.total_g", 66.0), ("mass.izz_g_mm2", 30000.0)):
+        y = [float(r[key]) for r in rows]
+        crossing = float(np.interp(target, y, x))  # numpy's linear interpolation, the curve rising through the target
+        assert f"at {round(crossing, 4):.6g} mm" in text
+    dashed = [ln for ln in root.iter(f"{SVG}line") if ln.get("stroke") == "#b03a2e" and ln.get("stroke-dasharray")]
+    assert len([ln for ln in dashed if ln.get("stroke-width") == "0.45"]) == 2  # one target line per panel
+    rasterise(plot, tmp_path)
+
+
+def test_two_key_sweep_plot_is_a_heat_map_with_the_target_contour(tmp_path: Path) -> None:
+    plot = tmp_path / "s.svg"
+    assert main(["sweep", str(TEMPLATES / "string-trick.toml"), "--vary", "rim.thickness=3mm:4mm:5",
+                 "--vary", "rim.width=7mm:9mm:4", "-o", str(tmp_path / "s.csv"), "--plot", str(plot)]) == 0
+    root = parse(plot.read_bytes())
+    cells = [r for r in root.iter(f"{SVG}rect") if (r.get("fill") or "").startswith("#") and r.get("stroke") is None
+             and r.get("fill") != "#fff"]
+    assert len(cells) == 2 * 5 * 4  # one cell per variant in each of the two panels
+    wide = [p for p in root.iter(f"{SVG}path") if p.get("stroke") == "#000" and p.get("stroke-width") == "0.8"]
+    assert len(wide) == 1  # the template aims at 66 g and no Izz: one target contour
+    assert "target 66 g" in _texts(root)
+    again = tmp_path / "again.svg"
+    assert main(["sweep", str(TEMPLATES / "string-trick.toml"), "--vary", "rim.thickness=3mm:4mm:5",
+                 "--vary", "rim.width=7mm:9mm:4", "-o", str(tmp_path / "s.csv"), "--plot", str(again)]) == 0
+    assert again.read_bytes() == plot.read_bytes()
+    rasterise(plot, tmp_path)
+
+
+def test_contours_of_a_plane_are_straight() -> None:
+    """Marching squares reproduces a linear field exactly: the level c of f = x + 2y is the line x + 2y = c."""
+    from yodraft.pictures.sweep_plot import _contour_d
+
+    xs, ys = [0.0, 1.0, 2.0, 3.0], [0.0, 0.5, 1.0]
+    grid = [[x + 2 * y for y in ys] for x in xs]
+    d = _contour_d(grid, xs, ys, 2.3, lambda x: x, lambda y: y)
+    points = [(float(a), float(b)) for a, b in re.findall(r"(-?[\d.]+) (-?[\d.]+)", d)]
+    assert len(points) >= 4
+    for x, y in points:
+        assert x + 2 * y == pytest.approx(2.3, abs=2e-3)
+
+
+def test_y_names_and_columns() -> None:
+    from yodraft.errors import DesignInputError
+    from yodraft.pictures.sweep_plot import parse_y
+
+    assert parse_y("mass,izz,rim_share") == ["mass.total_g", "mass.izz_g_mm2", "spin.rim_share"]
+    assert parse_y("spin.rim_share, mass") == ["spin.rim_share", "mass.total_g"]
+    with pytest.raises(DesignInputError):
+        parse_y("mass,,izz")

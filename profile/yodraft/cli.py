@@ -94,7 +94,9 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("--vary", action="append", required=True, metavar="KEY=START:STOP:COUNT",
                    help="e.g. features.rim.width=6mm:3mm:4; give once or twice")
     p.add_argument("-o", "--output", "--csv", dest="csv", help="write the CSV here (default: print it)")
-    p.add_argument("--plot", help="write an SVG plot of the outputs here")
+    p.add_argument("--plot", metavar="FILE.svg", help="write an SVG plot of the chosen outputs here")
+    p.add_argument("--y", metavar="KEY[,KEY...]",
+                   help="outputs to plot: mass, izz, gap, rim_share, ... or CSV columns (default: mass,izz)")
     p.add_argument("--jobs", type=int, help="worker processes (default: one per core)")
     p.set_defaults(run=_sweep)
     _add_lot(sub)
@@ -296,7 +298,8 @@ def _progress(done: int, total: int) -> None:
 
 def _sweep(args: argparse.Namespace) -> int:
     from .design import load
-    from .sweep import csv_text, parse_vary, svg_plot, sweep
+    from .pictures.sweep_plot import design_targets, parse_y, sweep_svg
+    from .sweep import csv_text, parse_vary, sweep
 
     design = load(args.design)
     axes = [parse_vary(text, design) for text in args.vary]
@@ -304,13 +307,21 @@ def _sweep(args: argparse.Namespace) -> int:
         raise DesignInputError("--vary", "", f"given {len(axes)} times", "one or two --vary options")
     if args.jobs is not None and args.jobs < 1:
         raise DesignInputError("--jobs", "", f"got {args.jobs}", "at least 1")
+    if args.y is not None and args.plot is None:
+        raise DesignInputError("--y", "", "chooses what --plot draws", "--plot FILE.svg with it")
+    y_keys = parse_y(args.y) if args.y is not None else None
     for target in (args.csv, args.plot):
         if target is not None and not Path(target).parent.is_dir():
             raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+    if args.plot is not None:
+        _check_picture_target(args.plot, [args.design] + ([args.csv] if args.csv else []))
     result = sweep(design, axes, workers=args.jobs, progress=_progress if sys.stderr.isatty() else None)
     _write_or_print(csv_text(result), args.csv)
     if args.plot:
-        _write_or_print(svg_plot(result), args.plot)
+        from .output import write_atomic
+
+        write_atomic(Path(args.plot), sweep_svg(result, y_keys, design_targets(design)))
+        print(args.plot, file=sys.stderr)
     print(f"{result.passed} of {len(result.variants)} variants pass every check", file=sys.stderr)
     return 0 if result.passed else 1
 

@@ -45,6 +45,8 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("diameter", "length", "largest outer diameter allowed", None, 10.0, 120.0),
         ParamSpec("width", "length", "largest assembled overall width allowed", None, 10.0, 120.0),
         ParamSpec("target_mass", "mass", "assembled mass the design aims at (for solve and the report)", None, 1.0, 1000.0),
+        ParamSpec("target_izz", "inertia", "assembled Izz the design aims at (drawn on sweep plots)", None, 1.0, 1e8),
+        ParamSpec("target_gap", "length", "gap the design aims at (drawn on sweep plots)", None, 0.1, 20.0),
     ),
     "bearing": (
         ParamSpec("size", "text", 'trade letter size ("C") or catalog designation ("MR105ZZ")', "C", max_length=20),

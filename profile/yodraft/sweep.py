@@ -33,7 +33,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
     from .design import Design
 
-__all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text", "svg_plot",
+__all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text",
            "OUTPUT_KEYS", "MAX_VARIANTS"]
 
 MAX_VARIANTS = 100_000
@@ -245,85 +245,3 @@ def csv_text(result: SweepResult) -> str:
         writer.writerow([v.index] + [_num(x) for x in v.inputs] + ["true" if v.ok else "false", "; ".join(v.failed)]
                         + [_num(v.outputs.get(k)) for k in keys])
     return out.getvalue()
-
-
-def _ticks(lo: float, hi: float, n: int = 5) -> list[float]:
-    if hi <= lo:
-        return [lo]
-    raw = (hi - lo) / n
-    mag = 10 ** math.floor(math.log10(raw))
-    step = next(m * mag for m in (1, 2, 2.5, 5, 10) if m * mag >= raw)
-    first = math.ceil(lo / step - 1e-9) * step
-    return [first + i * step for i in range(int((hi - first) / step + 1e-9) + 1)]
-
-
-_PALETTE = ("#1f5fa8", "#c8102e", "#2e8b57", "#8a5a00", "#6a3d9a", "#00838f", "#5d4037", "#ad1457")
-
-
-def svg_plot(result: SweepResult, keys: Sequence[str] | None = None) -> str:
-    """An SVG of each output against the first varied parameter; one line per value of the second.
-
-    Filled dots pass every check; hollow dots are variants with a failed check.
-    """
-    from xml.sax.saxutils import escape
-
-    keys = [k for k in (keys or result.output_keys) if any(v.outputs.get(k) is not None for v in result.variants)]
-    ax = result.axes[0]
-    w, ph, left, right, top, gap = 720, 200, 80, 30, 50, 60
-    height = top + max(1, len(keys)) * (ph + gap)
-    parts = [f'<svg xmlns="http://www.w3.org/2000/svg" width="{w}" height="{height}" viewBox="0 0 {w} {height}" '
-             'font-family="sans-serif" font-size="11">',
-             f'<rect width="{w}" height="{height}" fill="white"/>',
-             f'<text x="{left}" y="22" font-size="14">{escape(result.design_name)}: sweep of {escape(ax.column)} '
-             f'({result.passed} of {len(result.variants)} variants pass)</text>']
-    if len(result.axes) == 2:
-        parts.append(f'<text x="{left}" y="38">one line per {escape(result.axes[1].column)}; '
-                     'hollow dot: a check failed</text>')
-    else:
-        parts.append(f'<text x="{left}" y="38">hollow dot: a check failed</text>')
-    xs = [v.inputs[0] for v in result.variants]
-    x_lo, x_hi = min(xs), max(xs)
-    pw = w - left - right
-    groups: dict[float, list[Variant]] = {}
-    for v in result.variants:
-        groups.setdefault(v.inputs[1] if len(v.inputs) > 1 else 0.0, []).append(v)
-    for p, key in enumerate(keys):
-        y0 = top + p * (ph + gap) + 10
-        ys = [v.outputs[key] for v in result.variants if v.outputs.get(key) is not None]
-        y_lo, y_hi = min(ys), max(ys)
-        if y_hi - y_lo < 1e-12 * max(1.0, abs(y_hi)):
-            y_lo, y_hi = y_lo - 0.5 * max(abs(y_lo) * 0.01, 1e-6), y_hi + 0.5 * max(abs(y_hi) * 0.01, 1e-6)
-
-        def sx(x: float) -> float:
-            return left + (x - x_lo) / ((x_hi - x_lo) or 1.0) * pw
-
-        def sy(y: float) -> float:
-            return y0 + ph - (y - y_lo) / (y_hi - y_lo) * ph
-
-        parts.append(f'<rect x="{left}" y="{y0}" width="{pw}" height="{ph}" fill="none" stroke="#444"/>')
-        parts.append(f'<text x="{left}" y="{y0 - 4}" font-size="12">{escape(key)}</text>')
-        for t in _ticks(y_lo, y_hi):
-            parts.append(f'<line x1="{left - 4}" y1="{sy(t):.2f}" x2="{left + pw}" y2="{sy(t):.2f}" stroke="#ddd"/>')
-            parts.append(f'<text x="{left - 6}" y="{sy(t) + 4:.2f}" text-anchor="end">{t:.6g}</text>')
-        for t in _ticks(x_lo, x_hi):
-            parts.append(f'<line x1="{sx(t):.2f}" y1="{y0}" x2="{sx(t):.2f}" y2="{y0 + ph + 4}" stroke="#ddd"/>')
-            parts.append(f'<text x="{sx(t):.2f}" y="{y0 + ph + 16}" text-anchor="middle">{t:.6g}</text>')
-        parts.append(f'<text x="{left + pw}" y="{y0 + ph + 30}" text-anchor="end">{escape(ax.column)}</text>')
-        for g, (label, members) in enumerate(groups.items()):
-            colour = _PALETTE[g % len(_PALETTE)]
-            pts = [(sx(v.inputs[0]), sy(v.outputs[key]), v.ok) for v in members if v.outputs.get(key) is not None]
-            if len(pts) > 1:
-                path = " ".join(f"{x:.2f},{y:.2f}" for x, y, _ in pts)
-                parts.append(f'<polyline points="{path}" fill="none" stroke="{colour}" stroke-width="1.5"/>')
-            if len(pts) <= 200:
-                for x, y, ok in pts:
-                    fill = colour if ok else "white"
-                    parts.append(f'<circle cx="{x:.2f}" cy="{y:.2f}" r="3" fill="{fill}" stroke="{colour}"/>')
-            if len(result.axes) == 2 and p == 0 and g < 12:
-                lx = left + pw - 150
-                ly = y0 + 14 + 14 * g
-                parts.append(f'<line x1="{lx}" y1="{ly - 4}" x2="{lx + 18}" y2="{ly - 4}" stroke="{colour}" '
-                             'stroke-width="2"/>')
-                parts.append(f'<text x="{lx + 22}" y="{ly}">{label:.6g} {escape(result.axes[1].unit)}</text>')
-    parts.append("</svg>")
-    return "\n".join(parts) + "\n"

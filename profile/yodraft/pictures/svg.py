@@ -178,9 +178,10 @@ class Page:
         self.body.append(element)
 
     def text(self, x: float, y: float, text: str, size: float = 3.0, anchor: str = "start", weight: str = "normal",
-             fill: str = "#000", style: str = "") -> None:
-        """A line of text with its baseline at ``y``; ``anchor`` start, middle or end."""
+             fill: str = "#000", style: str = "", rotate: float = 0.0) -> None:
+        """A line of text with its baseline at ``y``; ``anchor`` start, middle or end; ``rotate`` degrees about (x, y)."""
         attrs = f' font-weight="{weight}"' if weight != "normal" else ""
+        attrs += f' transform="rotate({num(rotate)} {num(x)} {num(y)})"' if rotate else ""
         attrs += f' font-style="{style}"' if style else ""
         attrs += f' text-anchor="{anchor}"' if anchor != "start" else ""
         attrs += f' fill="{fill}"' if fill != "#000" else ""
