@@ -100,6 +100,11 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("--jobs", type=int, help="worker processes (default: one per core)")
     p.set_defaults(run=_sweep)
     _add_lot(sub)
+    p = sub.add_parser("bom", help="bill of materials and stock for N yo-yos, with the scrap a lot expects")
+    p.add_argument("design", help="design file (.toml)")
+    p.add_argument("--units", default="100", help="good yo-yos to make (default: 100)")
+    p.add_argument("--json", action="store_true", help="print one JSON object")
+    p.set_defaults(run=_bom)
     p = sub.add_parser("watch", help="rebuild the drawing each time the design file is saved")
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("-o", "--output", "--out", dest="out", default="out", help="output folder (default: out)")
@@ -202,6 +207,25 @@ def _lot(args: argparse.Namespace) -> int:
     print(json.dumps(data, indent=2, ensure_ascii=False) if args.json else lot_text(data), end="" if not args.json else "\n")
     for path in files:
         print(path, file=sys.stderr)
+    if not resolved.ok:
+        raise CheckFailure(str(args.design), resolved.failed)
+    return 0
+
+
+def _bom(args: argparse.Namespace) -> int:
+    from .bom import bill_of_materials, bom_data, bom_text
+    from .builder import build
+    from .design import load
+
+    units = _whole_number(args.units, "--units", 1, 1_000_000)
+    resolved = build(load(args.design))
+    if not resolved.can_analyse:
+        from .textout import failed_lines
+
+        print("\n".join(failed_lines(resolved)))
+        raise CheckFailure(str(args.design), resolved.failed)
+    data = bom_data(bill_of_materials(resolved, units))
+    print(json.dumps(data, indent=2, ensure_ascii=False) if args.json else bom_text(data), end="\n" if args.json else "")
     if not resolved.ok:
         raise CheckFailure(str(args.design), resolved.failed)
     return 0

@@ -72,6 +72,13 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("min_wall", "length", "thinnest wall the shop will turn", 0.5, 0.05, 10.0),
         ParamSpec("seat_roughness", "roughness", "surface roughness Ra of the bearing seat", 0.8, 0.0, 25.0),
         ParamSpec("break_edges", "length", "edge break for unmarked edges (ISO 13715)", 0.2, 0.0, 2.0, lo_closed=True),
+        # stock allowances: common practice, no published source
+        ParamSpec("stock_turning_allowance", "length", "diametral allowance turned off the bar's outside (bill of stock)",
+                  2.0, 0.0, 20.0, lo_closed=True),
+        ParamSpec("stock_facing_allowance", "length", "length faced off a half's two faces together (bill of stock)",
+                  1.0, 0.0, 20.0, lo_closed=True),
+        ParamSpec("stock_parting_allowance", "length", "length lost to the parting tool per half (bill of stock)",
+                  3.0, 0.0, 20.0, lo_closed=True),
     ),
     "parts": (
         ParamSpec("axle_mass", "mass", "overrides the computed axle mass", None, 0.0, 100.0, lo_closed=True),

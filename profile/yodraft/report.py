@@ -61,6 +61,10 @@ def report_data(resolved: "Resolved") -> dict[str, Any]:
     data["revisions"] = [{"letter": r.letter, "date": r.date, "note": r.note} for r in resolved.design.revisions]
     data["inputs"] = _written_inputs(resolved.design.raw)
     data["cautions"] = cautions(resolved, data)
+    if resolved.can_analyse:
+        from .bom import bill_of_materials, bom_data
+
+        data["bom"] = bom_data(bill_of_materials(resolved))
     return data
 
 
@@ -145,11 +149,18 @@ def report_markdown(data: Mapping[str, Any]) -> str:
     for section in [k for k in data if k not in _KNOWN]:  # mass, spin, balance … as they land
         value = data[section]
         heading = {"mass": "Mass budget", "spin": "Spin metrics", "balance": "Balance",
-                   "parts": "Parts of one half"}.get(section, section)
+                   "parts": "Parts of one half", "bom": "Bill of materials and stock"}.get(section, section)
         lines += [f"## {heading}", ""]
         if section == "parts":
             lines += _table(("part", "material", "mass", "Izz"), [
                 (p["name"], p["material"], _cell(p["mass_g"], "g"), _cell(p["izz_g_mm2"], "g·mm²")) for p in value])
+        elif section == "bom":
+            from .bom import bom_text
+
+            lines += [f"For {value['units']} good yo-yos (`yodraft bom --units N` for another count):", ""]
+            lines += _table(("quantity", "item", "description"), [
+                (i["quantity"], i["name"], _cell(i["description"])) for i in value["items"]])
+            lines += [f"- {line.strip()}" for line in bom_text(value).splitlines()[len(value["items"]) + 1:]] + [""]
         else:
             lines += _key_table(value) if isinstance(value, Mapping) else [_cell(value), ""]
     lines += ["## Checks", ""]

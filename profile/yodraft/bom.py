@@ -1,0 +1,193 @@
+"""Bill of materials and stock: what to buy for N yo-yos, with the scrap a production lot expects.
+
+Per yo-yo: two turned halves (and any parts pressed into them), one bearing, two
+response pads and the axle, bought as an ISO 4026 set screw. The set screw is the
+standard length nearest the axle the mass budget assumes among those that fit
+into both halves' full threads and engage each by at least the material's thread
+engagement. Each half is turned from round bar: the next stocked diameter at or
+above the outer diameter plus ``shop.stock_turning_allowance``, cut to the half's
+length plus ``shop.stock_facing_allowance`` and ``shop.stock_parting_allowance``.
+The halves to turn for N good yo-yos follow from a lot of the design
+(:func:`yodraft.lot.run_lot`, fixed seed): N divided by the good yo-yos per half.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from typing import Any
+
+from .analysis import analyse
+from .builder import Resolved
+from .catalog.bar_stock import next_bar_diameter
+from .catalog.setscrews import STANDARD, standard_lengths
+
+__all__ = ["BomItem", "SetScrew", "Stock", "Bom", "choose_set_screw", "bar_stock", "bill_of_materials", "bom_data",
+           "bom_text", "DEFAULT_UNITS", "SCRAP_LOT_HALVES", "SCRAP_LOT_SEED"]
+
+DEFAULT_UNITS = 100
+#: the lot that sets the expected scrap: this many halves, this seed
+SCRAP_LOT_HALVES = 10_000
+SCRAP_LOT_SEED = 1
+
+
+@dataclass(frozen=True)
+class BomItem:
+    """One line of the bill: what, how many for the whole order, and a description to buy it by."""
+
+    name: str
+    quantity: int
+    description: str
+
+
+@dataclass(frozen=True)
+class SetScrew:
+    """The axle as a set screw: thread, chosen length (None when no standard length fits) and why."""
+
+    standard: str
+    thread: str
+    length_mm: float | None
+    lengths_mm: tuple[float, ...]
+    least_mm: float
+    most_mm: float
+    wanted_mm: float
+
+
+@dataclass(frozen=True)
+class Stock:
+    """The bar one half is turned from: diameter, length, mass bought, mass kept in the finished body."""
+
+    material: str
+    bar_diameter_mm: float | None
+    length_mm: float
+    mass_g: float | None
+    kept_g: float
+
+
+@dataclass(frozen=True)
+class Bom:
+    """The bill for ``units`` good yo-yos."""
+
+    units: int
+    items: tuple[BomItem, ...]
+    stock: Stock
+    axle: SetScrew
+    halves: int | None
+    good_per_half: float
+    lot_halves: int
+    lot_seed: int
+
+
+def choose_set_screw(thread: str, spacing_mm: float, thread_depth_mm: float, engagement_mm: float,
+                     wanted_mm: float) -> SetScrew:
+    """The ISO 4026 length nearest ``wanted_mm`` that engages both halves' threads fully.
+
+    It must reach at least ``engagement_mm`` into each half's thread and no further than the full thread
+    (``thread_depth_mm``), across the post spacing: spacing + 2 × engagement ≤ L ≤ spacing + 2 × thread depth.
+
+    >>> choose_set_screw("M4x0.7", 1.0, 8.0, 6.0, 15.6).length_mm
+    16.0
+    """
+    least, most = spacing_mm + 2 * engagement_mm, spacing_mm + 2 * thread_depth_mm
+    lengths = standard_lengths(thread)
+    fitting = [x for x in lengths if least - 1e-9 <= x <= most + 1e-9]
+    length = min(fitting, key=lambda x: (abs(x - wanted_mm), x)) if fitting else None
+    return SetScrew(STANDARD, thread, length, lengths, least, most, wanted_mm)
+
+
+def bar_stock(resolved: Resolved, kept_g: float) -> Stock:
+    """The bar a half is turned from, with the shop's allowances (``[shop]`` stock_* keys)."""
+    shop = resolved.design["shop"]
+    v = resolved.values
+    z_min, _, z_max, r_max = resolved.profile.bounds()
+    diameter = next_bar_diameter(2 * r_max + shop["stock_turning_allowance"])
+    length = (z_max - z_min) + shop["stock_facing_allowance"] + shop["stock_parting_allowance"]
+    mass = None if diameter is None else math.pi / 4 * diameter**2 * length * v["material.density_g_cm3"] / 1000
+    return Stock(v["material.name"], diameter, length, mass, kept_g)
+
+
+def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_halves: int = SCRAP_LOT_HALVES,
+                      lot_seed: int = SCRAP_LOT_SEED) -> Bom:
+    """The bill for ``units`` good yo-yos of ``resolved`` (its half must be analysable)."""
+    from .lot import lot_summary, run_lot
+
+    v = resolved.values
+    a = analyse(resolved)
+    body = next(props for name, _, props in a.parts) if a.parts else a.half
+    stock = bar_stock(resolved, body.mass_g)
+    need = v["material.engagement_factor"] * v["axle_bore.major_diameter"]
+    axle = choose_set_screw(v["axle_bore.thread"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"], need,
+                            a.axle_length_mm)
+    lot = lot_summary(run_lot(resolved.design, units=lot_halves, seed=lot_seed, exact_sample=0, resolved=resolved))
+    good_per_half = lot["good_yoyos_per_half"]
+    halves = math.ceil(units / good_per_half - 1e-9) if good_per_half > 0 else None
+    pad = resolved.features["pad_groove"].extra["pad"]
+    shown = "—" if halves is None else str(halves)
+    bar = (f"Ø{stock.bar_diameter_mm:g} mm" if stock.bar_diameter_mm is not None
+           else f"Ø{2 * resolved.profile.bounds()[3]:.1f} mm or more (above the stocked sizes held)")
+    items = [
+        BomItem("half", halves or 0,
+                f"{stock.material} half turned from {bar} bar, {stock.length_mm:.1f} mm a half; {shown} halves for "
+                f"{units} good yo-yos (a lot of {lot_halves} halves gives {good_per_half:.3f} good yo-yos a half)"),
+    ]
+    for part in resolved.parts[1:]:
+        items.append(BomItem(part.name, halves or 0, f"{part.material} {part.name}, one in each half"))
+    designation = v["bearing.designation"]
+    size = resolved.design["bearing"]["size"]
+    if size and size != designation and resolved.design["bearing"]["bore"] is None:
+        designation = f"{designation}, size {size}"
+    items += [
+        BomItem("bearing", units, f"{designation} ({v['bearing.bore']:.3f} × {v['bearing.od']:.3f} × "
+                                  f"{v['bearing.width']:.4f} mm), class {v['bearing.precision']}"),
+        BomItem("response pad", 2 * units, f"{pad.name} pad class: Ø{pad.pad_diameter_mm:g} mm outside, "
+                                           f"Ø{v['pad_groove.inner_diameter']:g} mm inside, {v['pad_groove.depth']:g} mm thick"),
+        BomItem("axle", units, (f"set screw {STANDARD} {axle.thread} × {axle.length_mm:g}, flat point"
+                                if axle.length_mm is not None else
+                                f"set screw {axle.thread}: no {STANDARD} length fits; needs "
+                                f"{axle.least_mm:.1f} to {axle.most_mm:.1f} mm")),
+    ]
+    if halves is not None:
+        total_m = halves * stock.length_mm / 1000
+        mass = "" if stock.mass_g is None else f", {halves * stock.mass_g / 1000:.2f} kg"
+        items.append(BomItem("bar stock", halves, f"{bar} {stock.material} round bar, {halves} pieces of "
+                                                  f"{stock.length_mm:.1f} mm: {total_m:.2f} m{mass}"))
+    return Bom(units, tuple(items), stock, axle, halves, good_per_half, lot_halves, lot_seed)
+
+
+def bom_data(bom: Bom) -> dict[str, Any]:
+    """The ``bom --json`` object (see the README for every key)."""
+    s = bom.stock
+    halves = bom.halves
+    return {
+        "units": bom.units,
+        "items": [{"name": i.name, "quantity": i.quantity, "description": i.description} for i in bom.items],
+        "stock": {"material": s.material, "bar_diameter_mm": s.bar_diameter_mm, "length_mm": s.length_mm,
+                  "mass_g": s.mass_g, "kept_g": s.kept_g,
+                  "kept_share": None if not s.mass_g else s.kept_g / s.mass_g},
+        "axle": {"standard": bom.axle.standard, "thread": bom.axle.thread, "length_mm": bom.axle.length_mm,
+                 "standard_lengths_mm": list(bom.axle.lengths_mm), "least_mm": bom.axle.least_mm,
+                 "most_mm": bom.axle.most_mm, "wanted_mm": bom.axle.wanted_mm},
+        "lot": {"halves": bom.lot_halves, "seed": bom.lot_seed, "good_yoyos_per_half": bom.good_per_half,
+                "scrap_share": 1 - 2 * bom.good_per_half},
+        "totals": {"halves": halves,
+                   "bar_length_mm": None if halves is None else halves * s.length_mm,
+                   "bar_mass_g": None if halves is None or s.mass_g is None else halves * s.mass_g,
+                   "kept_mass_g": 2 * bom.units * s.kept_g},
+    }
+
+
+def bom_text(data: dict[str, Any]) -> str:
+    """The bill as terminal text."""
+    width = max(len(i["name"]) for i in data["items"])
+    lines = [f"bill of materials for {data['units']} good yo-yos"]
+    lines += [f"  {i['quantity']:>8}  {i['name']:<{width}}  {i['description']}" for i in data["items"]]
+    s, t = data["stock"], data["totals"]
+    if s["mass_g"] is not None:
+        lines.append(f"  stock per half: bar Ø{s['bar_diameter_mm']:g} × {s['length_mm']:.1f} mm, {s['mass_g']:.1f} g "
+                     f"bought, {s['kept_g']:.1f} g kept ({100 * s['kept_share']:.0f} %)")
+    if t["bar_mass_g"] is not None:
+        lines.append(f"  to order: {t['halves']} halves' bar, {t['bar_length_mm'] / 1000:.2f} m, "
+                     f"{t['bar_mass_g'] / 1000:.2f} kg; {t['kept_mass_g'] / 1000:.2f} kg in the finished halves")
+    lot = data["lot"]
+    lines.append(f"  scrap from a lot of {lot['halves']} halves (seed {lot['seed']}): {100 * lot['scrap_share']:.1f} % "
+                 "of halves turned do not end in a good yo-yo")
+    return "\n".join(lines) + "\n"

@@ -1,0 +1,88 @@
+"""Bill of materials and stock: the ISO 4026 axle length, the bar a half is turned from, totals with scrap."""
+from __future__ import annotations
+
+import json
+import math
+from pathlib import Path
+
+import pytest
+
+import yodraft
+from yodraft.bom import bill_of_materials, bom_data, choose_set_screw
+from yodraft.catalog.bar_stock import BAR_DIAMETERS_MM, next_bar_diameter
+from yodraft.catalog.setscrews import standard_lengths
+from yodraft.cli import main
+from yodraft.report import report_data, report_markdown
+
+ROOT = Path(__file__).resolve().parents[1]
+TEMPLATE = ROOT / "templates" / "string-trick.toml"
+
+
+def test_iso_4026_lengths() -> None:
+    # ISO 4026 (from memory): M4 set screws from 4 to 20 mm in the series 4, 5, 6, 8, 10, 12, 16, 20;
+    # M3 from 3 to 16 mm; M5 from 5 to 25 mm
+    assert standard_lengths("M4x0.7") == (4.0, 5.0, 6.0, 8.0, 10.0, 12.0, 16.0, 20.0)
+    assert standard_lengths("M3x0.5") == (3.0, 4.0, 5.0, 6.0, 8.0, 10.0, 12.0, 16.0)
+    assert standard_lengths("M5x0.8") == (5.0, 6.0, 8.0, 10.0, 12.0, 16.0, 20.0, 25.0)
+    assert standard_lengths("8-32 UNC") == ()  # an inch thread: not an ISO 4026 size
+
+
+@pytest.mark.parametrize(("depth", "wanted", "expected"), [
+    (8.0, 15.6, 16.0),   # fits 13 to 17 mm: of the ISO 4026 M4 lengths only 16 lies there
+    (10.0, 19.6, 20.0),  # fits 13 to 21 mm: 16 and 20; 20 is nearer the wanted length
+    (10.0, 17.0, 16.0),  # the same window, 16 nearer
+    (6.0, 11.6, None),   # fits 13 to 13 mm: 12 is too short to engage, 16 runs past the thread
+])
+def test_axle_length_engages_both_threads(depth: float, wanted: float, expected: float | None) -> None:
+    # spacing 1 mm; engagement 1.5 × 4 mm in aluminium (common practice, no published source)
+    screw = choose_set_screw("M4x0.7", 1.0, depth, 6.0, wanted)
+    assert screw.length_mm == expected
+    if expected is not None:
+        assert expected in standard_lengths("M4x0.7")
+        engaged = (expected - 1.0) / 2
+        assert 6.0 <= engaged <= depth
+
+
+def test_bar_stock_for_the_starter_design() -> None:
+    resolved = yodraft.build(yodraft.load(TEMPLATE))
+    bom = bill_of_materials(resolved, 100, lot_halves=2000)
+    s = bom.stock
+    assert next_bar_diameter(56.0 + 2.0) == 60.0 and s.bar_diameter_mm == 60.0  # Ø56 outer + 2 mm turning allowance
+    z_min, _, z_max, _ = resolved.profile.bounds()
+    assert s.length_mm == pytest.approx(z_max - z_min + 1.0 + 3.0)  # facing 1 mm, parting 3 mm
+    # a cylinder of 2.70 g/cm³: m = π/4 · D² · L · ρ
+    assert s.mass_g == pytest.approx(math.pi / 4 * 6.0**2 * (s.length_mm / 10) * 2.70, rel=1e-12)
+    assert s.kept_g < s.mass_g
+    assert bom.axle.length_mm == 16.0  # M4 thread 8 mm deep, posts 1 mm apart
+    assert bom.halves == math.ceil(100 / bom.good_per_half - 1e-9) and bom.halves >= 200
+
+
+def test_shop_allowances_override(string_trick_text: str) -> None:
+    from conftest import set_in
+
+    text = set_in(string_trick_text, "shop", "stock_turning_allowance", "6 mm")
+    text = set_in(text, "shop", "stock_parting_allowance", "4 mm")
+    resolved = yodraft.build(yodraft.design.loads(text, "x.toml"))
+    s = bill_of_materials(resolved, 10, lot_halves=200).stock
+    assert s.bar_diameter_mm == 63.0 and 63.0 in BAR_DIAMETERS_MM  # 56 + 6 = 62 → next stocked 63
+    z_min, _, z_max, _ = resolved.profile.bounds()
+    assert s.length_mm == pytest.approx(z_max - z_min + 1.0 + 4.0)
+
+
+def test_bom_json_contract(capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["bom", str(TEMPLATE), "--units", "50", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["units"] == 50
+    names = {i["name"]: i for i in data["items"]}
+    assert {"half", "bearing", "response pad", "axle", "bar stock"} <= set(names)
+    assert names["bearing"]["quantity"] == 50 and names["response pad"]["quantity"] == 100
+    assert "ISO 4026 M4x0.7 × 16" in names["axle"]["description"]
+    assert set(data["stock"]) >= {"bar_diameter_mm", "length_mm", "mass_g"}
+    assert data["totals"]["halves"] == names["half"]["quantity"] >= 100
+
+
+def test_report_carries_the_bill() -> None:
+    data = report_data(yodraft.build(yodraft.load(TEMPLATE)))
+    assert data["bom"] == bom_data(bill_of_materials(yodraft.build(yodraft.load(TEMPLATE))))
+    text = report_markdown(data)
+    assert "## Bill of materials and stock" in text and "ISO 4026 M4x0.7 × 16" in text
