@@ -9,11 +9,12 @@ from typing import Any
 
 from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
 from .catalog.materials import MATERIALS, lookup_material
-from .checks import ANALYSIS_PREREQUISITES, Check, loop_checks, radial_order, wall_checks
+from .checks import (ANALYSIS_PREREQUISITES, Check, loop_checks, radial_order, surface_walls, turning_checks,
+                     wall_checks)
 from .design import Design
 from .errors import DesignInputError
-from .features import FEATURES, LOOP_ORDER
-from .features.base import Context, FeatureResult
+from .features import FEATURES, LOOP_ORDER, OUTER_CHUNKS
+from .features.base import Context, FeatureInputError, FeatureResult
 from .geometry import GeometryError, Profile, fillet_loop
 from .params import check_unknown
 from .parts import BODY, Part, cut_seats, feature_parts, seat_checks
@@ -198,25 +199,39 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
     results: dict[str, FeatureResult] = {}
     readable = MappingProxyType(values)  # features read earlier values, never write them
     for name, module in FEATURES.items():
-        results[name], published = memo.feature(module, design.features[name], readable, design["shop"])
+        try:
+            results[name], published = memo.feature(module, design.features[name], readable, design["shop"])
+        except FeatureInputError as exc:
+            raise DesignInputError(design.source, f"features.{name}.{exc.key}", exc.problem, exc.expected) from None
         values.update(published)
-    vertices = [v for feature, chunk in LOOP_ORDER for v in results[feature].chunks[chunk]]
+    shaped = bool(results["shape"].chunks["outer"])  # a given outer shape replaces the rim's and catch zone's
+    order = [(f, c) for f, c in LOOP_ORDER if not (shaped and (f, c) in OUTER_CHUNKS)]
+    vertices = [v for feature, chunk in order for v in results[feature].chunks[chunk]]
     seats = [s for r in results.values() for s in r.seats]
     vertices, seat_failures = cut_seats(vertices, seats)
     try:
         profile, misfits = fillet_loop(vertices)
     except GeometryError:
         profile, misfits = None, []
+    for owner in misfits:
+        if owner.startswith("shape.points["):
+            raise DesignInputError(design.source, f"features.{owner}", "does not fit the edges it joins",
+                                   "a corner radius whose tangent points lie on its two lines, between two lines")
     chunks = {f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in LOOP_ORDER}
     checks: list[Check] = [c for r in results.values() for c in r.checks]
     checks += radial_order(values)
-    checks += wall_checks(values, chunks, design["shop"]["min_wall"])
+    sketched = values["shape.kind"] == "sketch"
+    if sketched:  # the rim's and catch zone's own sizes are only anchors of the sketch
+        checks = [c for c in checks if c.feature not in ("rim", "catch_zone")]
+    checks += wall_checks(values, chunks, design["shop"]["min_wall"], back_walls=not shaped)
     checks += loop_checks(profile, design["envelope"], misfits)
     checks += seat_failures
     parts: tuple[Part, ...] = ()
     if profile is not None:
         added, part_failures = feature_parts(tuple(results.values()))
         checks += part_failures + seat_checks(profile, seats, design["shop"]["min_wall"])
+        checks += surface_walls(profile, design["shop"]["min_wall"])
+        checks += turning_checks(profile)
         parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,
                       design["shop"]["coating"]),) + added
         z_min, _, z_max, r_max = profile.bounds()

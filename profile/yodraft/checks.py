@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import functools
+import math
 from itertools import chain
 from collections.abc import Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
@@ -12,7 +13,8 @@ import shapely
 if TYPE_CHECKING:  # pragma: no cover
     from .geometry import Point, Profile
 
-__all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks"]
+__all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "turning_checks",
+           "reentrant_regions", "Reentrant"]
 
 
 class Check(NamedTuple):
@@ -85,8 +87,13 @@ def _polyline(points: tuple[Point, ...]) -> shapely.Geometry:
     return shapely.linestrings(np.asarray(points)) if len(points) > 1 else shapely.points(points[0])
 
 
-def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]], min_wall: float) -> list[Check]:
-    """Least material between neighbouring surfaces, against the shop's thinnest wall."""
+def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]], min_wall: float,
+                back_walls: bool = True) -> list[Check]:
+    """Least material between neighbouring surfaces, against the shop's thinnest wall.
+
+    ``back_walls=False`` leaves out the walls measured to the rim's cup (a given outer shape has
+    no such chunk; ``surface_walls`` measures it).
+    """
     post_wall = (values["bearing_seat.post_diameter"] - values["axle_bore.major_diameter"]) / 2
     bearing_wall = (values["pad_groove.inner_diameter"] - values["bearing_seat.wall_bore"]) / 2
     out = [
@@ -95,6 +102,8 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
         check("bearing wall thickness", "pad_groove.inner_diameter", bearing_wall >= min_wall - 1e-9,
               f"{bearing_wall:.3f} mm between wall bore and pad groove, least {min_wall:.3f} mm"),
     ]
+    if not back_walls:
+        return out
     cup = _polyline(tuple(chunks["rim.outer"][:-1]))  # the cup surface, without the outer edge
     for feature, chunk, where in BACK_WALLS:
         wall = float(_polyline(tuple(chunks[f"{feature}.{chunk}"])).distance(cup))
@@ -132,3 +141,188 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
     out += [check("radius fits its edges", owner, False, f"{owner} is too large for the edges it joins")
             for owner in misfits]
     return out
+
+
+# ---------------------------------------------------------------- rules over any outer shape
+
+#: how far (degrees) the line across a wall may lean from each surface's normal and still
+#: count as the two surfaces facing each other across metal (a 90° corner's fillet leans 45°)
+FACING_DEG = 30.0
+_COS_FACING = math.cos(math.radians(FACING_DEG))
+ON_AXIS = 1e-9
+
+
+def _inward_normal(seg: Any, p: Point) -> tuple[float, float]:
+    """The unit normal at ``p`` pointing into the metal (the loop is counter-clockwise: metal on the left)."""
+    if hasattr(seg, "center"):
+        dz, dr = p[0] - seg.center[0], p[1] - seg.center[1]
+        length = math.hypot(dz, dr) or 1.0
+        # a counter-clockwise arc has its metal towards the centre, a clockwise one away from it
+        sign = -1.0 if seg.sweep > 0 else 1.0
+        return (sign * dz / length, sign * dr / length)
+    (z0, r0), (z1, r1) = seg.start, seg.end
+    length = math.hypot(z1 - z0, r1 - r0) or 1.0
+    return (-(r1 - r0) / length, (z1 - z0) / length)
+
+
+def _on_axis(seg: Any) -> bool:
+    return not hasattr(seg, "center") and abs(seg.start[1]) < ON_AXIS and abs(seg.end[1]) < ON_AXIS
+
+
+def _faces(segs: Sequence[Any], i: int, p: Point, u: tuple[float, float]) -> bool:
+    """Whether the direction ``u`` leaves segment ``i`` at ``p`` into the metal, square to it within
+    FACING_DEG, or (at a corner where the metal turns more than half a turn) between its two normals."""
+    seg = segs[i]
+    n = _inward_normal(seg, p)
+    if n[0] * u[0] + n[1] * u[1] >= _COS_FACING:
+        return True
+    for end, other in ((seg.start, segs[i - 1]), (seg.end, segs[(i + 1) % len(segs)])):
+        if math.dist(p, end) < 1e-6:
+            m = _inward_normal(other, end)
+            a, b = (m, n) if end == seg.start else (n, m)  # a then b round the corner in loop order
+            reflex = a[0] * b[1] - a[1] * b[0] < 0  # the normals turn clockwise: the metal wraps the corner
+            if reflex and (a[0] * u[1] - a[1] * u[0]) <= 1e-9 and (u[0] * b[1] - u[1] * b[0]) <= 1e-9:
+                return True
+    return False
+
+
+def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
+    """The thinnest metal between two surfaces of the loop that face each other across it:
+    (thickness in mm, the point on each surface), or None when no two surfaces face each other.
+
+    Surfaces meeting at a corner do not face each other there; a pair counts where the line of
+    least distance between them runs through the metal, square to both (within FACING_DEG).
+    """
+    segs = profile.segments
+    n = len(segs)
+    tol = LOOP_CHECK_TOLERANCE
+    lines = np.array([_polyline(tuple(s.flattened(tol)) + (s.end,)) if hasattr(s, "center")
+                      else _polyline((s.start, s.end)) for s in segs])
+    keep = np.array([not _on_axis(s) for s in segs])
+    i_all, j_all = np.triu_indices(n, 2)
+    use = keep[i_all] & keep[j_all] & ~((i_all == 0) & (j_all == n - 1))
+    idx = list(zip(i_all[use].tolist(), j_all[use].tolist()))
+    if not idx:
+        return None
+    a, b = lines[i_all[use]], lines[j_all[use]]
+    dist = shapely.distance(a, b)
+    poly = profile.polygon(tol)
+    for k in np.argsort(dist, kind="stable"):
+        i, j = idx[k]
+        d = float(dist[k])
+        if d < 1e-9:
+            continue  # touching surfaces: the loop check judges those
+        pq = shapely.shortest_line(lines[i], lines[j])
+        (pz, pr), (qz, qr) = pq.coords
+        u = ((qz - pz) / d, (qr - pr) / d)
+        if not poly.contains(shapely.points((pz + qz) / 2, (pr + qr) / 2)):
+            continue  # across air, not metal
+        if _faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1])):
+            return d, (pz, pr), (qz, qr)
+    return None
+
+
+def surface_walls(profile: "Profile", min_wall: float) -> list[Check]:
+    """Least wall everywhere: the thinnest metal between any two surfaces facing each other across it."""
+    found = least_wall(profile)
+    if found is None:
+        return [check("least wall across metal", "shop.min_wall", True, "no two surfaces face each other across metal")]
+    d, p, q = found
+    return [check("least wall across metal", "shop.min_wall", d >= min_wall - 1e-9,
+                  f"{d:.3f} mm between the surfaces at z = {p[0]:.3f}, r = {p[1]:.3f} mm and z = {q[0]:.3f}, "
+                  f"r = {q[1]:.3f} mm, least {min_wall:.3f} mm")]
+
+
+class Reentrant(NamedTuple):
+    """A run of surfaces no plain turning tool reaches straight from the outside diameter or a face,
+    with its extent (mm) and the tool it needs."""
+
+    z_min: float
+    z_max: float
+    r_min: float
+    r_max: float
+    tool: str
+
+    def describe(self) -> str:
+        return (f"re-entrant region z {self.z_min:.2f}…{self.z_max:.2f} mm, Ø{2 * self.r_min:.2f}…Ø{2 * self.r_max:.2f} mm: "
+                f"needs a {self.tool}")
+
+
+GROOVING_TOOL = "grooving tool"
+BACK_TURNING_TOOL = "back-turning tool"
+_SAMPLES = (0.15, 0.5, 0.85)
+_OFFSET = 0.05  # mm off the surface, well above the flattening error (LOOP_CHECK_TOLERANCE), where a ray starts
+
+
+def _sample(seg: Any, t: float) -> Point:
+    if hasattr(seg, "center"):
+        return seg.point_at(seg.start_angle + t * seg.sweep)
+    return (seg.start[0] + t * (seg.end[0] - seg.start[0]), seg.start[1] + t * (seg.end[1] - seg.start[1]))
+
+
+def reentrant_regions(profile: "Profile") -> list[Reentrant]:
+    """Runs of surfaces a turning tool cannot reach by a straight path from the outside diameter
+    (radially) or from either face (axially).
+
+    A region deeper radially than it is wide needs a grooving tool plunged into it; a wider one a
+    back-turning tool that reaches in behind the shoulder.
+    """
+    segs = profile.segments
+    starts, owners = [], []
+    for i, seg in enumerate(segs):
+        if _on_axis(seg):
+            continue
+        for t in _SAMPLES:
+            p = _sample(seg, t)
+            n = _inward_normal(seg, p)
+            starts.append((p[0] - _OFFSET * n[0], p[1] - _OFFSET * n[1]))
+            owners.append(i)
+    if not starts:
+        return []
+    s = np.asarray(starts)
+    flat = np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE))
+    a, b = flat, np.roll(flat, -1, axis=0)
+    blocked = np.ones(len(s), dtype=bool)
+    # straight rays: out along +r, and along -z and +z; a ray is blocked when it crosses an edge of the loop
+    for along, across in ((1, 0), (0, 1)):
+        lo = np.minimum(a[:, across], b[:, across])[None, :]
+        hi = np.maximum(a[:, across], b[:, across])[None, :]
+        at = s[:, across][:, None]
+        spans = (lo <= at) & (at < hi)
+        with np.errstate(divide="ignore", invalid="ignore"):
+            share = (at - a[:, across][None, :]) / (b[:, across] - a[:, across])[None, :]
+        hit = a[:, along][None, :] + share * (b[:, along] - a[:, along])[None, :]
+        start = s[:, along][:, None]
+        if along == 1:  # radially outward
+            blocked &= (spans & (hit > start)).any(axis=1)
+        else:  # axially, toward either face
+            blocked &= (spans & (hit < start)).any(axis=1) & (spans & (hit > start)).any(axis=1)
+    hidden = sorted({owners[k] for k in np.flatnonzero(blocked)})
+    if not hidden:
+        return []
+    # consecutive hidden surfaces round the loop make one region
+    runs: list[list[int]] = []
+    for i in hidden:
+        if runs and i == runs[-1][-1] + 1:
+            runs[-1].append(i)
+        else:
+            runs.append([i])
+    if len(runs) > 1 and runs[0][0] == 0 and runs[-1][-1] == len(segs) - 1:
+        runs[0] = runs.pop() + runs[0]
+    out = []
+    for run in runs:
+        pts = [q for i in run for q in (segs[i].start, segs[i].end, _sample(segs[i], 0.5))]
+        zs, rs = [q[0] for q in pts], [q[1] for q in pts]
+        tool = GROOVING_TOOL if (max(rs) - min(rs)) >= (max(zs) - min(zs)) else BACK_TURNING_TOOL
+        out.append(Reentrant(min(zs), max(zs), min(rs), max(rs), tool))
+    return out
+
+
+def turning_checks(profile: "Profile") -> list[Check]:
+    """Every surface reachable by a turning tool from the outside diameter or a face; each re-entrant
+    region is allowed, and named with the tool it needs."""
+    regions = reentrant_regions(profile)
+    if not regions:
+        return [check("turned from the outside diameter and faces", "shape.kind", True,
+                      "every surface is reached straight from the outside diameter or a face")]
+    return [check(f"re-entrant region needs a {r.tool}", "shape.kind", True, r.describe()) for r in regions]

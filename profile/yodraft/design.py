@@ -27,6 +27,8 @@ MAX_KEY_PARTS = 6
 #: words a build puts after ``<name>-<revision>`` in its file names: a revision may not be one of them,
 #: or design ``x-A`` at revision ``profile`` would write over the CAM profile of design ``x`` at revision ``A``
 OUTPUT_WORDS = frozenset({"profile", "ring", "assembly", "sheet", "build", "report", "lot", "bom", "overlay"})
+#: most tables one array of a feature may hold (a sketch of more points is a pasted point cloud)
+MAX_ARRAY = 200
 
 SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
     "design": (
@@ -293,7 +295,15 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
     features: dict[str, dict[str, Any]] = {}
     for fname, module in FEATURES.items():
         table = feature_tables.get(fname, {})
-        features[fname] = read_table(table, module.PARAMS, source, f"features.{fname}")
+        arrays = getattr(module, "TABLES", {})
+        if isinstance(table, Mapping) and arrays:
+            values = read_table({k: v for k, v in table.items() if k not in arrays}, module.PARAMS, source,
+                                f"features.{fname}")
+            for key, specs in arrays.items():
+                values[key] = _read_array(table.get(key, []), specs, source, f"features.{fname}.{key}")
+            features[fname] = values
+        else:
+            features[fname] = read_table(table, module.PARAMS, source, f"features.{fname}")
         given.update(f"features.{fname}.{k}" for k in table)
         _check_feature_materials(features[fname], source, f"features.{fname}")
     revisions = _read_revisions(raw.get("revisions", []), source)
@@ -360,6 +370,15 @@ def _check_feature_materials(values: Mapping[str, Any], source: str, path: str) 
     check_name(values["material"], lookup_material, list(MATERIALS), source, f"{path}.material", "material")
     if values.get("coating") is not None:
         check_finish(values["coating"], values["material"], source, f"{path}.coating")
+
+
+def _read_array(items: Any, specs: tuple[ParamSpec, ...], source: str, path: str) -> tuple[dict[str, Any], ...]:
+    """An array of tables (``[[features.shape.points]]``), each read against ``specs``."""
+    if not isinstance(items, list):
+        raise DesignInputError(source, path, f"got {type(items).__name__}", f"an array of [[{path}]] tables")
+    if len(items) > MAX_ARRAY:
+        raise DesignInputError(source, path, f"has {len(items)} tables", f"at most {MAX_ARRAY}")
+    return tuple(read_table(item, specs, source, f"{path}[{i}]") for i, item in enumerate(items))
 
 
 def _read_revisions(items: Any, source: str) -> tuple[Revision, ...]:

@@ -18,7 +18,7 @@ from typing import NamedTuple, Union
 import numpy as np
 import shapely
 
-__all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "GeometryError"]
+__all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "arc_through", "GeometryError"]
 
 Point = tuple[float, float]
 CLOSE_TOL_MM = 1e-6  # ends closer than this meet
@@ -216,12 +216,33 @@ class Profile:
 class FilletVertex(NamedTuple):
     """A loop corner, optionally rounded with ``radius``; ``owner`` names the feature.parameter of the radius.
 
+    ``sweep`` (radians, + counter-clockwise) makes the edge from this corner to the next a circular
+    arc of that signed sweep instead of a line; a corner next to such an arc is not rounded.
     A NamedTuple rather than a dataclass: a sweep makes one per corner per variant.
     """
 
     point: Point
     radius: float = 0.0
     owner: str = ""
+    sweep: float = 0.0
+
+
+def arc_through(start: Point, end: Point, sweep: float) -> Arc:
+    """The circular arc from ``start`` to ``end`` turning through the signed ``sweep`` (radians, + CCW).
+
+    >>> a = arc_through((1.0, 0.0), (0.0, 1.0), math.pi / 2)
+    >>> round(a.radius, 12), a.center
+    (1.0, (0.0, 0.0))
+    """
+    half_chord = _dist(start, end) / 2
+    if half_chord <= 0 or not (0 < abs(sweep) < 2 * math.pi):
+        raise GeometryError("an arc needs two distinct ends and a sweep below a full turn")
+    mz, mr = (start[0] + end[0]) / 2, (start[1] + end[1]) / 2
+    nz, nr = -(end[1] - start[1]) / (2 * half_chord), (end[0] - start[0]) / (2 * half_chord)  # left normal of the chord
+    off = half_chord / math.tan(sweep / 2)
+    center = (mz + nz * off + 0.0, mr + nr * off + 0.0)
+    radius = half_chord / abs(math.sin(sweep / 2))
+    return Arc(center, radius, math.atan2(start[1] - center[1], start[0] - center[0]), sweep)
 
 
 @functools.lru_cache(maxsize=4096)  # a sweep or a watch rebuilds the same corners again and again
@@ -271,7 +292,9 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     plans: list[tuple[Point, Point, Arc] | None] = [None] * n
     misfits: list[str] = []
     for i, v in enumerate(vertices):
-        if v.radius > 0:
+        if v.radius > 0 and (v.sweep or vertices[i - 1].sweep):
+            misfits.append(v.owner or f"corner {i}")  # a fillet is only worked out between two lines
+        elif v.radius > 0:
             plan = _fillet(pts[i - 1], pts[i], pts[(i + 1) % n], v.radius)
             if plan is not None:
                 tangent[i], plans[i] = plan[0], plan[1:]
@@ -288,7 +311,10 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
         j = (i + 1) % n
         start = plans[i][1] if plans[i] else pts[i]
         end = plans[j][0] if plans[j] else pts[j]
-        if _dist(start, end) > 1e-9:
+        if vertices[i].sweep:
+            arc = arc_through(pts[i], pts[j], vertices[i].sweep)
+            segments.append(Arc(arc.center, arc.radius, arc.start_angle, arc.sweep))
+        elif _dist(start, end) > 1e-9:
             segments.append(Line(start, end))
         if plans[j]:
             segments.append(plans[j][2])

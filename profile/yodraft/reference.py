@@ -37,6 +37,10 @@ def reference_rows() -> Iterator[tuple[str, str, str, str, str]]:
     for name, module in FEATURES.items():
         for s in module.PARAMS:
             yield f"features.{name}", s.name, s.expected(), _default(s, f"features.{name}"), s.doc
+        for array, specs in getattr(module, "TABLES", {}).items():
+            table = f"[features.{name}.{array}]"
+            for s in specs:
+                yield table, s.name, s.expected(), "optional" if s.default is None else _default(s, table), s.doc
 
 
 def reference_markdown() -> str:

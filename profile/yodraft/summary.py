@@ -63,6 +63,7 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
             **_axial(resolved),
         },
         "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
+        "shape": _shape_section(resolved),
         **(_mass_sections(resolved) if resolved.can_analyse else {}),
         **({"features": resolved_dimensions(resolved),
             "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
@@ -85,6 +86,16 @@ def _axial(resolved: Resolved) -> dict[str, Any]:
         out.update({"seat_depth_mm": v["axial.seat_depth"], "seat_depth_tolerance_mm": v["axial.seat_depth_tolerance"],
                     "width_worst_mm": list(width.worst_mm), "width_rss_mm": list(width.rss_mm)})
     return out
+
+
+def _shape_section(resolved: Resolved) -> dict[str, Any]:
+    """The outer shape's kind and the re-entrant regions that need a special tool."""
+    from .checks import reentrant_regions
+
+    regions = reentrant_regions(resolved.profile) if resolved.profile is not None else []
+    return {"kind": resolved.values["shape.kind"],
+            "reentrant": [{"z_min_mm": r.z_min, "z_max_mm": r.z_max, "diameter_min_mm": 2 * r.r_min,
+                           "diameter_max_mm": 2 * r.r_max, "tool": r.tool} for r in regions]}
 
 
 def _mass_sections(resolved: Resolved) -> dict[str, Any]:

@@ -7,18 +7,19 @@ from __future__ import annotations
 
 from types import ModuleType
 
-from . import axle_bore, bearing_seat, catch_zone, pad_groove, rim, vent_groove
+from . import axle_bore, bearing_seat, catch_zone, pad_groove, rim, shape, vent_groove
 
-__all__ = ["FEATURES", "LOOP_ORDER"]
+__all__ = ["FEATURES", "LOOP_ORDER", "OUTER_CHUNKS"]
 
 #: resolution order (each feature may read what the earlier ones published)
 FEATURES: dict[str, ModuleType] = {
-    m.NAME: m for m in (bearing_seat, vent_groove, axle_bore, pad_groove, rim, catch_zone)
+    m.NAME: m for m in (bearing_seat, vent_groove, axle_bore, pad_groove, rim, catch_zone, shape)
 }
 
 #: the order the features' corner chunks follow round the counter-clockwise loop,
 #: starting on the spin axis at the back of the hub
 LOOP_ORDER: tuple[tuple[str, str], ...] = (
+    ("shape", "outer"),
     ("rim", "outer"),
     ("catch_zone", "surface"),
     ("pad_groove", "groove"),
@@ -27,3 +28,6 @@ LOOP_ORDER: tuple[tuple[str, str], ...] = (
     ("bearing_seat", "post"),
     ("axle_bore", "bore"),
 )
+
+#: the chunks a given outer shape (any shape kind but "cone") replaces
+OUTER_CHUNKS: frozenset[tuple[str, str]] = frozenset({("rim", "outer"), ("catch_zone", "surface")})

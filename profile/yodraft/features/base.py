@@ -8,7 +8,7 @@ from typing import Any
 from ..checks import Check
 from ..geometry import FilletVertex, Point
 
-__all__ = ["Context", "FeatureResult", "PartOutline", "SeatCut", "V"]
+__all__ = ["Context", "FeatureResult", "FeatureInputError", "PartOutline", "SeatCut", "V", "pick"]
 
 
 def V(z: float, r: float, radius: float = 0.0, owner: str = "") -> FilletVertex:
@@ -99,3 +99,14 @@ def pick(params: Mapping[str, Any], key: str, derived_value: Any, derived: set[s
         return params[key]
     derived.add(key)
     return derived_value
+
+
+class FeatureInputError(ValueError):
+    """Bad input a feature finds only once it knows its context (a sketch point off the wall face).
+
+    ``key`` is the path inside the feature's table; the builder adds the file and the feature.
+    """
+
+    def __init__(self, key: str, problem: str, expected: str = "") -> None:
+        self.key, self.problem, self.expected = key, problem, expected
+        super().__init__(key, problem, expected)
