@@ -15,10 +15,35 @@ from yodraft.drawing.requests import (DimensionRequest, detail_requests, format_
 TEMPLATES = sorted((Path(__file__).resolve().parents[1] / "templates").glob("*.toml"))
 
 
+#: the keys only the cone family's own outer shape carries
+CONE_ONLY = ("rim.", "catch_zone.")
+
+
 def _expected(r) -> dict[str, float]:
     """What each key's dimension must read (mm; angles in degrees)."""
     v = r.values
-    zb = v["rim.face_z"]
+    zb = v["shape.face_z"]
+    out = _common(r, zb)
+    if v["shape.kind"] == "cone":
+        return out
+    out = {k: x for k, x in out.items() if not k.startswith(CONE_ONLY)}
+    # a given shape: every point's diameter and its axial position from datum face B (the wall face and
+    # datum B themselves aside), every corner radius
+    n = sum(1 for k in v if k.startswith("shape.point_") and k.endswith("_z"))
+    for i in range(n):
+        z, d = v[f"shape.point_{i}_z"], v[f"shape.point_{i}_diameter"]
+        if d > 0:
+            out[f"shape.point_{i}_diameter"] = d
+        if abs(z - zb) > 1e-9 and abs(z - v["bearing_seat.wall_face_z"]) > 1e-9:
+            out[f"shape.point_{i}_z"] = zb - z
+    for c in r.features["shape"].chunks["outer"]:
+        if c.radius > 0:
+            out[c.owner] = c.radius
+    return out
+
+
+def _common(r, zb: float) -> dict[str, float]:
+    v = r.values
     return {
         "rim.diameter": v["rim.diameter"], "rim.cup_diameter": v["rim.cup_diameter"],
         "rim.hub_diameter": v["rim.hub_diameter"], "rim.floor_diameter": v["rim.floor_diameter"],

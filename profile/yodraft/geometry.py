@@ -231,8 +231,8 @@ def arc_through(start: Point, end: Point, sweep: float) -> Arc:
     """The circular arc from ``start`` to ``end`` turning through the signed ``sweep`` (radians, + CCW).
 
     >>> a = arc_through((1.0, 0.0), (0.0, 1.0), math.pi / 2)
-    >>> round(a.radius, 12), a.center
-    (1.0, (0.0, 0.0))
+    >>> round(a.radius, 12), [round(c, 12) + 0.0 for c in a.center]
+    (1.0, [0.0, 0.0])
     """
     half_chord = _dist(start, end) / 2
     if half_chord <= 0 or not (0 < abs(sweep) < 2 * math.pi):

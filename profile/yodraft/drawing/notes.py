@@ -66,6 +66,11 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     out.append(f"Bearing seat (post, seat face, wall bore) Ra {shop['seat_roughness']:g} µm; elsewhere Ra 3.2 µm")
     out.append(f"Runout {data.runout_mm:.3f} mm to datum A: balance grade G{data.balance_grade:g} "
                f"(ISO 21940-11) at {data.spin_rate_rpm:g} rpm for a {data.half_mass_g:.1f} g half")
+    if resolved.profile is not None:
+        from ..checks import reentrant_regions
+
+        for region in reentrant_regions(resolved.profile):
+            out.append(f"Undercut: {region.describe()}")
     out.append(f"General tolerance {shop['general_tolerance']}. Dimensions in mm.")
     return out
 

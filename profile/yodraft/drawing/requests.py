@@ -21,7 +21,7 @@ from ..units import MM_PER_INCH as IN
 from .locate import corner, on_face, on_radius
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
-           "detail_requests", "detail_region", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+           "detail_requests", "shape_requests", "detail_region", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
 
 DIA = "Ø"
 KINDS = ("linear", "diameter", "radius", "angle")
@@ -116,7 +116,7 @@ def seat_fit(resolved: Resolved):  # type: ignore[no-untyped-def]
 
 def datum_face_z(resolved: Resolved) -> float:
     """z of datum face B, the outer (back) face: faced first, every axial position is measured from it."""
-    return float(resolved["rim.face_z"])
+    return float(resolved["shape.face_z"])
 
 
 def thread_callout(resolved: Resolved) -> str:
@@ -149,22 +149,27 @@ def section_requests(resolved: Resolved) -> list[DimensionRequest]:
     R = profile.bounds()[3]
     wall_z = v["bearing_seat.wall_face_z"]
     out: list[DimensionRequest] = []
-    # diameters on the outer side
-    for keys, at in (
-        (("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),
-        (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
-        (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
-        (("rim.diameter",), on_radius(profile, R)),
-    ):
-        out.append(DimensionRequest(keys, "diameter", (at,), side="right"))
+    cone = v["shape.kind"] == "cone"
+    if cone:
+        # diameters on the outer side
+        for keys, at in (
+            (("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),
+            (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
+            (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
+            (("rim.diameter",), on_radius(profile, R)),
+        ):
+            out.append(DimensionRequest(keys, "diameter", (at,), side="right"))
     # diameters on the gap side that the detail does not carry
     for keys, at in (
         (("pad_groove.inner_diameter", "bearing_seat.wall_outside_diameter"),
          on_radius(profile, v["pad_groove.inner_diameter"] / 2, prefer="min")),
         (("pad_groove.outer_diameter",), on_radius(profile, v["pad_groove.outer_diameter"] / 2, prefer="min")),
-        (("catch_zone.start_diameter",), corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))),
     ):
         out.append(DimensionRequest(keys, "diameter", (at,), side="left"))
+    start_r = v["shape.start_diameter"] / 2
+    if cone:
+        out.append(DimensionRequest(("catch_zone.start_diameter",), "diameter", (corner(profile, (wall_z, start_r)),),
+                                    side="left"))
     r_t = v["axle_bore.major_diameter"] / 2
     z_post = v["bearing_seat.post_face_z"]
     thread = thread_callout(resolved)
@@ -180,10 +185,12 @@ def section_requests(resolved: Resolved) -> list[DimensionRequest]:
     b = on_face(profile, zb)
     for keys, p in (
         (("bearing_seat.seat_face_z",), on_face(profile, v["bearing_seat.seat_face_z"], prefer="min")),
-        (("bearing_seat.wall_face_z",), corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))),
+        (("bearing_seat.wall_face_z",), corner(profile, (wall_z, start_r))),
         (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, z_post, prefer="min")),
     ):
         out.append(DimensionRequest(keys, "linear", (p, b), direction="axial", side="below", lower=True))
+    if not cone:
+        return out + shape_requests(resolved)
     # rim band, cup depth and hub height
     out.append(DimensionRequest(("rim.width",), "linear", (
         corner(profile, (v["catch_zone.end_z"], R)), corner(profile, (v["rim.face_z"], R))),
@@ -212,6 +219,46 @@ def section_requests(resolved: Resolved) -> list[DimensionRequest]:
         if arc is not None:
             mid = arc.point_at(arc.start_angle + arc.sweep / 2)
             out.append(DimensionRequest((key,), "radius", (arc.center, mid), decimals=2))
+    return out
+
+
+def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """A given outer shape's dimensions: every point's diameter and axial position from datum face B
+    (points sharing one share its dimension), every corner radius and every arc's radius."""
+    profile = resolved.profile
+    assert profile is not None
+    v = resolved.values
+    shape = resolved.features["shape"]
+    corners, labels = shape.chunks["outer"], shape.extra["labels"]
+    zb = datum_face_z(resolved)
+    b = on_face(profile, zb)
+    wall_z = v["bearing_seat.wall_face_z"]
+    diameters: dict[float, tuple[list[str], Point]] = {}
+    positions: dict[float, tuple[list[str], Point]] = {}
+    out: list[DimensionRequest] = []
+    for c, (key, arc_key) in zip(corners, labels):
+        z, r = c.point
+        at = c.point  # the sharp (theoretical) corner, which a fillet there rounds
+        if r > 1e-9:
+            keys, _ = diameters.setdefault(round(2 * r, 6), ([], at))
+            keys.append(f"{key}_diameter")
+        if abs(z - zb) > 1e-9 and abs(z - wall_z) > 1e-9:  # the wall face has its own position; B is the datum
+            keys, _ = positions.setdefault(round(z, 6), ([], at))
+            keys.append(f"{key}_z")
+        if c.radius > 0:
+            arc = _arc_near(profile, c.radius, at)
+            if arc is not None:
+                out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
+        if c.sweep and arc_key:
+            arc = next(s for s in profile.segments if isinstance(s, Arc) and math.dist(s.start, c.point) < 1e-6)
+            out.append(DimensionRequest((arc_key,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
+    start_d = round(v["shape.start_diameter"], 6)
+    for d, (keys, at) in sorted(diameters.items()):
+        first = d == start_d
+        out.append(DimensionRequest(tuple(sorted(keys)) + (("shape.start_diameter",) if first else ()), "diameter", (at,),
+                                    side="left" if first else "right"))
+    for _, (keys, at) in sorted(positions.items(), reverse=True):
+        out.append(DimensionRequest(tuple(sorted(keys)), "linear", (at, b), direction="axial", side="below", lower=True))
     return out
 
 

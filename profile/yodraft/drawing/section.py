@@ -30,7 +30,7 @@ def thread_lane_z(resolved: Resolved, scale: float) -> float:
 
 def datum_face_z(resolved: Resolved) -> float:
     """z of datum face B, the outer (back) face: faced first, every axial position is measured from it."""
-    return float(resolved["rim.face_z"])
+    return float(resolved["shape.face_z"])
 
 
 def add_hatch(layout: BaseLayout, profile: Profile, scale: float, layer: str = "hatch") -> None:
@@ -82,8 +82,10 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
     an = Annotator(layout, scale)
     k = an.k
     z_min, _, z_max, R = profile.bounds()
+    cone = v["shape.kind"] == "cone"
+    start_r = v["shape.start_diameter"] / 2
     # diameters on the outer side, stacked outward by size
-    right = [
+    right = [] if not cone else [
         (("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),
         (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
         (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
@@ -97,8 +99,10 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
         (("pad_groove.inner_diameter", "bearing_seat.wall_outside_diameter"),
          on_radius(profile, v["pad_groove.inner_diameter"] / 2, prefer="min")),
         (("pad_groove.outer_diameter",), on_radius(profile, v["pad_groove.outer_diameter"] / 2, prefer="min")),
-        (("catch_zone.start_diameter",), corner(profile, (v["bearing_seat.wall_face_z"], v["catch_zone.start_diameter"] / 2))),
+        (("catch_zone.start_diameter",), corner(profile, (wall_z, start_r))),
     ]
+    if not cone:
+        left = left[:-1]
     for i, (keys, at) in enumerate(left):
         an.half_diameter(keys, at, z_min - (FIRST + LANE * i) * k)
     pad_r0, pad_r1 = v["pad_groove.inner_diameter"] / 2, v["pad_groove.outer_diameter"] / 2
@@ -130,7 +134,7 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
     b_low = (b[0], -b[1])
     rows = [
         (("bearing_seat.seat_face_z",), on_face(profile, v["bearing_seat.seat_face_z"], prefer="min")),
-        (("bearing_seat.wall_face_z",), corner(profile, (v["bearing_seat.wall_face_z"], v["catch_zone.start_diameter"] / 2))),
+        (("bearing_seat.wall_face_z",), corner(profile, (wall_z, start_r))),
         (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, v["bearing_seat.post_face_z"], prefer="min")),
     ]
     for i, (keys, p) in enumerate(rows):
@@ -140,6 +144,9 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
         inside = _material_below(profile, low)
         extra = {"dimexo": inside * scale + 1.0} if inside > 0 else None
         an.linear(keys, low, b_low, base=(zb, -R - (FIRST + LANE * i) * k), extra=extra)
+    if not cone:
+        _dimension_shape(an, resolved, len(left), len(rows))
+        return
     # rim band and cup above the upper half
     band0 = corner(profile, (v["catch_zone.end_z"], R))
     band1 = corner(profile, (v["rim.face_z"], R))
@@ -169,6 +176,39 @@ def dimension_section(layout: BaseLayout, resolved: Resolved, scale: float) -> N
         out = arc.radius + 10.0 * k
         at = (arc.center[0] + out * math.cos(math.radians(ang)), arc.center[1] + out * math.sin(math.radians(ang)))
         an.radius((key,), arc.center, arc.radius, ang, at)
+
+
+def _dimension_shape(an: Annotator, resolved: Resolved, left_lanes: int, rows: int) -> None:
+    """A given outer shape's dimensions (``requests.shape_requests``): diameters stacked in lanes on
+    the outer side (the catch zone's start on the gap side), axial positions from datum face B below
+    the mirror half, radii outward along each arc's middle."""
+    from .requests import shape_requests
+
+    profile = resolved.profile
+    assert profile is not None
+    k = an.k
+    z_min, _, z_max, R = profile.bounds()
+    zb = datum_face_z(resolved)
+    right = row = 0
+    for req in shape_requests(resolved):
+        if req.kind == "diameter" and req.side == "left":
+            an.half_diameter(req.keys, req.points[0], z_min - (FIRST + LANE * left_lanes) * k)
+        elif req.kind == "diameter":
+            an.half_diameter(req.keys, req.points[0], z_max + (FIRST + LANE * right) * k)
+            right += 1
+        elif req.kind == "linear":
+            low, b_low = [(p[0], -p[1]) for p in req.points]
+            inside = _material_below(profile, low)
+            extra = {"dimexo": inside * an.scale + 1.0} if inside > 0 else None
+            an.linear(req.keys, low, b_low, base=(zb, -R - (FIRST + LANE * (rows + row)) * k), extra=extra)
+            row += 1
+        elif req.kind == "radius":
+            centre, mid = req.points
+            radius = math.dist(centre, mid)
+            ang = math.atan2(mid[1] - centre[1], mid[0] - centre[0])
+            out = radius + 10.0 * k
+            an.radius(req.keys, centre, radius, math.degrees(ang),
+                      (centre[0] + out * math.cos(ang), centre[1] + out * math.sin(ang)))
 
 
 def _material_below(profile: Profile, p: tuple[float, float]) -> float:

@@ -133,12 +133,21 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     elif kind == "flat":
         face_z = ctx["rim.face_z"]
         corners = [V(face_z, 0.0), _lip_and_edge(ctx)[1]] + _cone(ctx)
+    labels: list[tuple[str, str]] = []
     if kind == "cone":
-        dims.update(start_diameter=ctx["catch_zone.start_diameter"], outer_diameter=ctx["rim.diameter"])
+        dims.update(start_diameter=ctx["catch_zone.start_diameter"], outer_diameter=ctx["rim.diameter"],
+                    face_z=ctx["rim.face_z"])
     else:
         chain = [v.point for v in reversed(corners)]  # numbered from the wall face, as a sketch is written
-        dims.update(start_diameter=2 * chain[0][1], outer_diameter=2 * max(r for _, r in chain))
+        dims.update(start_diameter=2 * chain[0][1], outer_diameter=2 * max(r for _, r in chain),
+                    face_z=max(z for z, _ in chain))
         for i, (z, r) in enumerate(chain):
             dims[f"point_{i}_z"] = z
             dims[f"point_{i}_diameter"] = 2 * r
-    return FeatureResult(NAME, dims, frozenset(derived), {"outer": tuple(corners)}, tuple(checks))
+        arc_key = f"{NAME}.catch_radius" if kind == "arc" else ""
+        for k, v in enumerate(corners):  # loop order: corner k is chain point n - 1 - k
+            i = len(corners) - 1 - k
+            labels.append((f"{NAME}.point_{i}",
+                           (f"{NAME}.points[{i}].arc_radius" if kind == "sketch" else arc_key) if v.sweep else ""))
+    return FeatureResult(NAME, dims, frozenset(derived), {"outer": tuple(corners)}, tuple(checks),
+                         {"labels": tuple(labels)})
