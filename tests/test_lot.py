@@ -114,9 +114,9 @@ def test_offset_moments_add_up_to_the_volume() -> None:
     # Green's theorem: π ∮ r² n_r ds over the whole loop is the volume (a whole half moved sideways by e moves
     # its mass centre by e); the chunks' sharp outlines miss only the fillets
     resolved = yodraft.build(yodraft.load(TEMPLATE))
-    from yodraft.features import LOOP_ORDER
+    from yodraft.builder import loop_chunks
 
-    total = sum(_chunk_moment(resolved, f, c) for f, c in LOOP_ORDER)
+    total = sum(_chunk_moment(resolved, f, c) for f, c in loop_chunks(resolved.features))
     volume = body_props(resolved.profile, 1.0).volume_mm3
     assert total == pytest.approx(volume, rel=0.02)
 

@@ -23,7 +23,7 @@ from .tolerances.general import general_tolerance_mm
 from .tolerances.stack import Link, Stack, stack
 from .tolerances.seat import SeatFit
 
-__all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material"]
+__all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material", "loop_chunks"]
 
 
 @dataclass(frozen=True)
@@ -186,6 +186,14 @@ class BuildMemo:
         return result, published
 
 
+def loop_chunks(results: Mapping[str, FeatureResult]) -> list[tuple[str, str]]:
+    """The (feature, chunk) pairs round the loop as built: a given outer shape stands in for the rim's and
+    catch zone's chunks, and empty chunks are left out."""
+    shaped = bool(results["shape"].chunks["outer"])
+    return [(f, c) for f, c in LOOP_ORDER
+            if results[f].chunks[c] and not (shaped and (f, c) in OUTER_CHUNKS)]
+
+
 def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
     """Resolve every feature of ``design`` in order, compose the half-profile and check it.
 
@@ -205,8 +213,7 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
             raise DesignInputError(design.source, f"features.{name}.{exc.key}", exc.problem, exc.expected) from None
         values.update(published)
     shaped = bool(results["shape"].chunks["outer"])  # a given outer shape replaces the rim's and catch zone's
-    order = [(f, c) for f, c in LOOP_ORDER if not (shaped and (f, c) in OUTER_CHUNKS)]
-    vertices = [v for feature, chunk in order for v in results[feature].chunks[chunk]]
+    vertices = [v for feature, chunk in loop_chunks(results) for v in results[feature].chunks[chunk]]
     seats = [s for r in results.values() for s in r.seats]
     vertices, seat_failures = cut_seats(vertices, seats)
     try:

@@ -37,7 +37,7 @@ import numpy as np
 
 from .analysis import analyse, part_props
 from .balance import permissible_specific_unbalance_mm
-from .builder import BuildMemo, Resolved, build
+from .builder import BuildMemo, Resolved, build, loop_chunks
 from .design import Design, with_values
 from .errors import DesignInputError
 from .features import FEATURES, LOOP_ORDER
@@ -247,7 +247,7 @@ def _joint_factor(effects: np.ndarray) -> np.ndarray:
 def _chunk_moment(resolved: Resolved, feature: str, chunk: str) -> float:
     """π ∫ r² n_r ds over a chunk's sharp-cornered outline up to the next chunk (mm³): the first moment a unit
     sideways offset of those surfaces adds, per unit density (divided by 1000 in g·mm per mm)."""
-    order = list(LOOP_ORDER)
+    order = loop_chunks(resolved.features)
     i = order.index((feature, chunk))
     nxt = order[(i + 1) % len(order)]
     pts = [v.point for v in resolved.features[feature].chunks[chunk]] + [resolved.features[nxt[0]].chunks[nxt[1]][0].point]
@@ -307,7 +307,8 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     rho0 = v["material.density_g_cm3"]
     # mass moved by a unit sideways offset of each setup's surfaces (g·mm per mm): the back of the half (rim
     # outer chunk: outer diameter, outer face, cup) and the gap side turned with the seat; the axle bore is datum A
-    w_rim = _chunk_moment(resolved, "rim", "outer") * rho0 / 1000
+    outer = ("shape", "outer") if resolved.features["shape"].chunks["outer"] else ("rim", "outer")
+    w_rim = _chunk_moment(resolved, *outer) * rho0 / 1000
     w_axle = _chunk_moment(resolved, "axle_bore", "bore") * rho0 / 1000
     w_seat = unit0[0] - w_rim - w_axle
     e_max = nominal.balance.runout_tolerance_mm / 2  # circular runout (TIR) is twice the offset
