@@ -297,3 +297,51 @@ def test_y_names_and_columns() -> None:
     assert parse_y("spin.rim_share, mass") == ["spin.rim_share", "mass.total_g"]
     with pytest.raises(DesignInputError):
         parse_y("mass,,izz")
+
+
+# ---------------------------------------------------------------- report with pictures
+def _image_links(markdown: str) -> dict[str, str]:
+    return dict(re.findall(r"!\[([^\]]+)\]\(([^)]+)\)", markdown))
+
+
+def test_report_links_the_pictures_build_wrote(tmp_path: Path) -> None:
+    a, b = _revised(tmp_path)
+    out = tmp_path / "out"
+    assert main(["build", str(b), "-o", str(out)]) == 0
+    report = out / "b.md"
+    assert main(["report", str(b), "-o", str(report), "--pictures", str(out), "--previous", str(a)]) == 0
+    links = _image_links(report.read_text(encoding="utf-8"))
+    assert set(links) == {"sheet preview", "assembly", "overlay with the previous revision"}
+    for link in links.values():
+        target = report.parent / link
+        assert target.is_file() and parse(target.read_bytes()) is not None
+    assert links["overlay with the previous revision"] == "larchmere-ls56-B-overlay-larchmere-ls56-A.svg"
+    text = report.read_text(encoding="utf-8")
+    assert "features.rim.width: 8 mm → 9 mm" in text and "rev A" in text
+    # a report elsewhere links the same pictures by a path relative to itself
+    elsewhere = tmp_path / "notes" / "b.md"
+    elsewhere.parent.mkdir()
+    assert main(["report", str(b), "-o", str(elsewhere), "--pictures", str(out)]) == 0
+    links = _image_links(elsewhere.read_text(encoding="utf-8"))
+    assert links == {"sheet preview": "../out/larchmere-ls56-B.svg", "assembly": "../out/larchmere-ls56-B-assembly.svg"}
+
+
+def test_report_says_which_pictures_are_not_built_yet(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["report", str(TEMPLATES / "string-trick.toml"), "--pictures", str(tmp_path), "--format", "json"]) == 0
+    import json
+
+    data = json.loads(capsys.readouterr().out)
+    assert [p["kind"] for p in data["pictures"]] == ["sheet preview", "assembly"]
+    assert not any(p["exists"] for p in data["pictures"])
+    assert main(["report", str(TEMPLATES / "string-trick.toml"), "--pictures", str(tmp_path)]) == 0
+    assert "is not there yet; `yodraft build` writes it" in capsys.readouterr().out
+
+
+def test_report_with_a_bad_previous_writes_nothing(tmp_path: Path) -> None:
+    a, b = _revised(tmp_path)
+    out = tmp_path / "out"
+    out.mkdir()
+    broken = tmp_path / "broken.toml"
+    broken.write_text("[design]\nname = 'x'\n[envelope]\ndiameter = '56'\n", encoding="utf-8")
+    assert main(["report", str(b), "-o", str(out / "b.md"), "--pictures", str(out), "--previous", str(broken)]) == 2
+    assert list(out.iterdir()) == []

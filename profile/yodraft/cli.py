@@ -82,6 +82,10 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("--format", choices=("md", "json"), default="md", help="Markdown (default) or JSON")
     p.add_argument("-o", "--output", help="write the report to this file instead of printing it")
+    p.add_argument("--pictures", metavar="DIR", default="out",
+                   help="folder where build wrote the sheet preview and assembly picture (default: out)")
+    p.add_argument("--previous", metavar="FILE",
+                   help="design file of the previous revision: the overlay with it is written into --pictures")
     p.set_defaults(run=_report)
     p = sub.add_parser("diff", help="what changed between two designs: inputs, derived values, checks")
     p.add_argument("a", help="old design file")
@@ -271,11 +275,57 @@ def _report(args: argparse.Namespace) -> int:
     from .design import load
     from .report import report_data, report_markdown
 
+    from .output import safe_stem
+    from .report import picture_links, previous_section
+
     resolved = build(load(args.design))
     data = report_data(resolved)
+    stem = safe_stem(resolved.design.name, resolved.design.revision)
+    pictures, report_dir = Path(args.pictures), Path(args.output).parent if args.output else Path(".")
+    overlay: tuple[Path, bytes] | None = None
+    if args.previous is not None:
+        overlay = _overlay_with_previous(args, resolved, pictures, stem)
+        data["previous"] = overlay[2]
+    data["pictures"] = picture_links(stem, pictures, report_dir, overlay[0].name if overlay else None)
     text = json.dumps(data, indent=2, ensure_ascii=False) + "\n" if args.format == "json" else report_markdown(data)
-    _write_or_print(text, args.output)
+    if overlay is None:
+        _write_or_print(text, args.output)
+    else:  # the overlay and the report as one step: both files or neither
+        from .output import write_files
+
+        files = {overlay[0]: overlay[1]}
+        if args.output is not None:
+            _check_picture_target(args.output, [args.design, args.previous])
+            files[Path(args.output)] = text.encode("utf-8")
+        write_files(files)
+        print(overlay[0], file=sys.stderr)
+        if args.output is None:
+            print(text, end="")
+        else:
+            print(args.output, file=sys.stderr)
     return 0 if resolved.ok else 1
+
+
+def _overlay_with_previous(args: argparse.Namespace, resolved: Any, pictures: Path, stem: str) -> Any:
+    """(path, SVG bytes, report section) of the overlay of the previous revision (A) with this one (B)."""
+    from .builder import build
+    from .design import load
+    from .diff import diff
+    from .output import safe_stem
+    from .pictures.overlay import overlay_svg
+    from .report import previous_section
+
+    if not pictures.is_dir():
+        raise DesignInputError(str(pictures), "", "is not a folder", "the folder build wrote into (--pictures)")
+    previous = build(load(args.previous))
+    for source, r in ((args.previous, previous), (args.design, resolved)):
+        if r.profile is None:
+            raise DesignInputError(source, "", "has no closed half-profile to draw",
+                                   "designs whose loops close (see 'yodraft check')")
+    target = pictures / f"{stem}-overlay-{safe_stem(previous.design.name, previous.design.revision)}.svg"
+    _check_picture_target(str(target), [args.design, args.previous] + ([args.output] if args.output else []))
+    d = diff(previous, resolved)
+    return target, overlay_svg(previous, resolved, d), previous_section(d)
 
 
 def _diff(args: argparse.Namespace) -> int:

@@ -7,7 +7,9 @@ are rendered as generic tables, so nothing in the summary is left out.
 """
 from __future__ import annotations
 
+import os
 from collections.abc import Mapping
+from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from .diff import flatten, unit_of
@@ -15,11 +17,12 @@ from .units import MM_PER_INCH
 
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
+    from .diff import DesignDiff
 
-__all__ = ["report_data", "report_markdown", "cautions"]
+__all__ = ["report_data", "report_markdown", "cautions", "picture_links", "previous_section"]
 
 _KNOWN = ("ok", "design", "revisions", "inputs", "envelope", "profile", "bearing", "bearing_seat", "material",
-          "features", "checks", "cautions")
+          "features", "checks", "cautions", "pictures", "previous")
 
 
 def _written_inputs(raw: Mapping[str, Any]) -> dict[str, Any]:
@@ -68,6 +71,41 @@ def report_data(resolved: "Resolved") -> dict[str, Any]:
     return data
 
 
+def picture_links(stem: str, pictures_dir: Path, report_dir: Path, overlay: str | None = None) -> list[dict[str, Any]]:
+    """The pictures the report shows: the sheet preview and the assembly picture that ``build`` writes into
+    ``pictures_dir``, and the overlay with the previous revision when there is one, each with its path
+    relative to the report's folder and whether it is there yet."""
+    items = [("sheet preview", f"{stem}.svg"), ("assembly", f"{stem}-assembly.svg")]
+    if overlay is not None:
+        items.append(("overlay with the previous revision", overlay))
+    out = []
+    for kind, name in items:
+        target = pictures_dir / name
+        link = Path(os.path.relpath(target.resolve(), report_dir.resolve())).as_posix()
+        out.append({"kind": kind, "path": link, "exists": name == overlay or target.is_file()})
+    return out
+
+
+def previous_section(d: "DesignDiff") -> dict[str, Any]:
+    """What the report says about the previous revision: which design it is and what changed since."""
+    return {"name": d.a["name"], "revision": d.a["revision"], "source": d.a["source"],
+            "changes": [f"{c.key}: {c.old} → {c.new}" for c in d.inputs if c.key not in ("design.revision", "revisions")]}
+
+
+def _picture_lines(data: Mapping[str, Any]) -> list[str]:
+    lines = ["## Pictures", ""]
+    for item in data["pictures"]:
+        if item["exists"]:
+            lines += [f"![{item['kind']}]({item['path']})", "", f"*{item['kind']}* — [{item['path']}]({item['path']})", ""]
+        else:
+            lines += [f"*{item['kind']}*: `{item['path']}` is not there yet; `yodraft build` writes it", ""]
+    previous = data.get("previous")
+    if previous:
+        lines += [f"Previous revision: {previous['name']} rev {previous['revision']} (`{previous['source']}`); "
+                  f"inputs changed since: " + ("; ".join(_cell(c) for c in previous["changes"]) or "none"), ""]
+    return lines
+
+
 def _cell(value: Any, unit: str = "") -> str:
     if isinstance(value, bool):
         return "yes" if value else "no"
@@ -98,6 +136,8 @@ def report_markdown(data: Mapping[str, Any]) -> str:
     passed = sum(c["ok"] for c in data["checks"])
     lines = [title, "", f"Design file: `{d['source']}` · checks: {passed} of {len(data['checks'])} passed"
              f" · {'ready to draw' if data['ok'] else 'NOT ready: a check failed'}", ""]
+    if data.get("pictures"):
+        lines += _picture_lines(data)
     lines += ["## Revisions", ""]
     lines += _table(("rev", "date", "note"), [(r["letter"], r["date"], _cell(r["note"])) for r in data["revisions"]]) \
         if data["revisions"] else ["(no revision history)", ""]
