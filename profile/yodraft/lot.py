@@ -61,7 +61,7 @@ FALLBACK_COATING_SHARE = 0.2
 #: ± share of the catalog density a bar of wrought alloy may differ by  # common practice, no published source
 DENSITY_SPREAD = 0.005
 #: halves rebuilt exactly to measure the linearisation error
-EXACT_SAMPLE = 64
+EXACT_SAMPLE = 48
 #: halves drawn per block (the draws depend on the block size, so it is fixed)
 BLOCK = 1 << 15
 #: feature keys that are assembled sizes: a half is dimensioned with half of each
@@ -269,18 +269,16 @@ def pair_by_mass(mass: np.ndarray, window: float, eligible: np.ndarray) -> tuple
     ([0, 2], [1, 3])
     """
     idx = np.flatnonzero(eligible)
-    order = idx[np.argsort(mass[idx])]
+    order = idx[np.argsort(mass[idx])] if len(idx) < len(mass) else np.argsort(mass)
     m = mass[order]
     if len(m) < 2:
         return np.zeros(0, np.int64), np.zeros(0, np.int64)
-    linked = np.diff(m) <= window
-    start = np.concatenate(([True], ~linked))  # a run starts where the step from the previous half is too big
+    linked = np.diff(m) <= window  # linked[i]: half i and i + 1 (in mass order) may pair
+    start = np.empty(len(m), bool)
+    start[0], start[1:] = True, ~linked  # a run starts where the step from the previous half is too big
     run_start = np.maximum.accumulate(np.where(start, np.arange(len(m)), 0))
-    pos = np.arange(len(m)) - run_start
-    run_id = np.cumsum(start) - 1
-    run_len = np.bincount(run_id)[run_id]
-    first = (pos % 2 == 0) & (pos + 1 < run_len)
-    lead = np.flatnonzero(first)
+    even = ((np.arange(len(m) - 1) - run_start[:-1]) & 1) == 0
+    lead = np.flatnonzero(even & linked)  # the 1st, 3rd … half of a run pairs with the next one in it
     return order[lead], order[lead + 1]
 
 
