@@ -186,3 +186,21 @@ def test_refuses_to_write_over_the_design(tmp_path: Path, capsys: pytest.Capture
     assert main(["lot", str(design), "--csv", str(tmp_path / "." / "d.toml")]) == 2
     assert "is the design file" in capsys.readouterr().err
     assert design.read_bytes() == TEMPLATE.read_bytes()
+
+
+def test_a_sketched_shape_draws_its_own_sizes() -> None:
+    design = yodraft.load(ROOT / "templates" / "sketched.toml")
+    resolved = yodraft.build(design)
+    dims, _, _ = lot_bands(resolved)
+    keys = {b.key for b in dims}
+    assert {"features.shape.points[1].arc_radius", "features.shape.points[4].z"} <= keys
+    # every size pinned at its nominal rebuilds the same half
+    from yodraft.lot import _pinned, _unit_props
+
+    pinned = _unit_props(_pinned(design, {b.key: b.nominal for b in dims}))
+    assert pinned[0] == pytest.approx(yodraft.analyse(resolved).half.mass_g, rel=1e-12)
+    arc = next(b for b in dims if b.key == "features.shape.points[1].arc_radius")
+    assert arc.half == 1.0  # ISO 2768-1 Table 2, radius over 6 mm, class m
+    lot = lot_summary(run_lot(design, units=20_000, seed=4, exact_sample=16))
+    assert lot["linearisation_error"]["mass_max_relative"] < 5e-3
+    assert lot["half_mass_g"]["mean"] == pytest.approx(pinned[0], rel=2e-3)

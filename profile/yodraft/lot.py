@@ -30,7 +30,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Mapping, Sequence
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Any
 
 import numpy as np
@@ -176,6 +176,18 @@ def _dimension_bands(resolved: Resolved) -> tuple[list[Band], list[str]]:
                     continue
                 bands.append(Band(key, value, 0.0, tol * (2 if short in _ASSEMBLED else 1),
                                   f"{cls} {'radii' if radius else 'linear sizes'}"))
+    for i, point in enumerate(resolved.design.features.get("shape", {}).get("points") or ()):
+        for name in ("z", "r", "radius", "arc_radius"):  # a sketch's own sizes, each from its anchor
+            value = point.get(name)
+            if not isinstance(value, float) or value == 0.0:
+                continue  # on its anchor, or no radius
+            key = f"features.shape.points[{i}].{name}"
+            radius = name != "z" and name != "r"
+            tol = radius_tolerance_mm(cls, value) if radius else general_tolerance_mm(cls, abs(value))
+            if tol is None:
+                skipped.append(key)
+                continue
+            bands.append(Band(key, value, 0.0, tol, f"{cls} {'radii' if radius else 'linear sizes'}"))
     return bands, skipped
 
 
@@ -203,8 +215,20 @@ def lot_bands(resolved: Resolved) -> tuple[tuple[Band, ...], tuple[Band, ...], t
 
 
 def _pinned(design: Design, values: Mapping[str, float]) -> Design:
-    """The design with each ``features.<feature>.<param>`` key set to a value (mm, rad)."""
-    return with_values(design, [(key, float(value)) for key, value in values.items()])
+    """The design with each key set to a value (mm, rad): ``features.<feature>.<param>`` keys, and the sizes of
+    a sketch's points as ``features.shape.points[i].<size>``."""
+    plain = [(key, float(value)) for key, value in values.items() if "[" not in key]
+    pinned = with_values(design, plain)
+    sketched = [(key, value) for key, value in values.items() if "[" in key]
+    if not sketched:
+        return pinned
+    points = [dict(point) for point in design.features["shape"]["points"]]
+    for key, value in sketched:
+        index, name = key.removeprefix("features.shape.points[").split("].")
+        points[int(index)][name] = float(value)
+    features = dict(pinned.features)
+    features["shape"] = {**features["shape"], "points": points}
+    return replace(pinned, features=features)
 
 
 def _unit_props(design: Design, memo: BuildMemo | None = None) -> tuple[float, float] | None:
