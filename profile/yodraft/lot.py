@@ -114,12 +114,18 @@ def _gap_tolerance(resolved: Resolved) -> tuple[float, str]:
 
 
 def _coating_band(resolved: Resolved) -> tuple[float, float, str]:
-    """(middle offset from nominal, ±, basis) of the coating thickness in mm."""
+    """(middle offset from ``shop.coating_thickness``, ±, basis) of the coating thickness in mm.
+
+    The range runs from ``coating_thickness`` (its thin end) to ``coating_thickness_max``; the finished seat
+    sizes are those at the middle of the range.
+    """
     shop = resolved.design["shop"]
     t0 = shop["coating_thickness"]
-    low, high = shop.get("coating_thickness_min"), shop.get("coating_thickness_max")
-    if isinstance(low, float) and isinstance(high, float) and high >= low:
-        return (low + high) / 2 - t0, (high - low) / 2, "shop.coating_thickness_min/max"
+    if "coating_thickness_max" in shop:
+        thick = shop["coating_thickness_max"]
+        if thick is None or not thick > t0:
+            return 0.0, 0.0, "shop.coating_thickness (no range given)"
+        return (thick - t0) / 2, (thick - t0) / 2, "shop.coating_thickness to shop.coating_thickness_max"
     return 0.0, FALLBACK_COATING_SHARE * t0, f"±{FALLBACK_COATING_SHARE:.0%} of the thickness, common practice"
 
 
@@ -354,6 +360,7 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     # as the one two-dimensional normal it is (exactly the same distribution, 2 draws a half instead of many)
     joint = _joint_factor(sens[:, rest] * scale[rest]) if distribution == "normal" else None
     rows = seat + list(range(n_dims, n_dims + 5))  # post, wall, offset, bore, od, width, coating, density
+    coat_mid = centre[n_dims + 3]
     n_draw = len(rows) + 4 + (2 if joint is not None else len(rest))
     post_nom = v["bearing_seat.post_diameter"]
     wall_nom = v["bearing_seat.wall_bore"]
@@ -379,7 +386,7 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
                 mass_u += (sens[0, k] * scale[k]) * row
                 izz_u += (sens[1, k] * scale[k]) * row
         rho = 1.0 + rho_d / rho0  # the half's density against the catalog's
-        growth = growth_per_mm * coat_d
+        growth = growth_per_mm * (coat_d - coat_mid)  # against the middle of the range the sizes are for
         s = slice(start, start + n)
         half["mass_g"][s] = rho * mass_u
         half["izz_g_mm2"][s] = rho * izz_u
