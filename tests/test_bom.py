@@ -86,3 +86,11 @@ def test_report_carries_the_bill() -> None:
     assert data["bom"] == bom_data(bill_of_materials(yodraft.build(yodraft.load(TEMPLATE))))
     text = report_markdown(data)
     assert "## Bill of materials and stock" in text and "ISO 4026 M4x0.7 × 16" in text
+
+
+def test_an_inch_axle_thread_has_no_iso_4026_size(string_trick_text: str) -> None:
+    text = string_trick_text.replace('thread = "M4x0.7"', 'thread = "10-32 UNF"')
+    bom = bill_of_materials(yodraft.build(yodraft.design.loads(text, "x.toml")), 10, lot_halves=200)
+    assert bom.axle.length_mm is None
+    axle = next(i for i in bom.items if i.name == "axle")
+    assert "inch thread" in axle.description and "ISO 4026" in axle.description

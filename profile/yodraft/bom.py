@@ -140,10 +140,7 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
                                   f"{v['bearing.width']:.4f} mm), class {v['bearing.precision']}"),
         BomItem("response pad", 2 * units, f"{pad.name} pad class: Ø{pad.pad_diameter_mm:g} mm outside, "
                                            f"Ø{v['pad_groove.inner_diameter']:g} mm inside, {v['pad_groove.depth']:g} mm thick"),
-        BomItem("axle", units, (f"set screw {STANDARD} {axle.thread} × {axle.length_mm:g}, flat point"
-                                if axle.length_mm is not None else
-                                f"set screw {axle.thread}: no {STANDARD} length fits; needs "
-                                f"{axle.least_mm:.1f} to {axle.most_mm:.1f} mm")),
+        BomItem("axle", units, _axle_text(axle)),
     ]
     if halves is not None:
         total_m = halves * stock.length_mm / 1000
@@ -151,6 +148,15 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
         items.append(BomItem("bar stock", halves, f"{bar} {stock.material} round bar, {halves} pieces of "
                                                   f"{stock.length_mm:.1f} mm: {total_m:.2f} m{mass}"))
     return Bom(units, tuple(items), stock, axle, halves, good_per_half, lot_halves, lot_seed)
+
+
+def _axle_text(axle: SetScrew) -> str:
+    if axle.length_mm is not None:
+        return f"set screw {STANDARD} {axle.thread} × {axle.length_mm:g}, flat point"
+    need = f"needs {axle.least_mm:.1f} to {axle.most_mm:.1f} mm"
+    if not axle.lengths_mm:
+        return f"set screw {axle.thread}: an inch thread, not an {STANDARD} size; {need}"
+    return f"set screw {axle.thread}: no {STANDARD} length fits; {need}"
 
 
 def bom_data(bom: Bom) -> dict[str, Any]:
