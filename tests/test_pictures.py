@@ -345,3 +345,15 @@ def test_report_with_a_bad_previous_writes_nothing(tmp_path: Path) -> None:
     broken.write_text("[design]\nname = 'x'\n[envelope]\ndiameter = '56'\n", encoding="utf-8")
     assert main(["report", str(b), "-o", str(out / "b.md"), "--pictures", str(out), "--previous", str(broken)]) == 2
     assert list(out.iterdir()) == []
+
+
+def test_heat_map_rises_whichever_way_the_sweep_ran(tmp_path: Path) -> None:
+    def cells(first: str, second: str) -> list[str]:
+        plot = tmp_path / "h.svg"
+        assert main(["sweep", str(TEMPLATES / "string-trick.toml"), "--vary", first, "--vary", second,
+                     "-o", str(tmp_path / "h.csv"), "--plot", str(plot), "--y", "mass"]) == 0
+        root = parse(plot.read_bytes())
+        return [f"{r.get('x')},{r.get('y')},{r.get('fill')}" for r in root.iter(f"{SVG}rect") if r.get("stroke") is None]
+
+    assert cells("rim.thickness=3mm:4mm:3", "catch_zone.land=1mm:2mm:2") == \
+        cells("rim.thickness=4mm:3mm:3", "catch_zone.land=2mm:1mm:2")

@@ -273,10 +273,8 @@ def _new(args: argparse.Namespace) -> int:
 def _report(args: argparse.Namespace) -> int:
     from .builder import build
     from .design import load
-    from .report import report_data, report_markdown
-
     from .output import safe_stem
-    from .report import picture_links, previous_section
+    from .report import picture_links, report_data, report_markdown
 
     resolved = build(load(args.design))
     data = report_data(resolved)

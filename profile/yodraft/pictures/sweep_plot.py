@@ -227,14 +227,17 @@ def _heat_map(page: Page, result: "SweepResult", key: str, target: float | None,
     nx, ny = ax.count, ay.count
     grid: list[list[float | None]] = [[None] * ny for _ in range(nx)]
     failed: list[tuple[int, int]] = []
+    # both axes drawn rising, whichever way the sweep ran
+    flip_x, flip_y = ax.stop < ax.start, ay.stop < ay.start
     for v in result.variants:
         i, j = divmod(v.index, ny)
+        i, j = (nx - 1 - i if flip_x else i), (ny - 1 - j if flip_y else j)
         grid[i][j] = v.outputs.get(key)
         if not v.ok:
             failed.append((i, j))
     values = [x for col in grid for x in col if x is not None]
     lo, hi = min(values), max(values)
-    xv, yv = [ax.shown(x) for x in ax.values()], [ay.shown(y) for y in ay.values()]
+    xv, yv = sorted(ax.shown(x) for x in ax.values()), sorted(ay.shown(y) for y in ay.values())
     # each cell spans half way to its neighbours; the frame spans the outer cells' edges
     def edges(vals: list[float]) -> list[float]:
         mids = [(a + b) / 2 for a, b in zip(vals, vals[1:])]
