@@ -131,3 +131,33 @@ def test_stack_is_consistent(bore: float, od_extra: float, bore_lower: float, od
         assert fit.post.clearance_min_mm == pytest.approx(clearance, abs=1e-9)
     assert fit.wall.clearance_min_mm == pytest.approx(clearance, abs=1e-9)
     assert fit.post.precoat_mm == pytest.approx(fit.post.nominal_mm - growth)
+
+
+def test_coating_scatter_widens_the_finished_size() -> None:
+    # Type II anodise 0.0002–0.001 in thick (the thickness range of a Type II coating, from memory), half outward:
+    # the diameter grows 0.0002 to 0.001 in (2 × thickness × share; common practice, no published source)
+    thin, thick = coating_growth_mm(0.0002 * IN, 0.5), coating_growth_mm(0.001 * IN, 0.5)
+    fit = size_seat(_size_c(coating_growth_mm=thin, coating_growth_max_mm=thick))
+    post = fit.post
+    # finished ± = machine 0.0002 + half the growth scatter 0.0004 = 0.0006 in; turned ± stays 0.0002 in
+    assert post.tolerance_mm / IN == pytest.approx(0.0006, abs=1e-9)
+    assert post.turn_tolerance_mm / IN == pytest.approx(0.0002, abs=1e-9)
+    # the thickest coating on the largest turned post still leaves the wanted 0.0005 in to the smallest bore
+    assert post.clearance_min_mm / IN == pytest.approx(0.0005, abs=1e-9)
+    assert (post.precoat_mm + post.turn_tolerance_mm + thick) / IN == pytest.approx(0.2499 - 0.0005, abs=1e-9)
+    assert fit.wall.clearance_min_mm / IN == pytest.approx(0.0005, abs=1e-9)
+
+
+def test_the_thick_end_can_make_an_explicit_post_interfere() -> None:
+    # post 0.2493 in finished at the mid growth: with no scatter it slides (bore min 0.2499 − 0.2495 = +0.0004 in)
+    thin, thick = coating_growth_mm(0.0002 * IN, 0.5), coating_growth_mm(0.001 * IN, 0.5)
+    plain = size_seat(_size_c(post_diameter_mm=0.2493 * IN))
+    assert plain.post.clearance_min_mm / IN == pytest.approx(0.0004, abs=1e-9)
+    # post 0.2495 in with the 0.0002–0.001 in growth: finished ±0.0006 in, so up to 0.2501 in against bore min 0.2499
+    scattered = size_seat(_size_c(post_diameter_mm=0.2495 * IN, coating_growth_mm=thin, coating_growth_max_mm=thick))
+    assert scattered.post.clearance_min_mm / IN == pytest.approx(-0.0002, abs=1e-9)
+
+
+def test_thick_end_below_thin_end_is_refused() -> None:
+    with pytest.raises(ValueError):
+        _size_c(coating_growth_mm=0.02, coating_growth_max_mm=0.01)

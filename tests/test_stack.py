@@ -96,3 +96,15 @@ def test_posts_that_could_meet_fail(string_trick_text: str) -> None:
     text = set_in(string_trick_text, "features.bearing_seat", "spacing", "0.05 mm")
     r = yodraft.build(yodraft.loads(text))
     assert "posts stay apart" in [c.name for c in r.failed]
+
+
+def test_the_thickest_coating_fails_the_fit_check(string_trick_text: str) -> None:
+    # the template's post (finished, at the mid growth), given explicitly: it slides with a 0.0002–0.001 in coating;
+    # with a 0.003 in thick end its finished ± grows by half the extra scatter, 0.001 in, and it presses the bearing
+    base = yodraft.build(yodraft.loads(string_trick_text))
+    post = f'{base["bearing_seat.post_diameter"]:.5f} mm'
+    text = set_in(string_trick_text, "features.bearing_seat", "post_diameter", post)
+    assert yodraft.build(yodraft.loads(text)).ok
+    thick = set_in(text, "shop", "coating_thickness_max", "0.003 in")
+    failed = [c for c in yodraft.build(yodraft.loads(thick)).failed]
+    assert [c.name for c in failed] == ["post slides into the bearing"] and "thickest coating" in failed[0].message

@@ -74,6 +74,7 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
                                "bore, od and width together, or a size alone")
     if explicit:
         designation, bore, od, width, mass, inch = "custom", b["bore"], b["od"], b["width"], 0.0, False
+        chamfer = 0.0  # unknown: the post/seat-face corner is drawn for a sharp-edged ring
         if not bore < od:
             raise DesignInputError(design.source, "bearing.od", "is not larger than the bore", "od above bore")
     else:
@@ -83,6 +84,7 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
             check_unknown({b["size"]: None}, list(LETTER_SIZES) + list(BEARINGS), design.source, "bearing.size", "bearing")
             raise
         designation, bore, od, width, mass, inch = row.designation, row.bore_mm, row.od_mm, row.width_mm, row.mass_g, row.inch
+        chamfer = row.chamfer_mm
     if b["mass"] is not None:
         mass = b["mass"]
     try:
@@ -101,7 +103,7 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
     return {"bearing.designation": designation, "bearing.bore": bore, "bearing.od": od, "bearing.width": width,
             "bearing.mass": mass, "bearing.inch": inch, "bearing.precision": b["precision"],
             "bearing.bore_deviation_um": bore_dev, "bearing.od_deviation_um": od_dev,
-            "bearing.width_deviation_um": width_dev}
+            "bearing.width_deviation_um": width_dev, "bearing.chamfer": chamfer}
 
 
 def resolve_material(design: Design) -> dict[str, Any]:
@@ -113,7 +115,8 @@ def resolve_material(design: Design) -> dict[str, Any]:
         check_unknown({name: None}, list(MATERIALS), design.source, "design.material", "material")
         raise
     density = design["design"]["density"] or m.density_g_cm3
-    return {"material.name": m.name, "material.density_g_cm3": density,
+    return {"material.name": m.name, "material.designation": m.designation,
+            "material.designation_source": m.designation_source, "material.density_g_cm3": density,
             "material.engagement_factor": m.engagement_factor, "material.source": m.source}
 
 

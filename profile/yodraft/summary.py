@@ -7,7 +7,7 @@ from typing import Any
 from .analysis import analyse
 from .builder import Resolved
 
-__all__ = ["summary", "resolved_dimensions"]
+__all__ = ["summary", "resolved_dimensions", "back_wall_mm"]
 
 
 def resolved_dimensions(resolved: Resolved) -> dict[str, dict[str, Any]]:
@@ -47,7 +47,7 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
                     "width_mm": v["bearing.width"], "precision": v["bearing.precision"],
                     "bore_deviation_um": list(v["bearing.bore_deviation_um"]),
                     "od_deviation_um": list(v["bearing.od_deviation_um"]),
-                    "width_deviation_um": list(v["bearing.width_deviation_um"])},
+                    "width_deviation_um": list(v["bearing.width_deviation_um"]), "chamfer_mm": v["bearing.chamfer"]},
         "bearing_seat": {
             "post_diameter_mm": fit.post.nominal_mm, "post_tolerance_mm": fit.post.tolerance_mm,
             "post_precoat_diameter_mm": fit.post.precoat_mm,
@@ -58,16 +58,37 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
             "clearance_rss_min_mm": fit.post.rss_min_mm, "clearance_rss_max_mm": fit.post.rss_max_mm,
             "wall_clearance_rss_min_mm": fit.wall.rss_min_mm, "wall_clearance_rss_max_mm": fit.wall.rss_max_mm,
             "post_p_no_slide": fit.post.p_no_slide, "wall_p_no_slide": fit.wall.p_no_slide,
+            "post_turn_tolerance_mm": fit.post.turn_tolerance_mm, "wall_turn_tolerance_mm": fit.wall.turn_tolerance_mm,
             "coating_growth_mm": fit.post.nominal_mm - fit.post.precoat_mm,
+            "coating_growth_range_mm": list(resolved.features["bearing_seat"].extra["coating_growth"]),
             "masked": bool(d["shop"]["mask_seat"]),
             **_axial(resolved),
         },
-        "material": {"name": v["material.name"], "density_g_cm3": v["material.density_g_cm3"]},
+        "material": {"name": v["material.name"], "designation": v["material.designation"],
+                     "designation_source": v["material.designation_source"],
+                     "density_g_cm3": v["material.density_g_cm3"]},
+        "axle_bore": _hole(resolved),
         "shape": _shape_section(resolved),
         **(_mass_sections(resolved) if resolved.can_analyse else {}),
         **({"features": resolved_dimensions(resolved),
             "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
     }
+
+
+def back_wall_mm(resolved: Resolved) -> float:
+    """Metal left on the axis between the tap drill's point and the hub face (or cup floor) behind it."""
+    v = resolved.values
+    behind = v["rim.flat_z"] + (v["rim.hub_height"] if v["rim.hub_diameter"] > 0 and v["rim.hub_height"] > 0 else 0.0)
+    return behind - v["axle_bore.tip_z"]
+
+
+def _hole(resolved: Resolved) -> dict[str, Any]:
+    """The tapped axle hole as the shop makes it: thread, full-thread depth, tap drill and its depth, wall behind."""
+    v = resolved.values
+    return {"thread": f"{v['axle_bore.thread']}-{v['axle_bore.tolerance_class']}",
+            "thread_depth_mm": v["axle_bore.thread_depth"], "tap_drill_mm": v["axle_bore.tap_drill"],
+            "drill_depth_mm": v["axle_bore.drill_depth"], "drill_point_mm": v["axle_bore.tip_z"] - v["axle_bore.bottom_z"],
+            "back_wall_mm": back_wall_mm(resolved), "min_wall_mm": resolved.design["shop"]["min_wall"]}
 
 
 def _axial(resolved: Resolved) -> dict[str, Any]:

@@ -47,7 +47,7 @@ def check_text(resolved: Resolved) -> str:
     masked = d["shop"]["mask_seat"] or d["shop"]["coating"] == "none"
     lines.append("bearing seat fit (finished sizes" + ("; seat masked or uncoated)" if masked else ")"))
     for label, part in (("post", fit.post), ("wall bore", fit.wall)):
-        precoat = "" if masked else f"turn to Ø{part.precoat_mm:.4f} before coating  "
+        precoat = "" if masked else f"turn to Ø{part.precoat_mm:.4f} ± {part.turn_tolerance_mm:.4f} before coating  "
         lines.append(f"  {label:<10} Ø{part.nominal_mm:.4f} ± {part.tolerance_mm:.4f} mm "
                      f"[{part.nominal_mm / MM_PER_INCH:.4f} ± {part.tolerance_mm / MM_PER_INCH:.4f} in]  {precoat}"
                      f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm worst case, "

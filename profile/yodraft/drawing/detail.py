@@ -13,8 +13,8 @@ from ..geometry import Arc, Line
 from .clip import clip_segments
 from .dimensions import DIA, Annotator
 from .locate import corner, on_face, on_radius
+from .numbers import tolerance_text as deviations
 from .section import HATCH_SPACING
-from ..units import MM_PER_INCH as IN
 
 __all__ = ["DETAIL_BLOCK", "detail_region", "detail_scale", "build_detail", "tolerance_text", "detail_lanes"]
 
@@ -41,11 +41,8 @@ def detail_scale(region: tuple[float, float, float, float], width: float, height
 
 
 def tolerance_text(nominal_mm: float, tol_mm: float, inch: bool) -> str:
-    """Dimension text for a toleranced diameter: measured nominal, ± deviation, inch in brackets."""
-    text = f"{DIA}<> ±{tol_mm:.5f}"
-    if inch:
-        text += f"\\P[{nominal_mm / IN:.5f} ±{tol_mm / IN:.5f} in]"
-    return text
+    """Dimension text for a toleranced diameter: measured nominal to the µm, deviations, inch in brackets."""
+    return f"{DIA}<> " + deviations(nominal_mm, tol_mm, inch).replace("\n", "\\P")
 
 
 def build_detail(doc: Drawing, resolved: Resolved, scale: float) -> tuple[float, float, float, float]:
@@ -113,7 +110,7 @@ def _dimension(block, resolved: Resolved, scale: float) -> None:  # type: ignore
                                                                              "dimtm": fit.wall.tolerance_mm}),
     ]
     for (keys, at, text, extra), x in zip(lanes, detail_lanes(resolved, scale)):
-        an.half_diameter(keys, at, x, text=text, extra={"dimdec": 5, **extra},
+        an.half_diameter(keys, at, x, text=text, extra={"dimdec": 3, **extra},
                          text_r=at[1] / 2 if extra else None)
     # groove depths inside their grooves
     seat_z = v["bearing_seat.seat_face_z"]

@@ -3,10 +3,16 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from ..builder import Resolved
-from ..units import MM_PER_INCH as IN
+import math
 
-__all__ = ["SheetData", "fit_lines", "shop_lines", "caution_lines", "IN"]
+from ..builder import Resolved
+from ..summary import back_wall_mm
+from ..tolerances.seat import DiameterFit
+from ..units import MM_PER_INCH as IN
+from .numbers import deviation_text, limits_um, size_text
+
+__all__ = ["SheetData", "fit_lines", "shop_lines", "caution_lines", "numbered", "seat_corner_passing_mm",
+           "thread_designation", "IN"]
 
 
 @dataclass(frozen=True)
@@ -24,54 +30,104 @@ class SheetData:
     spin_rate_rpm: float
 
 
-def _mm_in(value_mm: float, digits_mm: int = 5, digits_in: int = 5) -> str:
-    return f"{value_mm:.{digits_mm}f} mm [{value_mm / IN:.{digits_in}f} in]"
+def _limits(f: DiameterFit, inch: bool) -> str:
+    """A finished diameter to the µm: basic size, deviations and its two limits (inch in brackets)."""
+    basic, upper, lower = limits_um(f.nominal_mm, f.tolerance_mm)
+    text = f"Ø{size_text(basic)} {deviation_text(upper, lower)}"
+    if inch:
+        text += f" [{f.nominal_mm / IN:.5f} ±{f.tolerance_mm / IN:.5f} in]"
+    return text
+
+
+def seat_corner_passing_mm(resolved: Resolved) -> float:
+    """The most passing (a fillet left in the corner) the post/seat-face corner may carry: half the
+    inner ring's smallest chamfer, to 0.01 mm, and 0 for a ring of unknown chamfer."""
+    return math.floor(resolved["bearing.chamfer"] / 2 * 100 + 1e-9) / 100
+
+
+def thread_designation(resolved: Resolved) -> str:
+    """The axle thread with its tolerance class and full-thread depth, e.g. ``M4×0.7-6H ↧8``."""
+    d = resolved.features["axle_bore"].dims
+    return f"{str(d['thread']).replace('x', '×')}-{d['tolerance_class']} ↧{d['thread_depth']:g}"
+
+
+def numbered(groups: list[tuple[str, list[str]]]) -> list[tuple[str, list[str]]]:
+    """The note groups with every note numbered on through the groups ("1. …"), so a shop can cite "note 4";
+    a line starting with spaces continues the note above it.
+
+    >>> numbered([("Fits", ["Post", "   clearance"]), ("Shop", ["Finish"])])
+    [('Fits', ['1. Post', '   clearance']), ('Shop', ['2. Finish'])]
+    """
+    n = 0
+    out = []
+    for title, lines in groups:
+        body = []
+        for line in lines:
+            if line.startswith(" "):
+                body.append(line)
+            else:
+                n += 1
+                body.append(f"{n}. {line}")
+        out.append((title, body))
+    return out
 
 
 def fit_lines(resolved: Resolved) -> list[str]:
-    """Each seat fit: limits in mm and inch, worst-case and statistical clearance."""
+    """Each seat fit to the µm (inch in brackets for an inch bearing) with its clearance; the bearing; the gap."""
     fit = resolved.seat_fit
     v = resolved.values
+    inch = bool(v["bearing.inch"])
     out = []
-    for label, f, race in (("Post", fit.post, "bearing bore"), ("Wall bore", fit.wall, "bearing OD")):
-        out.append(f"{label} Ø max {_mm_in(f.max_mm)}, min {_mm_in(f.min_mm)}")
-        out.append(f"   clearance to {race} {f.clearance_min_mm * 1000:.1f}…{f.clearance_max_mm * 1000:.1f} µm "
-                   f"worst case, {f.rss_min_mm * 1000:.1f}…{f.rss_max_mm * 1000:.1f} µm RSS")
+    for label, f in (("Post", fit.post), ("Wall bore", fit.wall)):
+        out.append(f"{label} {_limits(f, inch)}: clearance {f.clearance_min_mm * 1000:.1f}…"
+                   f"{f.clearance_max_mm * 1000:.1f} µm (RSS {f.rss_min_mm * 1000:.1f}…{f.rss_max_mm * 1000:.1f})")
+    dims = f"{size_text(v['bearing.bore'])} × {size_text(v['bearing.od'])} × {size_text(v['bearing.width'])}"
+    if inch:
+        dims += f" [{v['bearing.bore'] / IN:.4f} × {v['bearing.od'] / IN:.4f} × {v['bearing.width'] / IN:.4f} in]"
+    out.append(f"Bearing {v['bearing.designation']} {v['bearing.precision']}, {dims}")
     gap = resolved.features["bearing_seat"].extra["gap_stack"]
-    out.append(f"Gap {v['bearing_seat.gap']:.3f} ±{v['bearing_seat.gap_tolerance']:.3f} from the halves (wall offset "
-               f"±{v['bearing_seat.wall_offset_tolerance']:.3f}, post length ±{v['bearing_seat.post_length_tolerance']:.3f} "
-               f"from the seat face); with bearing width: {gap.worst_min_mm:.3f}…{gap.worst_max_mm:.3f} worst case, "
-               f"{gap.rss_min_mm:.3f}…{gap.rss_max_mm:.3f} RSS")
-    out.append(f"Bearing {v['bearing.designation']} {v['bearing.precision']}: bore Ø{v['bearing.bore']:.4f}, "
-               f"OD Ø{v['bearing.od']:.4f}, width {v['bearing.width']:.4f} mm")
+    out.append(f"Gap {size_text(v['bearing_seat.gap'])} ±{size_text(v['bearing_seat.gap_tolerance'])} from the halves; "
+               f"with bearing width {size_text(gap.worst_min_mm)}…{size_text(gap.worst_max_mm)} "
+               f"(RSS {size_text(gap.rss_min_mm)}…{size_text(gap.rss_max_mm)})")
     return out
 
 
 def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
-    """Coating, edge breaks, seat finish, thread and runout basis."""
+    """Coating, edges, the axle hole, seat finish, runout basis and general tolerance."""
     shop = resolved.design["shop"]
     fit = resolved.seat_fit
     out = []
+    if resolved["material.designation"] and resolved["material.designation"] != resolved["material.name"]:
+        standard = resolved["material.designation_source"].split(" (")[0].split(";")[0]
+        out.append(f"Material {resolved['material.name']} = {resolved['material.designation']} ({standard})")
+    thin = shop["coating_thickness"]
+    thick = shop["coating_thickness_max"] if shop["coating_thickness_max"] is not None else thin
+    thickness = (f"{thin * 1000:.1f}…{thick * 1000:.1f} µm [{thin / IN:.4f}…{thick / IN:.4f} in]" if thick > thin
+                 else f"{thin * 1000:.1f} µm")
     if shop["coating"] == "none":
-        out.append("Finish: none. Seat sizes are finished sizes.")
+        out.append("Finish: none; seat sizes are finished sizes")
     elif shop["mask_seat"]:
-        out.append(f"Finish: {shop['coating']}, {shop['coating_thickness'] * 1000:.1f} µm. MASK post, seat face and "
-                   "wall bore; seat sizes are finished sizes.")
+        out.append(f"Finish: {shop['coating']} {thickness}; MASK post, seat face and wall bore")
     else:
-        out.append(f"Finish: {shop['coating']}, {shop['coating_thickness'] * 1000:.1f} µm. Sizes shown are AFTER coating.")
-        out.append(f"   Turn before coating: post Ø{fit.post.precoat_mm:.5f} ±{fit.post.tolerance_mm:.5f}, "
-                   f"wall bore Ø{fit.wall.precoat_mm:.5f} ±{fit.wall.tolerance_mm:.5f}")
+        out.append(f"Finish: {shop['coating']} {thickness}; seat sizes AFTER coating: turn post "
+                   f"Ø{size_text(fit.post.precoat_mm)} ±{size_text(fit.post.turn_tolerance_mm)}, wall bore "
+                   f"Ø{size_text(fit.wall.precoat_mm)} ±{size_text(fit.wall.turn_tolerance_mm)}")
     brk = shop["break_edges"]
-    out.append(f"Unmarked edges ISO 13715: external -{brk:g}, internal +{brk:g} (break, no sharp edges)")
-    out.append(f"Bearing seat (post, seat face, wall bore) Ra {shop['seat_roughness']:g} µm; elsewhere Ra 3.2 µm")
-    out.append(f"Runout {data.runout_mm:.3f} mm to datum A: balance grade G{data.balance_grade:g} "
-               f"(ISO 21940-11) at {data.spin_rate_rpm:g} rpm for a {data.half_mass_g:.1f} g half")
+    passing = seat_corner_passing_mm(resolved)
+    out.append(f"Edges ISO 13715: external -{brk:g}, internal -{brk:g}; post/seat-face corner "
+               f"+{passing:g}/-{brk:g} (ring chamfer {size_text(resolved['bearing.chamfer'])})")
+    d = resolved.features["axle_bore"].dims
+    out.append(f"{thread_designation(resolved)}, tap drill Ø{d['tap_drill']:g} ↧{d['drill_depth']:g} from post face; "
+               f"{back_wall_mm(resolved):.2f} left to hub face (min {shop['min_wall']:g})")
+    out.append(f"Post, seat face and wall bore Ra {shop['seat_roughness']:g} µm; elsewhere Ra 3.2 µm")
+    out.append(f"Runout {data.runout_mm:.3f} to A: G{data.balance_grade:g} (ISO 21940-11), "
+               f"{data.spin_rate_rpm:g} rpm, {data.half_mass_g:.1f} g half")
     if resolved.profile is not None:
         from ..checks import reentrant_regions
 
         for region in reentrant_regions(resolved.profile):
             out.append(f"Undercut: {region.describe()}")
-    out.append(f"General tolerance {shop['general_tolerance']}. Dimensions in mm.")
+    out.append(f"General tolerance {shop['general_tolerance']}; dimensions in mm")
     return out
 
 

@@ -17,8 +17,8 @@ from dataclasses import dataclass
 
 from ..builder import Resolved
 from ..geometry import Arc, Point, Profile
-from ..units import MM_PER_INCH as IN
 from .locate import corner, on_face, on_radius
+from .numbers import tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
            "detail_requests", "shape_requests", "detail_region", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
@@ -135,10 +135,7 @@ def detail_region(resolved: Resolved) -> tuple[float, float, float, float]:
 
 
 def _tolerance(tol_mm: float, nominal_mm: float, inch: bool) -> str:
-    text = f"±{tol_mm:.5f}"
-    if inch:
-        text += f"\n[{nominal_mm / IN:.5f} ±{tol_mm / IN:.5f} in]"
-    return text
+    return tolerance_text(nominal_mm, tol_mm, inch)
 
 
 def section_requests(resolved: Resolved) -> list[DimensionRequest]:
@@ -272,13 +269,13 @@ def detail_requests(resolved: Resolved) -> list[DimensionRequest]:
     out = [
         DimensionRequest(("bearing_seat.post_diameter",), "diameter",
                          (on_radius(profile, v["bearing_seat.post_diameter"] / 2, prefer="min"),), view="detail",
-                         side="left", decimals=5, tolerance=_tolerance(fit.post.tolerance_mm, fit.post.nominal_mm, inch)),
+                         side="left", decimals=3, tolerance=_tolerance(fit.post.tolerance_mm, fit.post.nominal_mm, inch)),
         DimensionRequest(("bearing_seat.seat_face_diameter", "vent_groove.inner_diameter"), "diameter",
                          (on_radius(profile, v["bearing_seat.seat_face_diameter"] / 2, prefer="min"),),
-                         view="detail", side="left", decimals=5),
+                         view="detail", side="left", decimals=3),
         DimensionRequest(("bearing_seat.wall_bore", "vent_groove.outer_diameter"), "diameter",
                          (on_radius(profile, v["bearing_seat.wall_bore"] / 2, prefer="min"),), view="detail",
-                         side="left", decimals=5, tolerance=_tolerance(fit.wall.tolerance_mm, fit.wall.nominal_mm, inch)),
+                         side="left", decimals=3, tolerance=_tolerance(fit.wall.tolerance_mm, fit.wall.nominal_mm, inch)),
     ]
     seat_z = v["bearing_seat.seat_face_z"]
     face_r = v["bearing_seat.seat_face_diameter"] / 2

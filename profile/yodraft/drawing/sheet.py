@@ -13,7 +13,7 @@ from . import layers
 from .detail import DETAIL_BLOCK, build_detail, detail_lanes, detail_region, detail_scale
 from .layers import TEXT_HEIGHT, TEXT_STYLE
 from .mtext import escape
-from .notes import SheetData, caution_lines, fit_lines, shop_lines
+from .notes import SheetData, caution_lines, fit_lines, numbered, shop_lines
 from .outline import new_document
 from .section import dimension_section, draw_section, thread_lane_z
 from .titleblock import TITLE_WIDTH, draw_revision_block, draw_title_block, title_cells
@@ -264,8 +264,8 @@ def _runout_frame(psp: BaseLayout, at: tuple[float, float], target: tuple[float,
 def _notes(psp: BaseLayout, resolved: Resolved, data: SheetData, top: float) -> None:
     """The tolerance note block (fits, then shop notes), the full width right of the main view."""
     parts = ["{\\LNOTES}"]
-    parts += ["{\\LFits (finished sizes)}"] + [escape(s) for s in fit_lines(resolved)]
-    parts += ["{\\LShop}"] + [escape(s) for s in shop_lines(resolved, data)]
+    for title, lines in numbered([("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]):
+        parts += ["{\\L" + title + "}"] + [escape(s) for s in lines]
     mt = psp.add_mtext("\\P".join(parts), dxfattribs={"layer": "text", "style": TEXT_STYLE,
                                                       "char_height": TEXT_HEIGHT, "attachment_point": 1,
                                                       "width": FRAME[2] - RIGHT_X - 3.0})

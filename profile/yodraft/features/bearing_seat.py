@@ -54,22 +54,27 @@ def allocate_offset_tolerance(gap_tolerance_mm: float) -> float:
     return math.floor(gap_tolerance_mm / 2 * 1000 + 1e-6) / 1000
 
 
-def coating_growth(shop: Mapping[str, Any]) -> float:
-    """Diametral growth of a coated seat surface in mm (0 when uncoated or masked)."""
+def coating_growth(shop: Mapping[str, Any]) -> tuple[float, float]:
+    """Diametral growth of a coated seat surface in mm at the coating's thin and thick ends (0 when uncoated or masked)."""
     if shop["coating"] == "none" or shop["mask_seat"]:
-        return 0.0
-    return coating_growth_mm(shop["coating_thickness"], shop["coating_outward_share"])
+        return (0.0, 0.0)
+    thin = shop["coating_thickness"]
+    thick = shop["coating_thickness_max"] if shop["coating_thickness_max"] is not None else thin
+    thick = max(thick, thin)  # an upside-down range fails its own check; the seat is sized for the thin end
+    share = shop["coating_outward_share"]
+    return (coating_growth_mm(thin, share), coating_growth_mm(thick, share))
 
 
 def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     bore, od, width = ctx["bearing.bore"], ctx["bearing.od"], ctx["bearing.width"]
     shop = ctx.shop
     derived: set[str] = set()
+    growth = coating_growth(shop)
     seat = size_seat(SeatInputs(
         bearing_bore_mm=bore, bearing_od_mm=od,
         bore_deviation_um=ctx["bearing.bore_deviation_um"], od_deviation_um=ctx["bearing.od_deviation_um"],
         machine_tolerance_mm=shop["machine_tolerance"], fit_clearance_mm=shop["fit_clearance"],
-        coating_growth_mm=coating_growth(shop),
+        coating_growth_mm=growth[0], coating_growth_max_mm=growth[1],
         post_diameter_mm=p["post_diameter"], wall_bore_mm=p["wall_bore"],
     ))
     if p["post_diameter"] is None:
@@ -122,10 +127,15 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
               f"wall offset ±{offset_tol:.3f} mm; the lathe holds ±{shop['machine_tolerance']:.4f} mm"),
         check("posts stay apart", f"{NAME}.post_length_tolerance", spacing_stack.worst_min_mm > 0,
               f"post faces {spacing_stack.worst_min_mm:.3f} mm apart at the longest posts and narrowest bearing"),
+        check("coating thickness range", "shop.coating_thickness_max",
+              shop["coating_thickness_max"] is None or shop["coating_thickness_max"] >= shop["coating_thickness"],
+              "the thick end must be at least coating_thickness"),
         check("post slides into the bearing", f"{NAME}.post_diameter", seat.post.clearance_min_mm >= -1e-9,
-              f"worst-case clearance {seat.post.clearance_min_mm * 1000:.1f} µm (a negative value presses the bearing)"),
+              f"worst-case clearance {seat.post.clearance_min_mm * 1000:.1f} µm (a negative value presses the bearing)"
+              + (f", at the thickest coating (growth {growth[1] * 1000:.1f} µm)" if growth[1] > 0 else "")),
         check("outer race clears the wall", f"{NAME}.wall_bore", seat.wall.clearance_min_mm >= -1e-9,
-              f"worst-case clearance {seat.wall.clearance_min_mm * 1000:.1f} µm"),
+              f"worst-case clearance {seat.wall.clearance_min_mm * 1000:.1f} µm"
+              + (f", at the thickest coating (growth {growth[1] * 1000:.1f} µm)" if growth[1] > 0 else "")),
         check("seat face carries the inner race", f"{NAME}.seat_face_diameter", post_d < face < od,
               f"seat face Ø{face:.3f} mm must lie between the post Ø{post_d:.3f} mm and the bearing OD Ø{od:.3f} mm"),
     )
@@ -133,4 +143,4 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         "wall": (V(wall_z, wall_d / 2),),
         "post": (V(seat_z, face / 2), V(seat_z, post_d / 2), V(post_z, post_d / 2)),
     }
-    return FeatureResult(NAME, dims, frozenset(derived), chunks, checks, {"seat_fit": seat, "gap_stack": gap_stack, "spacing_stack": spacing_stack})
+    return FeatureResult(NAME, dims, frozenset(derived), chunks, checks, {"seat_fit": seat, "coating_growth": growth, "gap_stack": gap_stack, "spacing_stack": spacing_stack})

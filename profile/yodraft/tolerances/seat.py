@@ -2,15 +2,20 @@
 
 The post is the turned diameter the bearing's inner ring slides onto; the wall
 (bore) is the recess its outer ring sits in. Sizes are finished sizes (after any
-coating); ``precoat_mm`` is what the machinist turns before the coating goes on.
+coating); ``precoat_mm`` is what the machinist turns, ± the machine tolerance,
+before the coating goes on. A coating's thickness scatters between a thin and a
+thick end, so the finished size carries the machine tolerance plus half the
+growth's scatter, and the thick end is the one that can make a seat interfere.
 
 Worst-case rule (derived sizes)
-    post max = bearing bore min − fit clearance; post nominal = post max − machine tolerance.
-    wall min = bearing OD max + fit clearance;   wall nominal = wall min + machine tolerance.
+    post turned = bearing bore min − fit clearance − machine tolerance − thickest growth;
+    wall turned = bearing OD max + fit clearance + machine tolerance + thickest growth;
+    the finished nominal is the turned size plus (post) or minus (wall) the mid growth.
 
 Statistical rule (checks only; it never moves the sizes): each machine tolerance
 is taken as ±3σ of a normal spread about the nominal, each bearing deviation band
-as ±3σ about its mid value; the clearance spread is their root sum of squares.
+and the coating's growth band as ±3σ about its mid value; the clearance spread is
+their root sum of squares.
 
 >>> fit = size_seat(SeatInputs(6.35, 12.7, (0.0, -2.54), (0.0, -2.54), 0.00508, 0.0127))
 >>> round(fit.post.nominal_mm / 25.4, 5), round(fit.post.clearance_min_mm / 25.4, 5)
@@ -48,8 +53,9 @@ class SeatInputs:
     Deviations are (upper, lower) in µm from the bearing's precision class;
     ``machine_tolerance_mm`` is the ± the machinist holds on a diameter;
     ``fit_clearance_mm`` the least clearance wanted (negative asks for a press fit);
-    ``coating_growth_mm`` the diametral growth of a coated surface.
-    An explicit ``post_diameter_mm`` / ``wall_bore_mm`` (finished) is checked, not derived.
+    ``coating_growth_mm`` the diametral growth of a coated surface at the coating's thin end,
+    ``coating_growth_max_mm`` at its thick end (None: no scatter).
+    An explicit ``post_diameter_mm`` / ``wall_bore_mm`` (finished, at the mid growth) is checked, not derived.
     """
 
     bearing_bore_mm: float
@@ -61,6 +67,13 @@ class SeatInputs:
     coating_growth_mm: float = 0.0
     post_diameter_mm: float | None = None
     wall_bore_mm: float | None = None
+    coating_growth_max_mm: float | None = None
+
+    @property
+    def growth_band_mm(self) -> tuple[float, float]:
+        """(thin end, thick end) of the diametral growth."""
+        high = self.coating_growth_mm if self.coating_growth_max_mm is None else self.coating_growth_max_mm
+        return (self.coating_growth_mm, high)
 
     def __post_init__(self) -> None:
         for name in ("bearing_bore_mm", "bearing_od_mm"):
@@ -77,16 +90,21 @@ class SeatInputs:
             raise ValueError(f"machine tolerance {self.machine_tolerance_mm!r} mm is not a ± ≥ 0")
         if not (math.isfinite(self.fit_clearance_mm) and math.isfinite(self.coating_growth_mm)):
             raise ValueError("fit clearance and coating growth must be finite")
+        low, high = self.growth_band_mm
+        if not (math.isfinite(high) and high >= low):
+            raise ValueError(f"coating growth band {(low, high)!r} is not (thin, thick) with thick ≥ thin")
 
 
 @dataclass(frozen=True)
 class DiameterFit:
     """One turned diameter (post or wall bore) against its bearing race.
 
-    Clearances are diametral, race minus post or wall minus race (negative =
-    interference). ``clearance_*`` are worst case; ``rss_*`` the ±3σ statistical
-    range; ``p_no_slide`` the chance a random part and bearing will not slide
-    together (clearance < 0) under that normal model.
+    ``nominal_mm`` ± ``tolerance_mm`` is the finished size (machine tolerance plus
+    half the coating's scatter); ``precoat_mm`` ± ``turn_tolerance_mm`` the size
+    turned before coating. Clearances are diametral, race minus post or wall minus
+    race (negative = interference). ``clearance_*`` are worst case; ``rss_*`` the
+    ±3σ statistical range; ``p_no_slide`` the chance a random part and bearing will
+    not slide together (clearance < 0) under that normal model.
     """
 
     nominal_mm: float
@@ -98,6 +116,7 @@ class DiameterFit:
     rss_min_mm: float
     rss_max_mm: float
     p_no_slide: float
+    turn_tolerance_mm: float = 0.0
 
     @property
     def max_mm(self) -> float:
@@ -125,9 +144,13 @@ def _p_negative(mean: float, sigma: float) -> float:
     return 0.5 * math.erfc(mean / (sigma * math.sqrt(2.0)))
 
 
-def _fit(nominal: float, tol: float, precoat: float, race_band: tuple[float, float],
+def _fit(nominal: float, turn_tol: float, scatter: float, precoat: float, race_band: tuple[float, float],
          race_is_outside: bool, derived: bool) -> DiameterFit:
-    """Clearance of a diameter ``nominal ± tol`` against a race band (min, max), all mm."""
+    """Clearance of a finished diameter ``nominal ± (turn_tol + scatter)`` against a race band (min, max), all mm.
+
+    ``scatter`` is half the coating's growth band.
+    """
+    tol = turn_tol + scatter
     race_min, race_max = race_band
     if race_is_outside:  # the race surrounds the post: clearance = race − post
         worst_min, worst_max = race_min - (nominal + tol), race_max - (nominal - tol)
@@ -136,9 +159,9 @@ def _fit(nominal: float, tol: float, precoat: float, race_band: tuple[float, flo
         worst_min, worst_max = (nominal - tol) - race_max, (nominal + tol) - race_min
         mean = nominal - (race_min + race_max) / 2
     half_race = (race_max - race_min) / 2
-    spread = math.hypot(half_race, tol)  # 3σ of the clearance
+    spread = math.sqrt(half_race ** 2 + turn_tol ** 2 + scatter ** 2)  # 3σ of the clearance
     return DiameterFit(nominal, tol, precoat, worst_min, worst_max, derived,
-                       mean - spread, mean + spread, _p_negative(mean, spread / 3.0))
+                       mean - spread, mean + spread, _p_negative(mean, spread / 3.0), turn_tol)
 
 
 def size_seat(s: SeatInputs) -> SeatFit:
@@ -148,10 +171,13 @@ def size_seat(s: SeatInputs) -> SeatFit:
     od = (s.bearing_od_mm + s.od_deviation_um[1] / 1000, s.bearing_od_mm + s.od_deviation_um[0] / 1000)
     post_derived = s.post_diameter_mm is None
     wall_derived = s.wall_bore_mm is None
-    post = s.post_diameter_mm if s.post_diameter_mm is not None else bore[0] - s.fit_clearance_mm - tol
-    wall = s.wall_bore_mm if s.wall_bore_mm is not None else od[1] + s.fit_clearance_mm + tol
-    # a coating grows the post and shrinks the bore, so turn the post under and the bore over
+    low, high = s.growth_band_mm
+    mid, scatter = (low + high) / 2, (high - low) / 2
+    # a coating grows the post and shrinks the bore, so turn the post under and the bore over; a derived size
+    # keeps the fit clearance at the thickest coating
+    post = s.post_diameter_mm if s.post_diameter_mm is not None else bore[0] - s.fit_clearance_mm - tol - high + mid
+    wall = s.wall_bore_mm if s.wall_bore_mm is not None else od[1] + s.fit_clearance_mm + tol + high - mid
     return SeatFit(
-        post=_fit(post, tol, post - s.coating_growth_mm, bore, True, post_derived),
-        wall=_fit(wall, tol, wall + s.coating_growth_mm, od, False, wall_derived),
+        post=_fit(post, tol, scatter, post - mid, bore, True, post_derived),
+        wall=_fit(wall, tol, scatter, wall + mid, od, False, wall_derived),
     )
