@@ -258,12 +258,16 @@ def _heat_map(page: Page, result: "SweepResult", key: str, target: float | None,
             xa, xb = sorted((sx(ex[i]), sx(ex[i + 1])))
             ya, yb = sorted((sy(ey[j]), sy(ey[j + 1])))
             page.add(rect(xa, ya, xb - xa + 0.02, yb - ya + 0.02, fill=fill))
-    levels = [t for t in _ticks(lo, hi, 6) if lo < t < hi]
+    levels = [t for t in _ticks(lo, hi, 6) if lo < t < hi and t != target]
+    labels = []
     for level in levels:
-        d = _contour_d(grid, xv, yv, level, sx, sy)
-        if d:
+        pieces = _contour_pieces(grid, xv, yv, level)
+        if pieces:
+            d = " ".join(path_d([(sx(x), sy(y)) for x, y in piece]) for piece in pieces)
             page.add(path(d, stroke="#ffffff", width=0.5))
             page.add(path(d, stroke=_INK, width=0.2))
+            top = min((p for piece in pieces for p in piece), key=lambda p: (sy(p[1]), sx(p[0])))
+            labels.append((sx(top[0]), sy(top[1]), _fmt(level)))
     if target is not None and lo < target < hi:
         d = _contour_d(grid, xv, yv, target, sx, sy)
         if d:
@@ -274,6 +278,12 @@ def _heat_map(page: Page, result: "SweepResult", key: str, target: float | None,
             cx, cy, k = sx(xv[i]), sy(yv[j]), 0.7
             page.add(path(f"M {cx - k:.3f} {cy - k:.3f} L {cx + k:.3f} {cy + k:.3f} M {cx - k:.3f} {cy + k:.3f} "
                           f"L {cx + k:.3f} {cy - k:.3f}", stroke=_INK, width=0.22))
+    for x, y, text in labels:  # each contour's value where it comes nearest the top of the map
+        tw = len(text) * 0.58 * 2.3
+        bx = min(max(x - tw / 2 - 0.6, x0), x0 + w - tw - 1.2)
+        by = max(y, y0 + 0.4)
+        page.add(rect(bx, by, tw + 1.2, 3.2, fill="#fff"))
+        page.text(bx + 0.6, by + 2.5, text, size=2.3)
     _frame(page, x0, y0, w, h, (ex[0], ex[-1]), (ey[0], ey[-1]), f"{ax.key}" + (f", {ax.unit}" if ax.unit else ""),
            _axis_label(key), grid=False)
     page.text(x0 - 15, y0 + h / 2, ay.key + (f", {ay.unit}" if ay.unit else ""), size=3.2, anchor="middle",
@@ -306,8 +316,14 @@ def _colour_bar(page: Page, x: float, y0: float, h: float, lo: float, hi: float,
 
 
 def _contour_d(grid: list[list[float | None]], xv: list[float], yv: list[float], level: float, sx, sy) -> str:
+    """Path data of the contour at ``level``, through the page transforms ``sx``, ``sy``."""
+    return " ".join(path_d([(sx(x), sy(y)) for x, y in piece]) for piece in _contour_pieces(grid, xv, yv, level))
+
+
+def _contour_pieces(grid: list[list[float | None]], xv: list[float], yv: list[float],
+                    level: float) -> list[list[tuple[float, float]]]:
     """Marching squares over the grid nodes: straight pieces where the output crosses ``level``."""
-    pieces = []
+    pieces: list[list[tuple[float, float]]] = []
     for i in range(len(xv) - 1):
         for j in range(len(yv) - 1):
             corners = [(i, j), (i + 1, j), (i + 1, j + 1), (i, j + 1)]
@@ -329,4 +345,4 @@ def _contour_d(grid: list[list[float | None]], xv: list[float], yv: list[float],
                     pieces += [[points[0], points[3]], [points[1], points[2]]]
                 else:
                     pieces += [[points[0], points[1]], [points[2], points[3]]]
-    return " ".join(path_d([(sx(x), sy(y)) for x, y in piece]) for piece in pieces)
+    return pieces
