@@ -1,14 +1,18 @@
-"""Everything ``build`` writes for a design, rendered in memory: sheet DXF, CAM profile DXF, SVG preview."""
+"""Everything ``build`` writes for a design, rendered in memory: the sheet composed once and written as
+DXF, SVG preview and PDF, plus the CAM profile DXF."""
 from __future__ import annotations
 
 from ..builder import Resolved
+from .compose import compose
+from .dxf_sheet import sheet_document
 from .notes import SheetData
 from .outline import dxf_bytes
-from .preview import svg_bytes
+from .pdf_sheet import sheet_pdf
 from .profile_dxf import profile_document
-from .sheet import LAYOUT_NAME, PAPER, sheet_document
+from .sheetdata import Sheet
+from .svg_sheet import sheet_svg
 
-__all__ = ["sheet_data", "render_files"]
+__all__ = ["sheet_data", "render_files", "compose_sheet"]
 
 
 def sheet_data(resolved: Resolved) -> SheetData:
@@ -20,12 +24,19 @@ def sheet_data(resolved: Resolved) -> SheetData:
                      balance_grade=a.balance.grade_mm_s, spin_rate_rpm=a.balance.rpm)
 
 
+def compose_sheet(resolved: Resolved, data: SheetData | None = None) -> Sheet:
+    """The sheet as data (what is drawn where on paper)."""
+    return compose(resolved, data or sheet_data(resolved))
+
+
 def render_files(resolved: Resolved, stem: str, data: SheetData | None = None) -> dict[str, bytes]:
-    """``{file name: bytes}`` for ``<stem>.dxf``, ``<stem>-profile.dxf`` and ``<stem>.svg``."""
-    data = data or sheet_data(resolved)
-    doc = sheet_document(resolved, data)
+    """``{file name: bytes}`` for ``<stem>.dxf``, ``<stem>-profile.dxf``, ``<stem>.svg`` and ``<stem>.pdf``."""
+    sheet = compose_sheet(resolved, data)
+    d = resolved.design["design"]
     return {
-        f"{stem}.dxf": dxf_bytes(doc),
+        f"{stem}.dxf": dxf_bytes(sheet_document(sheet, resolved)),
         f"{stem}-profile.dxf": dxf_bytes(profile_document(resolved)),
-        f"{stem}.svg": svg_bytes(doc, LAYOUT_NAME, PAPER),
+        f"{stem}.svg": sheet_svg(sheet),
+        f"{stem}.pdf": sheet_pdf(sheet, title=d["title"] or resolved.design.name, author=d["owner"],
+                                       date=d["date"]),
     }

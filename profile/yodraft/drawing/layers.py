@@ -10,8 +10,10 @@ from dataclasses import dataclass
 
 from ezdxf.document import Drawing
 
+from .lettering import FONT_FILE
+
 __all__ = ["Layer", "LAYERS", "WIDE", "NARROW", "TEXT_HEIGHT", "ARROW_SIZE", "TEXT_STYLE", "DIMSTYLE",
-           "APPID", "setup"]
+           "APPID", "setup", "LINETYPES", "layer"]
 
 WIDE = 50  # 1/100 mm, ISO 128-2 line group 0.5
 NARROW = 25
@@ -47,18 +49,27 @@ LAYERS: tuple[Layer, ...] = (
 )
 
 
+#: line type patterns in paper mm: dash (+), gap (−), dot (0)
+LINETYPES = {
+    # ISO 128-2 type 04 for d = 0.25 mm: long dash 24d, gap 3d, dot ≤ 0.5d, gap 3d (from memory)
+    LONG_DASH_DOT: (12.0, -1.5, 0.0, -1.5),
+    "long-dash-dot-small": (1.8, -0.45, 0.0, -0.45),  # the projection symbol's axis
+}
+
+
 def setup(doc: Drawing) -> None:
     """Add the line type, layers, text style, dimension style and our xdata application id."""
     # ISO 128-2 type 04 for d = 0.5 mm: long dash 24d, gap 3d, dot ≤ 0.5d, gap 3d (from memory)
-    doc.linetypes.add(LONG_DASH_DOT, pattern=[12 + 1.5 + 0.0 + 1.5, 12.0, -1.5, 0.0, -1.5],
-                      description="long dash, dot (ISO 128-2 type 04)")
+    for name, pattern in LINETYPES.items():
+        doc.linetypes.add(name, pattern=[sum(abs(x) for x in pattern), *pattern],
+                          description="long dash, dot (ISO 128-2 type 04)")
     for layer in LAYERS:
         entry = doc.layers.add(layer.name, color=layer.color, linetype=layer.linetype, lineweight=layer.lineweight)
         entry.description = layer.purpose
         if layer.name == "viewport":
             entry.dxf.plot = 0
-    # a condensed sans: close to ISO 3098-2 type B proportions, and it keeps 3.5 mm fields in their cells
-    doc.styles.add(TEXT_STYLE, font="DejaVuSansCondensed.ttf")
+    # a sans commonly installed (see lettering.py); the layout measures every text in it
+    doc.styles.add(TEXT_STYLE, font=FONT_FILE)
     doc.appids.add(APPID)
     style = doc.dimstyles.add(DIMSTYLE)
     attribs = {
@@ -71,3 +82,8 @@ def setup(doc: Drawing) -> None:
     }
     for key, value in attribs.items():
         style.dxf.set(key, value)
+
+
+def layer(name: str) -> Layer:
+    """The layer called ``name``."""
+    return next(entry for entry in LAYERS if entry.name == name)

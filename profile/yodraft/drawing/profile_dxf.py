@@ -8,7 +8,7 @@ from ezdxf.document import Drawing
 
 from ..builder import Resolved
 from .outline import add_loop, new_document
-from .section import datum_face_z
+from .requests import datum_face_z
 
 __all__ = ["profile_document"]
 

@@ -21,9 +21,10 @@ from .locate import corner, on_face, on_radius
 from .numbers import tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
-           "detail_requests", "shape_requests", "detail_region", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+           "detail_requests", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
 
 DIA = "Ø"
+DATUM_A_KEY = "axle_bore.major_diameter"  # the dimension whose feature is datum A (its axis)
 KINDS = ("linear", "diameter", "radius", "angle")
 VIEWS = ("main", "detail")
 SIDES = ("", "above", "below", "left", "right")
@@ -37,7 +38,7 @@ class DimensionRequest:
     kind        ``linear`` (``points`` = p1, p2; ``direction`` ``axial`` measures Δz, ``radial`` Δr),
                 ``diameter`` (``points`` = (p,), a point of the upper outline at radius r: shows 2r as a
                 half-shown diameter from the axis, ISO 129-1), ``radius`` (``points`` = (centre, a point
-                of the arc)) or ``angle`` (``points`` = (vertex, p1, p2), counter-clockwise from p1 to p2)
+                of the arc), optionally followed by the arc's two ends) or ``angle`` (``points`` = (vertex, p1, p2), counter-clockwise from p1 to p2)
     view        ``main`` (the section) or ``detail`` (the seat enlargement)
     text        the value's text: ``<>`` is the measured value; empty means the kind's prefix (Ø, R) + ``<>``
     tolerance   written after the value, e.g. ``±0.005`` or ``+0.05/0``; a second line may follow ``\\n``
@@ -61,8 +62,8 @@ class DimensionRequest:
     decimals: int = 2
 
     def __post_init__(self) -> None:
-        need = {"linear": 2, "diameter": 1, "radius": 2, "angle": 3}
-        if self.kind not in KINDS or len(self.points) != need[self.kind]:
+        need = {"linear": (2,), "diameter": (1,), "radius": (2, 4), "angle": (3,)}
+        if self.kind not in KINDS or len(self.points) not in need[self.kind]:
             raise ValueError(f"dimension {self.keys}: kind {self.kind!r} with {len(self.points)} points")
         if self.view not in VIEWS or self.side not in SIDES:
             raise ValueError(f"dimension {self.keys}: view {self.view!r}, side {self.side!r}")
@@ -215,7 +216,7 @@ def section_requests(resolved: Resolved) -> list[DimensionRequest]:
         arc = _arc_near(profile, v[key], near)
         if arc is not None:
             mid = arc.point_at(arc.start_angle + arc.sweep / 2)
-            out.append(DimensionRequest((key,), "radius", (arc.center, mid), decimals=2))
+            out.append(DimensionRequest((key,), "radius", (arc.center, mid, arc.start, arc.end), decimals=2))
     return out
 
 
