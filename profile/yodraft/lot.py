@@ -526,8 +526,12 @@ def lot_text(data: Mapping[str, Any]) -> str:
     m, hm, g, u, p = data["mass_g"], data["half_mass_g"], data["gap_mm"], data["unbalance_g_mm"], data["pairs"]
     lin = data["linearisation_error"]
     target = "nominal" if m["target_is_nominal"] else "target"
+    n_dims = sum(1 for b in data["bands"] if b["key"].startswith("features."))
     lines = [
         f"lot of {data['units']} halves of {data['design']}, seed {data['seed']}, {data['distribution']}",
+        f"  drawn: {n_dims} dimensions within their tolerances, the bearing's bore, outside diameter and width "
+        f"within its class, the coating thickness, the density, and each setup's runout"
+        + (f"; left at nominal: {', '.join(data['not_drawn'])}" if data["not_drawn"] else ""),
         f"  bearing won't slide on the post or into the wall bore: {pct(data['no_slide_share'])} "
         f"(post {pct(data['no_slide_post_share'])}, wall bore {pct(data['no_slide_wall_share'])})",
         f"  gap {g['mean']:.4f} mm, sd {g['sd'] * 1000:.1f} µm; outside {g['nominal']:.4f} ± {g['tolerance']:.3f} mm: "
