@@ -204,3 +204,20 @@ def test_a_sketched_shape_draws_its_own_sizes() -> None:
     lot = lot_summary(run_lot(design, units=20_000, seed=4, exact_sample=16))
     assert lot["linearisation_error"]["mass_max_relative"] < 5e-3
     assert lot["half_mass_g"]["mean"] == pytest.approx(pinned[0], rel=2e-3)
+
+
+def test_no_slide_share_with_a_coating_range_agrees_with_the_check() -> None:
+    # the starter design is anodized with a thickness range: the check widens the fit's spread by the growth's
+    # scatter (half its band, as ±3σ); the lot draws the thickness within that range
+    text = TEMPLATE.read_text(encoding="utf-8").replace(
+        '[features.bearing_seat]\n', '[features.bearing_seat]\npost_diameter = "6.344 mm"\nwall_bore = "12.702 mm"\n')
+    design = _design(text)
+    seat = summary(yodraft.build(design))["bearing_seat"]
+    p_post, p_wall = seat["post_p_no_slide"], seat["wall_p_no_slide"]
+    assert 0.05 < p_post < 0.3 and 0.05 < p_wall < 0.3
+    n = 200_000
+    lot = lot_summary(run_lot(design, units=n, seed=9, exact_sample=4))
+    assert abs(lot["no_slide_post_share"] - p_post) <= _binomial_tolerance(p_post, n)
+    assert abs(lot["no_slide_wall_share"] - p_wall) <= _binomial_tolerance(p_wall, n)
+    coating = next(b for b in lot["bands"] if b["key"] == "shop.coating_thickness")
+    assert coating["plus_minus"] == pytest.approx((0.001 - 0.0002) * 25.4 / 2)  # 0.0002–0.001 in, as written

@@ -56,8 +56,6 @@ DEFAULT_SEED = 1
 DEFAULT_PAIR_WINDOW_G = 0.1
 #: an assembled yo-yo is on weight within this of the target  # common practice, no published source
 DEFAULT_MASS_WINDOW_G = 1.0
-#: ± share of the nominal coating thickness when the design gives no range  # common practice, no published source
-FALLBACK_COATING_SHARE = 0.2
 #: ± share of the catalog density a bar of wrought alloy may differ by  # common practice, no published source
 DENSITY_SPREAD = 0.005
 #: halves rebuilt exactly to measure the linearisation error
@@ -117,16 +115,13 @@ def _coating_band(resolved: Resolved) -> tuple[float, float, str]:
     """(middle offset from ``shop.coating_thickness``, ±, basis) of the coating thickness in mm.
 
     The range runs from ``coating_thickness`` (its thin end) to ``coating_thickness_max``; the finished seat
-    sizes are those at the middle of the range.
+    sizes are those at the middle of the range. Without a range the thickness does not scatter.
     """
     shop = resolved.design["shop"]
-    t0 = shop["coating_thickness"]
-    if "coating_thickness_max" in shop:
-        thick = shop["coating_thickness_max"]
-        if thick is None or not thick > t0:
-            return 0.0, 0.0, "shop.coating_thickness (no range given)"
-        return (thick - t0) / 2, (thick - t0) / 2, "shop.coating_thickness to shop.coating_thickness_max"
-    return 0.0, FALLBACK_COATING_SHARE * t0, f"±{FALLBACK_COATING_SHARE:.0%} of the thickness, common practice"
+    t0, thick = shop["coating_thickness"], shop["coating_thickness_max"]
+    if thick is None or not thick > t0:
+        return 0.0, 0.0, "shop.coating_thickness (no range given)"
+    return (thick - t0) / 2, (thick - t0) / 2, "shop.coating_thickness to shop.coating_thickness_max"
 
 
 def _free_angle(resolved: Resolved) -> bool:
