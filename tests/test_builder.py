@@ -101,7 +101,8 @@ def test_changing_one_feature_leaves_unrelated_ones(string_trick_text: str) -> N
     a = build_text(string_trick_text)
     b = build_text(set_key(string_trick_text, "features.pad_groove", "depth", "1.6 mm"))
     changed = {k for k in a.values if a.values[k] != b.values[k]}
-    assert changed == {"pad_groove.depth", "pad_groove.bottom_z"}
+    # the pad sits on the groove's bottom: how far it stands proud and the pads' distance follow the depth
+    assert changed == {"pad_groove.depth", "pad_groove.bottom_z", "pad_groove.proud", "pad_groove.pad_gap"}
 
 
 def test_catch_zone_angle_follows_rim_width(string_trick_text: str) -> None:

@@ -42,7 +42,8 @@ def test_deeper_pad_groove_changes_mass_not_gap(tmp_path: Path, string_trick_tex
     removed_g = old["material.density_g_cm3"] * math.pi * (ro**2 - ri**2) * delta_d / 1000
     assert derived["mass.half_g"]["delta"] == pytest.approx(-removed_g, rel=1e-6)
     assert derived["mass.half_g"]["delta"] == pytest.approx(derived["mass.half_g"]["new"] - derived["mass.half_g"]["old"])
-    assert data["checks"] == []
+    # the 1.5 mm pad now sits 0.5 mm below the wall face, deeper than the 0.2 mm allowed
+    assert [(c["name"], c["old_ok"], c["new_ok"]) for c in data["checks"]] == [("pad not sunk below the wall face", True, False)]
 
 
 def test_text_diff_reads_for_a_designer(tmp_path: Path, string_trick_text: str,

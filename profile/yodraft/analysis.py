@@ -33,24 +33,28 @@ class Analysis:
 
 
 def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
-    """The bearing, the axle and the two response pads placed where they sit, and the axle length.
+    """The bearing, the axle and the two response pads (or silicone fills) placed where they sit, and the axle length.
 
     The axle spans the post spacing and runs into each half's thread short of the
     full-thread depth by one pitch (common practice, no published source).
     """
     v = resolved.values
     spec = resolved.design["parts"]
-    pad_density = resolved.features["pad_groove"].extra["pad"].pad_density_g_cm3
+    pad = resolved.features["pad_groove"].extra["pad"]
+    silicone = pad is None  # a recess filled flush with silicone: its own volume, sitting in the recess
+    pad_density = v["pad_groove.silicone_density"] if silicone else pad.pad_density_g_cm3
     bearing_mass, bore, od, width = v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"]
     pad_mass, pad_inner_d, pad_outer_d = spec["pad_mass"], v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"]
-    depth, face_z = v["pad_groove.depth"], v["pad_groove.face_z"]
+    thickness, bottom_z = v["pad_groove.pad_thickness"], v["pad_groove.bottom_z"]
     axle_mass, spacing, thread_depth = spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"]
     pitch, major_d = v["axle_bore.pitch"], v["axle_bore.major_diameter"]
     bearing_part = ring_part("bearing", bearing_mass, bore / 2, od / 2, width, 0.0)
     r_in, r_out = pad_inner_d / 2, pad_outer_d / 2
     if pad_mass is None:
-        pad_mass = ring_mass_g(pad_density, r_in, r_out, depth)
-    pad_part = ring_part("response pad", pad_mass, r_in, r_out, depth, face_z + depth / 2)
+        pad_mass = ring_mass_g(pad_density, r_in, r_out, thickness)
+    # the pad (or the silicone) sits on the groove's bottom and stands toward the gap by its thickness
+    pad_part = ring_part("silicone" if silicone else "response pad", pad_mass, r_in, r_out, thickness,
+                         bottom_z - thickness / 2)
     axle_length = spacing + 2 * (thread_depth - pitch)
     axle_r = (major_d - PITCH_DIAMETER_FACTOR * pitch) / 2
     if axle_mass is None:

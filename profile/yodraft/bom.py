@@ -139,7 +139,10 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
         BomItem("bearing", units, f"{designation} ({v['bearing.bore']:.3f} × {v['bearing.od']:.3f} × "
                                   f"{v['bearing.width']:.4f} mm), class {v['bearing.precision']}"),
         BomItem("response pad", 2 * units, f"{pad.name} pad class: Ø{pad.pad_diameter_mm:g} mm outside, "
-                                           f"Ø{v['pad_groove.inner_diameter']:g} mm inside, {v['pad_groove.depth']:g} mm thick"),
+                                           f"Ø{v['pad_groove.inner_diameter']:g} mm inside, "
+                                           f"{v['pad_groove.pad_thickness']:g} mm thick") if pad is not None else
+        BomItem("silicone", 2 * units, f"response silicone filled flush in the recess, "
+                                       f"{v['pad_groove.silicone_density'] * _recess_volume_mm3(v) / 1000:.3f} g each"),
         BomItem("axle", units, _axle_text(axle)),
     ]
     if halves is not None:
@@ -197,3 +200,8 @@ def bom_text(data: dict[str, Any]) -> str:
     lines.append(f"  scrap from a lot of {lot['halves']} halves (seed {lot['seed']}): {100 * lot['scrap_share']:.1f} % "
                  "of halves turned do not end in a good yo-yo")
     return "\n".join(lines) + "\n"
+
+
+def _recess_volume_mm3(v: Any) -> float:
+    """Volume of one silicone response recess (an annulus of the recess's depth), mm³."""
+    return math.pi / 4 * (v["pad_groove.outer_diameter"] ** 2 - v["pad_groove.inner_diameter"] ** 2) * v["pad_groove.depth"]

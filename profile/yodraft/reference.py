@@ -64,7 +64,7 @@ def catalog_markdown() -> str:
     """The catalogs a design names rows of — bearings, pad classes, threads, materials — each row with its source."""
     from .catalog.bearings import BEARINGS, LETTER_SIZES
     from .catalog.materials import MATERIALS
-    from .catalog.pads import PAD_CLASSES
+    from .catalog.pads import PAD_CLASSES, SILICONE_RECESS
     from .catalog.threads import THREADS
 
     letters = {v: k for k, v in LETTER_SIZES.items()}
@@ -76,10 +76,15 @@ def catalog_markdown() -> str:
         name = b.designation + (f" (size {letters[b.designation]})" if b.designation in letters else "")
         out.append(f"| {name} | {b.bore_mm:.4g} × {b.od_mm:.4g} × {b.width_mm:.4g} | {b.mass_g:g} | {_cell(b.source)} |")
     out += ["", "Pad classes (`features.pad_groove.pad_class`)", "",
-            "| class | pad Ø (mm) | groove inner Ø (mm) | groove depth (mm) | source |", "| --- | --- | --- | --- | --- |"]
+            "| class | pad Ø (mm) | groove inner Ø (mm) | groove depth (mm) | pad thickness (mm) | source |",
+            "| --- | --- | --- | --- | --- | --- |"]
     for c in PAD_CLASSES.values():
         out.append(f"| {c.name} | {c.pad_diameter_mm:g} | {c.groove_inner_diameter_mm:g} | {c.groove_depth_mm:g} | "
-                   f"{_cell(c.source)} |")
+                   f"{c.pad_thickness_mm:g} | {_cell(c.source)}; thickness {_cell(c.thickness_source)} |")
+    rec = SILICONE_RECESS
+    out += ["", f"Silicone response recess (`features.pad_groove.response = \"silicone\"`): {rec.wall_mm:g} mm of wall "
+            f"outside the wall bore, {rec.width_mm:g} mm wide, {rec.depth_mm:g} mm deep, silicone "
+            f"{rec.density_g_cm3:g} g/cm³ ({_cell(rec.source)})."]
     out += ["", "Threads (`features.axle_bore.thread`)", "",
             "| thread | major Ø (mm) | pitch (mm) | tap drill (mm) | class | source |", "| --- | --- | --- | --- | --- | --- |"]
     for t in THREADS.values():

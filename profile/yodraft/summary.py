@@ -69,6 +69,7 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
                      "density_g_cm3": v["material.density_g_cm3"]},
         "axle_bore": _hole(resolved),
         "shape": _shape_section(resolved),
+        **_response_section(resolved),
         **(_mass_sections(resolved) if resolved.can_analyse else {}),
         **({"features": resolved_dimensions(resolved),
             "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
@@ -107,6 +108,25 @@ def _axial(resolved: Resolved) -> dict[str, Any]:
         out.update({"seat_depth_mm": v["axial.seat_depth"], "seat_depth_tolerance_mm": v["axial.seat_depth_tolerance"],
                     "width_worst_mm": list(width.worst_mm), "width_rss_mm": list(width.rss_mm)})
     return out
+
+
+def _response_section(resolved: Resolved) -> dict[str, Any]:
+    """``pads``: how far each pad stands proud of the wall face and the pads' distance across the gap;
+    or ``recess`` when a silicone recess gives the response."""
+    import math
+
+    v = resolved.values
+    volume = math.pi / 4 * (v["pad_groove.pad_diameter"] ** 2 - v["pad_groove.inner_diameter"] ** 2) * v["pad_groove.pad_thickness"]
+    if v["pad_groove.response"] == "silicone":
+        return {"recess": {"inner_diameter_mm": v["pad_groove.inner_diameter"], "outer_diameter_mm": v["pad_groove.outer_diameter"],
+                           "width_mm": v["pad_groove.recess_width"], "depth_mm": v["pad_groove.depth"],
+                           "silicone_density_g_cm3": v["pad_groove.silicone_density"],
+                           "silicone_mass_g": v["pad_groove.silicone_density"] * volume / 1000}}
+    pad = resolved.features["pad_groove"].extra["pad"]
+    given = resolved.design["parts"]["pad_mass"]
+    return {"pads": {"class": pad.name, "thickness_mm": v["pad_groove.pad_thickness"], "groove_depth_mm": v["pad_groove.depth"],
+                     "proud_mm": v["pad_groove.proud"], "pad_to_pad_mm": v["pad_groove.pad_gap"],
+                     "mass_g": given if given is not None else pad.pad_density_g_cm3 * volume / 1000}}
 
 
 def _shape_section(resolved: Resolved) -> dict[str, Any]:

@@ -122,11 +122,21 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     out.append(f"Post, seat face and wall bore Ra {shop['seat_roughness']:g} µm; elsewhere Ra 3.2 µm")
     out.append(f"Runout {data.runout_mm:.3f} to A: G{data.balance_grade:g} (ISO 21940-11), "
                f"{data.spin_rate_rpm:g} rpm, {data.half_mass_g:.1f} g half")
+    v = resolved.values
+    if v["pad_groove.response"] == "silicone":
+        out.append(f"Response recess Ø{v['pad_groove.inner_diameter']:.2f}–Ø{v['pad_groove.outer_diameter']:.2f} "
+                   f"↧{v['pad_groove.depth']:g}: fill flush with silicone")
+    else:
+        proud = v["pad_groove.proud"]
+        where = "flush with" if abs(proud) < 1e-9 else f"{abs(proud):.2f} {'proud of' if proud > 0 else 'below'}"
+        out.append(f"Pads {v['pad_groove.pad_thickness']:g} thick stand {where} wall face, "
+                   f"{v['pad_groove.pad_gap']:.2f} pad to pad")
     if resolved.profile is not None:
         from ..checks import reentrant_regions
 
         for region in reentrant_regions(resolved.profile):
-            out.append(f"Undercut: {region.describe()}")
+            out.append(f"Undercut z {region.z_min:.2f}…{region.z_max:.2f}, Ø{2 * region.r_min:.2f}…Ø{2 * region.r_max:.2f}: "
+                       f"{region.tool}")
     out.append(f"General tolerance {shop['general_tolerance']}; dimensions in mm")
     return out
 

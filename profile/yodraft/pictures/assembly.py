@@ -85,10 +85,10 @@ def part_sections(resolved: Resolved) -> list[PartSection]:
         kind = "half" if name == BODY else name
         out.append(PartSection(kind, material, (loop, other), material_colour(material)))
     parts, axle_length = small_parts(resolved)
-    depth = v["pad_groove.depth"]
+    thickness = v["pad_groove.pad_thickness"]
     for part in parts:
-        if part.name == "response pad":
-            loop = _box(part.z_mm - depth / 2, part.z_mm + depth / 2, part.r_in_mm, part.r_out_mm)
+        if part.name in ("response pad", "silicone"):
+            loop = _box(part.z_mm - thickness / 2, part.z_mm + thickness / 2, part.r_in_mm, part.r_out_mm)
             out.append(PartSection(part.name, "silicone", (loop,), SILICONE, hatched=False))
     return out
 
