@@ -39,6 +39,13 @@ EDGES = {
                                ('creator = "A. Designer"', 'creator = "' + "M" * 24 + '"')],
     "200-character revision note": [('note = "First issue for prototype"', 'note = "' + ("word " * 40)[:200] + '"')],
     "percent codes in the title": [('title = "LS-56 string-trick yo-yo, one half"', 'title = "%%c %%d %%p 50%"')],
+    "every edge sharp": [('edge_radius = "2 mm"', 'edge_radius = "0 mm"'), ('lip_radius = "0.8 mm"', 'lip_radius = "0 mm"'),
+                         ('cup_radius = "1.5 mm"', 'cup_radius = "0 mm"'),
+                         ("[features.catch_zone]", '[features.catch_zone]\nedge_radius = "0 mm"')],
+    "rim thickness equal to its two edge radii": [('thickness = "3.5 mm"', 'thickness = "2.8 mm"')],
+    "cup floor turning flat at the cup wall": [('hub_height = "8 mm"', 'hub_height = "8 mm"\nfloor_diameter = "49 mm"')],
+    "wide pad groove": [("[features.pad_groove]", '[features.pad_groove]\nouter_diameter = "40 mm"')],
+    "small envelope": [('diameter = "56 mm"', 'diameter = "30 mm"'), ('width = "44 mm"', 'width = "30 mm"')],
 }
 
 

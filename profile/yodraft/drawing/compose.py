@@ -515,17 +515,41 @@ def _revision_block(font: Lettering, resolved: Resolved, top_left: tuple[float, 
 def _paragraphs(font: Lettering, heading: str, lines: list[str], top_left: tuple[float, float],
                 width: float) -> tuple[list[Item], float]:
     """A heading and wrapped lines (continuations indented); returns the items and the foot's y."""
-    x, y = top_left
+    items, foot, rest = _flow(font, heading, lines, [(top_left[0], top_left[1], width, -1e9)])
+    return items, foot
+
+
+def _flow(font: Lettering, heading: str, lines: list[str],
+          columns: list[tuple[float, float, float, float]]) -> tuple[list[Item], float, list[str]]:
+    """A heading and its lines set down column after column, each (x, top, width, bottom); a line that
+    would pass a column's bottom goes to the top of the next. Returns the items, the last foot and the
+    lines that found no room."""
     h = TEXT_HEIGHT
     items: list[Item] = []
+    todo = list(lines)
+    col = 0
+    x, y, width, bottom = columns[0]
     y -= h
     items.append(_text(font, heading, (x, y)))
-    for line in lines:
+    foot = y - h * font.descender
+    while todo:
+        line = todo[0]
         indent = 4.0 if line.startswith("   ") else 0.0
-        for j, part in enumerate(wrap(font, line.strip(), h, width - indent - (4.0 if True else 0.0))):
+        parts = wrap(font, line.strip(), h, width - indent - 4.0)
+        need = len(parts) * h * PITCH + h * font.descender
+        if y - need < bottom:
+            col += 1
+            if col >= len(columns):
+                return items, foot, todo
+            x, y, width, bottom = columns[col]
+            y += h * (PITCH - 1.0)  # the first line's cap at the column's top
+            continue
+        for j, part in enumerate(parts):
             y -= h * PITCH
             items.append(_text(font, part, (x + indent + (4.0 if j else 0.0), y)))
-    return items, y - h * font.descender
+        foot = y - h * font.descender
+        todo.pop(0)
+    return items, foot, []
 
 
 # ------------------------------------------------------------------ the sheet
@@ -622,11 +646,15 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     note_lines: list[str] = []
     for heading, lines in numbered([("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]):
         note_lines += [heading] + lines
-    notes, n_foot = _paragraphs(font, "NOTES", note_lines, (rev_x + 1.5, c_foot - GAP), frame[2] - rev_x - 3.0)
-    if n_foot < title_top + GAP:
-        notes, n_foot = _paragraphs(font, "NOTES", note_lines, (right_x + 1.5, min(dframe[1], c_foot) - GAP),
-                                    frame[2] - right_x - 3.0)
-    if n_foot < title_top + GAP and not force:
+    # the notes fill the room under the cautions, then go on under the detail (left of the title block
+    # when the detail stands clear of it)
+    title_x = frame[2] - TITLE_WIDTH
+    under_detail_bottom = frame[1] + GAP if dframe[2] <= title_x - GAP else title_top + GAP
+    columns = [(rev_x + 1.5, c_foot - GAP, frame[2] - rev_x - 3.0, title_top + GAP),
+               (dframe[0] + 1.5, dframe[1] - GAP, min(dframe[2], title_x - GAP if under_detail_bottom < title_top
+                                                       else frame[2]) - dframe[0] - 3.0, under_detail_bottom)]
+    notes, n_foot, rest = _flow(font, "NOTES", note_lines, columns)
+    if rest and not force:
         raise SheetTooSmall(f"{paper_name}: the notes run into the title block")
     items += notes
     scales = f"{scale_text(scale)}, detail C {scale_text(dscale)}"

@@ -17,7 +17,8 @@ from dataclasses import dataclass
 
 from ..builder import Resolved
 from ..geometry import Arc, Point, Profile
-from .locate import corner, on_face, on_radius
+from .locate import LocateError, on_face, on_radius
+from .locate import corner as _vertex_or_corner
 from .numbers import tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
@@ -107,6 +108,16 @@ def label(req: DimensionRequest, value: str) -> str:
     tol = req.tolerance.split("\n")[0]
     body = f"{body} {tol}" if tol else body
     return f"({body})" if req.auxiliary else body
+
+
+def corner(profile: Profile, point: Point) -> Point:
+    """The loop's vertex at ``point``, or the theoretical sharp corner of the fillet there; where two
+    fillets meet with no straight edge between them (a face used up by its edge radii) the corner is
+    ``point`` itself, the intersection of the two faces the design gives."""
+    try:
+        return _vertex_or_corner(profile, point)
+    except LocateError:
+        return point
 
 
 def seat_fit(resolved: Resolved):  # type: ignore[no-untyped-def]
