@@ -3,8 +3,8 @@
 Each half of the lot takes every toleranced dimension within its band: the
 post and the wall bore within the machine tolerance, the wall offset and the
 post length within the tolerances the gap tolerance gives them, every other
-dimension within the design's ISO 2768-1 general tolerance class, the coating thickness within its range and the
-density within the material's spread. Each half also meets a bearing whose
+dimension within the design's ISO 2768-1 general tolerance class, the coating
+thickness within its range and the density within the material's spread. Each half also meets a bearing whose
 bore, outside diameter and width lie within its ISO 492 class, and its
 surfaces sit off the axle axis within the drawing's circular runout. By
 default every band is ±3σ of a normal spread about its middle; ``uniform``
@@ -13,15 +13,18 @@ spreads each evenly over its band instead.
 The mass and Izz of a half follow from the exact model linearised about the
 nominal design: each dimension's sensitivity is a central difference of two
 real rebuilds (builder.build and the exact mass integrals), and the lot is
-evaluated on that linear model as NumPy arrays. A sample of halves is rebuilt
-exactly to measure how far the linear model is off (``linearisation_error``).
+evaluated on that linear model as NumPy arrays (under the normal spread, the
+dimensions that move only the mass and Izz are drawn as the one joint normal
+effect they have on the linear model). A sample of halves, drawn dimension by
+dimension, is rebuilt exactly to measure how far the linear model is off
+(``linearisation_error``).
 Fit clearances, the gap and the unbalance are linear in the drawn values and
 are worked out exactly.
 
 Assembly: the halves whose post takes the bearing and whose wall bore clears it
 are sorted by mass and neighbours within ``pair_window`` are paired; each pair
 is assembled with the bearing the lighter half met. A yo-yo is good when its
-gap lies within the gap tolerance and its static unbalance within the
+gap lies within nominal ± ``gap_tolerance`` and its static unbalance within the
 permissible value of the design's ISO 21940-11 grade. The gap, mass and
 unbalance distributions are those of a random assembly (halves 2k and 2k+1).
 The same seed gives the same lot.
@@ -39,13 +42,13 @@ from .analysis import analyse, part_props
 from .balance import permissible_specific_unbalance_mm
 from .builder import BuildMemo, Resolved, build, loop_chunks
 from .design import Design, with_values
-from .errors import DesignInputError
-from .features import FEATURES, LOOP_ORDER
+from .features import FEATURES
 from .massprops import combine_bodies
 from .tolerances.bearings import bearing_deviation_um
 from .tolerances.general import angle_tolerance_rad, general_tolerance_mm, radius_tolerance_mm
 
-__all__ = ["Band", "LotResult", "lot_bands", "run_lot", "pair_by_mass", "lot_summary", "lot_text", "DISTRIBUTIONS",
+__all__ = ["Band", "LotResult", "lot_bands", "run_lot", "pair_by_mass", "lot_summary", "lot_text", "lot_csv", "lot_svg",
+           "DISTRIBUTIONS",
            "DEFAULT_UNITS", "DEFAULT_SEED", "DEFAULT_PAIR_WINDOW_G", "DEFAULT_MASS_WINDOW_G", "MAX_UNITS"]
 
 DISTRIBUTIONS = ("normal", "uniform")
