@@ -37,6 +37,12 @@ EDGES = {
     "long title block texts": [('title = "LS-56 string-trick yo-yo, one half"', 'title = "' + "W" * 60 + '"'),
                                ('owner = "Larchmere Turning Co."', 'owner = "' + "W" * 40 + '"'),
                                ('creator = "A. Designer"', 'creator = "' + "M" * 24 + '"')],
+    "every title-block text at its longest": [
+        ('title = "LS-56 string-trick yo-yo, one half"', 'title = "' + "W" * 120 + '"'),
+        ('owner = "Larchmere Turning Co."', 'owner = "' + "W" * 60 + '"'),
+        ('identification = "LTC-0056"', 'identification = "' + "W" * 60 + '"'),
+        ('creator = "A. Designer"', 'creator = "' + "W" * 40 + '"'), ('approver = "B. Checker"', 'approver = "' + "W" * 40 + '"'),
+        ('revision = "A"', 'revision = "WWWWWWWW"'), ('letter = "A"', 'letter = "WWWWWWWW"')],
     "200-character revision note": [('note = "First issue for prototype"', 'note = "' + ("word " * 40)[:200] + '"')],
     "percent codes in the title": [('title = "LS-56 string-trick yo-yo, one half"', 'title = "%%c %%d %%p 50%"')],
     "every edge sharp": [('edge_radius = "2 mm"', 'edge_radius = "0 mm"'), ('lip_radius = "0.8 mm"', 'lip_radius = "0 mm"'),
@@ -349,7 +355,15 @@ def test_designs_at_the_edges_build_a_clean_sheet(case, tmp_path):
     design = _edited(tmp_path, EDGES[case])
     assert main(["check", str(design)]) == 0
     assert main(["build", str(design), "-o", str(tmp_path / "out")]) == 0
-    _check_sheet((tmp_path / "out" / "larchmere-ls56-A.dxf").read_bytes())
+    (dxf,) = (tmp_path / "out").glob("*[!e].dxf")  # the sheet, not the CAM profile
+    _check_sheet(dxf.read_bytes())
+    # every title-block and revision text is on the sheet in full (wrapped lines rejoined without spaces)
+    doc, _ = _read(dxf.read_bytes())
+    shown = "".join(t.plain_text() for t in doc.paperspace("sheet").query("TEXT")).replace(" ", "")
+    for key in ("title", "owner", "identification", "creator", "approver", "revision", "letter", "note"):
+        for line in design.read_text(encoding="utf-8").splitlines():
+            if line.startswith(f"{key} = "):
+                assert line.split(" = ", 1)[1].strip('"').replace(" ", "") in shown, key
 
 
 def _valid_corpus_designs() -> list[tuple[str, list]]:

@@ -35,10 +35,10 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("name", "text", "design name, used in output file names (letters, digits, . _ -)", max_length=64),
         ParamSpec("revision", "text", "revision letter or number shown in the title block", "A", max_length=8),
         ParamSpec("title", "text", "title shown in the title block", ""),
-        ParamSpec("owner", "text", "legal owner of the drawing (title block)", ""),
-        ParamSpec("identification", "text", "drawing identification number (title block)", ""),
-        ParamSpec("creator", "text", "who drew it (title block)", ""),
-        ParamSpec("approver", "text", "who approved it (title block)", ""),
+        ParamSpec("owner", "text", "legal owner of the drawing (title block)", "", max_length=60),  # what its title-block cell holds at 1.8 mm
+        ParamSpec("identification", "text", "drawing identification number (title block)", "", max_length=60),  # what its title-block cell holds at 1.8 mm
+        ParamSpec("creator", "text", "who drew it (title block)", "", max_length=40),  # what its title-block cell holds at 1.8 mm
+        ParamSpec("approver", "text", "who approved it (title block)", "", max_length=40),  # what its title-block cell holds at 1.8 mm
         ParamSpec("date", "text", "date of issue, YYYY-MM-DD; also fixes the DXF header dates", "2026-01-01", max_length=10),
         ParamSpec("material", "text", "body material from the catalog", "6061-T6", max_length=40),
         ParamSpec("density", "density", "overrides the catalog density of the material", None, 0.1, 25.0),

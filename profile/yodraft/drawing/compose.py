@@ -32,7 +32,7 @@ HATCH_SPACING = 3.0  # mm on paper (ISO 128-50: at least 0.7 mm) (from memory)
 GAP = 5.0  # clear paper between blocks
 PAD = 4.0  # clear paper inside the detail frame
 TITLE_WIDTH = 180.0  # ISO 7200 largest width
-ROW = 13.0  # title block row: label over value
+ROW = 14.0  # title block row: label over up to three lines of value
 LABEL_HEIGHT = 2.5  # ISO 3098-1 nominal size of the field labels
 VALUE_SIZES = (3.5, 2.5, 1.8)  # ISO 3098-1 sizes a value may shrink to
 REV_COLUMNS = (0.0, 12.0, 40.0)  # letter, date, what changed
@@ -430,7 +430,8 @@ def _title_block(font: Lettering, resolved: Resolved, data: SheetData, scales: s
             items.append(Stroke(((left, bottom), (left, bottom + ROW)), "frame", weight=0.25))
         items.append(_text(font, label, (left + 1.2, bottom + ROW - 1.0 - LABEL_HEIGHT), LABEL_HEIGHT))
         if value:
-            items += fit_cell(font, value, left + 1.2, bottom + 1.0, cw - 2.4, ROW - 3.0 - LABEL_HEIGHT - 1.0)
+            items += fit_cell(font, value, left + 1.2, bottom + 1.0, cw - 2.4,
+                              ROW - 1.0 - LABEL_HEIGHT * (1 + font.descender) - 0.7 - 1.0)
         if label == "Projection":
             items += _projection_symbol((left + cw / 2, bottom + 4.6), 3.2)
     return items
@@ -573,13 +574,14 @@ def compose(resolved: Resolved, data: SheetData) -> Sheet:
     """The sheet: the largest ISO 5455 scale at which every block fits, on A3 if it can, else A2."""
     font = lettering()
     last: SheetTooSmall | None = None
+    views: dict = {}  # a view at a scale is the same on either paper: composed once
     for paper, scale in _choices(resolved):
         try:
-            return _compose(resolved, data, font, paper, scale)
+            return _compose(resolved, data, font, paper, scale, views=views)
         except SheetTooSmall as exc:
             last = exc
     assert last is not None
-    return _compose(resolved, data, font, "A2", SCALES[-1], force=True)
+    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views)
 
 
 def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
@@ -591,7 +593,8 @@ def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
 
 
 def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, scale: float,
-             force: bool = False) -> Sheet:
+             force: bool = False, views: dict | None = None) -> Sheet:
+    views = {} if views is None else views
     paper = PAPERS[paper_name]
     frame = frame_of(paper)
     profile = resolved.profile
@@ -599,7 +602,9 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     z_min, _, z_max, R = profile.bounds()
     if not force and ((z_max - z_min) * scale > 0.45 * (frame[2] - frame[0]) or 2 * R * scale > frame[3] - frame[1] - 90):
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}")
-    main, mview, failed = _main_view(resolved, scale, font, data)
+    if ("main", scale) not in views:
+        views["main", scale] = _main_view(resolved, scale, font, data)
+    main, mview, failed = views["main", scale]
     if failed and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
     dx, dy = _fit_main(main, frame, frame[0] + GAP)
@@ -615,7 +620,9 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room right of the view")
     # the detail, framed, under the top edge
     dscale = _detail_scale(resolved, 0.32 * (frame[2] - right_x), 0.45 * (frame[3] - frame[1]))
-    detail, dview, dfailed = _detail(resolved, dscale, font, data)
+    if ("detail", dscale) not in views:
+        views["detail", dscale] = _detail(resolved, dscale, font, data)
+    detail, dview, dfailed = views["detail", dscale]
     ddx = right_x + PAD - detail.box[0]
     ddy = frame[3] - GAP - PAD - detail.box[3]
     detail = detail.moved(ddx, ddy)

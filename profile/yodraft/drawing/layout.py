@@ -10,6 +10,7 @@ stand horizontal on a leader shoulder or beside the arc.
 """
 from __future__ import annotations
 
+import itertools
 import math
 from dataclasses import dataclass, field
 from typing import Callable, Iterable
@@ -115,25 +116,36 @@ class Obstacles:
             self.add_box(text_box(t))
 
     def line_hits(self, box: Box) -> bool:
-        seen: set[int] = set()
-        for gx in range(int(math.floor(box[0] / CELL)), int(math.floor(box[2] / CELL)) + 1):
-            for gy in range(int(math.floor(box[1] / CELL)), int(math.floor(box[3] / CELL)) + 1):
-                for i in self.grid.get((gx, gy), ()):
-                    if i not in seen:
-                        seen.add(i)
-                        a, b = self.segs[i]
-                        if segment_hits_box(a, b, box):
-                            return True
+        x0, y0, x1, y1 = box
+        segs = self.segs
+        grid = self.grid
+        for gx in range(int(math.floor(x0 / CELL)), int(math.floor(x1 / CELL)) + 1):
+            for gy in range(int(math.floor(y0 / CELL)), int(math.floor(y1 / CELL)) + 1):
+                for i in grid.get((gx, gy), ()):
+                    a, b = segs[i]
+                    # quick reject on the segment's own extent, then the exact test
+                    if (a[0] < x0 and b[0] < x0) or (a[0] > x1 and b[0] > x1) or \
+                            (a[1] < y0 and b[1] < y0) or (a[1] > y1 and b[1] > y1):
+                        continue
+                    if segment_hits_box(a, b, box):
+                        return True
         return False
 
     def text_hits(self, box: Box) -> bool:
-        return any(boxes_overlap(box, self.boxes[i]) for i in self._near_boxes(box))
+        x0, y0, x1, y1 = box
+        for b in self.boxes:
+            if b[0] < x1 and x0 < b[2] and b[1] < y1 and y0 < b[3]:
+                return True
+        return False
 
     def crosses_text(self, segs: Iterable[Seg]) -> bool:
         for a, b in segs:
-            span = (min(a[0], b[0]), min(a[1], b[1]), max(a[0], b[0]), max(a[1], b[1]))
-            for i in self._near_boxes(span):
-                if segment_hits_box(a, b, inflate(self.boxes[i], 0.2)):
+            sx0, sx1 = (a[0], b[0]) if a[0] <= b[0] else (b[0], a[0])
+            sy0, sy1 = (a[1], b[1]) if a[1] <= b[1] else (b[1], a[1])
+            for box in self.boxes:
+                if box[0] - 0.2 > sx1 or box[2] + 0.2 < sx0 or box[1] - 0.2 > sy1 or box[3] + 0.2 < sy0:
+                    continue
+                if segment_hits_box(a, b, inflate(box, 0.2)):
                     return True
         return False
 
@@ -276,6 +288,13 @@ class Placer:
             return False
         return not any(ob.crosses_outline(a, b) for a, b in along)
 
+    def _clear(self, texts: list[Text]) -> bool:
+        for t in texts:
+            b = inflate(text_box(t), CLEAR)
+            if not self._inside(b) or self.obstacles.text_hits(b) or self.obstacles.line_hits(b):
+                return False
+        return True
+
     def _inside(self, b: Box) -> bool:
         lo = self.view.box
         return b[0] >= lo[0] and b[1] >= lo[1] and b[2] <= lo[2] and b[3] <= lo[3]
@@ -333,6 +352,8 @@ class Placer:
             for v_base in ((c + GAP + self.font.descender * TEXT_HEIGHT,) if not half else
                            (c + GAP + self.font.descender * TEXT_HEIGHT,)):
                 texts = self._text_items(lines_txt, fr, tu, v_base, view)
+                if not self._clear(texts):  # the cheap test first: most positions fail here
+                    continue
                 t_lo, t_hi = tu, tu + w
                 # the dimension line: between the extension lines, out to the text when it stands outside
                 if half:
@@ -365,7 +386,7 @@ class Placer:
         vertical = half or req.direction == "radial"
         fr = _Frame(vertical)
         lanes = list(self._lanes(req, vertical))
-        for mode, c, lower in [(m, c, lower) for m in (0, 1, 2) for c, lower in lanes]:
+        for mode, (c, lower) in itertools.product((0, 1, 2), lanes):
             if half:
                 z, r = req.points[0]
                 sign = -1.0 if lower else 1.0
