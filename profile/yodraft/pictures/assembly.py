@@ -89,7 +89,8 @@ def part_sections(resolved: Resolved) -> list[PartSection]:
     for part in parts:
         if part.name in ("response pad", "silicone"):
             loop = _box(part.z_mm - thickness / 2, part.z_mm + thickness / 2, part.r_in_mm, part.r_out_mm)
-            out.append(PartSection(part.name, "silicone", (loop,), SILICONE, hatched=False))
+            name = "response recess fill" if part.name == "silicone" else part.name
+            out.append(PartSection(name, "silicone", (loop,), SILICONE, hatched=False))
     return out
 
 
@@ -161,8 +162,8 @@ def _centre_lines(page: Page, view: View, z_half: float, r_max: float) -> None:
 
 def _section(page: Page, resolved: Resolved, sections: list[PartSection], axle_length: float, view: View) -> None:
     quads = [view.flipped(kr=k) for k in (1, -1)]
-    for part in sections:
-        _draw_loops(page, part.loops, quads, part.colour)
+    for part in sections:  # small unhatched parts (pads, silicone) get a narrower outline, so thin ones still show
+        _draw_loops(page, part.loops, quads, part.colour, width=WIDE if part.hatched else NARROW * 1.6)
         if part.hatched:  # adjacent parts hatched at opposite angles (ISO 128-50)
             hatch = "url(#hatch-body)" if part.name == "half" else "url(#hatch-part)"
             _draw_loops(page, part.loops, quads, hatch, outline=False)
