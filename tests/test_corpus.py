@@ -48,6 +48,8 @@ def snapshot(folder: Path) -> dict[str, tuple[str, int]]:
         rel = str(path.relative_to(folder))
         if path.is_dir():
             out[rel] = ("dir", path.stat().st_mtime_ns)
+        elif not path.is_file():  # a planted pipe: reading it would wait for ever
+            out[rel] = ("special", path.stat().st_mtime_ns)
         else:
             out[rel] = (hashlib.sha256(path.read_bytes()).hexdigest(), path.stat().st_mtime_ns)
     return out
@@ -64,6 +66,8 @@ def prepare(case: dict[str, Any], tmp: Path) -> tuple[list[str], Path, Path]:
         design.write_bytes(design_bytes(case))
     else:
         design.write_bytes(TEMPLATE.read_bytes())
+    if "fifo" in case:  # a named pipe nobody writes to, planted under this name in the scratch folder
+        os.mkfifo(scratch / case["fifo"])
     out = tmp / "out"
     out.mkdir()
     (out / "previous.dxf").write_bytes(PREVIOUS)

@@ -146,7 +146,7 @@ def test_holes_a_to_h_mirror_shafts(letter: str) -> None:
             assert hole_limits(letter, grade, high).lower_um == -shaft_limits(letter.lower(), grade, high).upper_um
 
 
-@pytest.mark.parametrize(("letter", "grade"), [("K", 9), ("M", 10), ("K", 2), ("N", 12), ("P", 1)])
+@pytest.mark.parametrize(("letter", "grade"), [("K", 2), ("M", 2), ("N", 12), ("P", 1)])
 def test_unsupported_hole_classes_say_so(letter: str, grade: int) -> None:
     with pytest.raises(FitCodeError, match="not supported"):
         hole_limits(letter, grade, 8.0)
@@ -215,7 +215,11 @@ def test_fit_summary_shape_and_kinds() -> None:
         ("H7/g6", "cannot read"),
         ("6 H7/g6/f7", "cannot read"),
         ("6 H7/H7", "hole class"),
-        ("6 K9", "not supported"),
+        ("6 K2", "not supported"),
+        ("6 H01", "IT01"),  # ISO 286-1 writes the two finest grades IT01 and IT0; neither is IT1
+        ("6 H0", "IT0"),
+        ("6 H007", "cannot read tolerance grade"),
+        ("6 h07", "cannot read tolerance grade"),
         ("", "cannot read"),
     ],
 )
@@ -229,6 +233,7 @@ def test_bad_codes(code: str, fragment: str) -> None:
 HOLES = [("E", g) for g in range(1, 13)] + [("F", g) for g in range(1, 13)] + [("G", g) for g in range(1, 13)] \
     + [("H", g) for g in range(1, 13)] + [("JS", g) for g in range(1, 13)] \
     + [(l, g) for l in ("K", "M", "N") for g in range(3, 9)] + [("N", g) for g in range(9, 12)] \
+    + [(l, g) for l in ("K", "M") for g in range(9, 13)] \
     + [("P", g) for g in range(3, 13)]
 SHAFTS = [(l, g) for l in ("e", "f", "g", "h", "js", "k", "m", "n", "p") for g in range(1, 13)]
 
@@ -259,3 +264,13 @@ def test_limits_are_frozen_and_validated() -> None:
     limits = Limits(1.0, 0.0)
     with pytest.raises(AttributeError):
         limits.upper_um = 2.0  # type: ignore[misc]
+
+
+@pytest.mark.parametrize(("code", "upper", "lower"), [
+    ("8 K9", 0.0, -36.0),    # ISO 286-1 Table 3: K above IT8 on the zero line (from memory); IT9 6–10 mm = 36 µm
+    ("8 M9", -6.0, -42.0),   # ISO 286-1 Table 3: M above IT8, ES = −m = −6 µm at 6–10 mm (m: ei +6, Table 2)
+    ("20 M10", -8.0, -92.0),  # ISO 286-1: m ei +8 µm at 18–30 mm, IT10 = 84 µm
+])
+def test_k_and_m_above_it8(code: str, upper: float, lower: float) -> None:
+    fit = parse_fit(code)
+    assert (fit.hole.upper_um, fit.hole.lower_um) == (upper, lower)

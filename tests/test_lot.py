@@ -184,7 +184,7 @@ def test_refuses_to_write_over_the_design(tmp_path: Path, capsys: pytest.Capture
     design = tmp_path / "d.toml"
     design.write_bytes(TEMPLATE.read_bytes())
     assert main(["lot", str(design), "--csv", str(tmp_path / "." / "d.toml")]) == 2
-    assert "is the design file" in capsys.readouterr().err
+    assert "is one of the input files" in capsys.readouterr().err
     assert design.read_bytes() == TEMPLATE.read_bytes()
 
 

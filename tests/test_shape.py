@@ -18,7 +18,7 @@ from yodraft.checks import BACK_TURNING_TOOL, GROOVING_TOOL, least_wall, reentra
 from yodraft.cli import main
 from yodraft.design import loads
 from yodraft.geometry import Profile
-from yodraft.output import build_outputs
+from yodraft.release import build_outputs
 
 STRING_TRICK = (TEMPLATES / "string-trick.toml").read_text(encoding="utf-8")
 SKETCHED = (TEMPLATES / "sketched.toml").read_text(encoding="utf-8")

@@ -11,7 +11,7 @@ from pathlib import Path
 from typing import Any
 
 from . import __version__
-from .errors import CheckFailure, DesignInputError, UsageError, YodraftError, one_line
+from .errors import CheckFailure, DesignInputError, UsageError, YodraftError, one_line, terminal_safe
 
 __all__ = ["main", "INTERNAL_ERROR"]
 
@@ -160,15 +160,13 @@ def _mass_option(text: str, option: str) -> float:
 
 
 def _output_targets(design: str, targets: Sequence[str | None]) -> None:
-    """Refuse an output file that is the design file itself, or one in a folder that does not exist."""
-    source = Path(design).resolve()
+    """Refuse, before any work, an output file that is the design file itself, a device or pipe, or one in a
+    folder that does not exist."""
+    from .output import writable_target
+
     for target in targets:
-        if target is None:
-            continue
-        if Path(target).resolve() == source:
-            raise DesignInputError(target, "", "is the design file", "a different file for the output")
-        if not Path(target).parent.is_dir():
-            raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+        if target is not None:
+            writable_target(Path(target), [design])
 
 
 def _lot(args: argparse.Namespace) -> int:
@@ -235,17 +233,14 @@ def _bom(args: argparse.Namespace) -> int:
     return 0
 
 
-def _write_or_print(text: str, target: str | None) -> None:
+def _write_or_print(text: str, target: str | None, inputs: Sequence[str] = ()) -> None:
+    """Print ``text``, or write it atomically to ``target`` — never over one of ``inputs`` (the design files read)."""
     if target is None:
         print(text, end="" if text.endswith("\n") else "\n")
         return
-    from .output import write_atomic
+    from .output import writable_target, write_atomic
 
-    path = Path(target)
-    if path.is_dir():
-        raise DesignInputError(target, "", "is a folder", "a file name")
-    if not path.parent.is_dir():
-        raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
+    path = writable_target(Path(target), inputs)
     write_atomic(path, text.encode("utf-8"))
     print(path, file=sys.stderr)
 
@@ -287,7 +282,7 @@ def _report(args: argparse.Namespace) -> int:
     data["pictures"] = picture_links(stem, pictures, report_dir, overlay[0].name if overlay else None)
     text = json.dumps(data, indent=2, ensure_ascii=False) + "\n" if args.format == "json" else report_markdown(data)
     if overlay is None:
-        _write_or_print(text, args.output)
+        _write_or_print(text, args.output, [args.design])
     else:  # the overlay and the report as one step: both files or neither
         from .output import write_files
 
@@ -350,16 +345,11 @@ def _diff(args: argparse.Namespace) -> int:
     return 0
 
 
-def _check_picture_target(target: str, inputs: Sequence[str]) -> None:
+def _check_picture_target(target: str, inputs: Sequence[str | None]) -> None:
     """A picture goes to a new or replaceable file in an existing folder, never over an input."""
-    path = Path(target)
-    if path.is_dir():
-        raise DesignInputError(target, "", "is a folder", "a file name for the picture")
-    if not path.parent.is_dir():
-        raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
-    for source in inputs:
-        if Path(source).exists() and path.resolve() == Path(source).resolve():
-            raise DesignInputError(target, "", "is one of the input files", "another file name for the picture")
+    from .output import writable_target
+
+    writable_target(Path(target), [i for i in inputs if i])
 
 
 def _progress(done: int, total: int) -> None:
@@ -382,13 +372,11 @@ def _sweep(args: argparse.Namespace) -> int:
     if args.y is not None and args.plot is None:
         raise DesignInputError("--y", "", "chooses what --plot draws", "--plot FILE.svg with it")
     y_keys = parse_y(args.y) if args.y is not None else None
-    for target in (args.csv, args.plot):
-        if target is not None and not Path(target).parent.is_dir():
-            raise DesignInputError(target, "", "its folder does not exist", "a file in an existing folder")
-    if args.plot is not None:
-        _check_picture_target(args.plot, [args.design] + ([args.csv] if args.csv else []))
+    _output_targets(args.design, (args.csv, args.plot))  # refused before the work, not after it
+    if args.csv is not None and args.plot is not None and Path(args.csv).absolute() == Path(args.plot).absolute():
+        raise DesignInputError(args.plot, "", "is also the CSV file", "two different file names for --csv and --plot")
     result = sweep(design, axes, workers=args.jobs, progress=_progress if sys.stderr.isatty() else None)
-    _write_or_print(csv_text(result), args.csv)
+    _write_or_print(csv_text(result), args.csv, [args.design])
     if args.plot:
         from .output import write_atomic
 
@@ -434,7 +422,7 @@ def _watch(args: argparse.Namespace) -> int:
 
 def _solve(args: argparse.Namespace) -> int:
     from .design import DATE_PATTERN, load
-    from .output import write_atomic
+    from .output import writable_target, write_atomic
     from .solve import TARGET_UNITS, parse_target, quantity_text, solve, solved_text
     from .textout import failed_lines
     from .tomledit import bump_revision
@@ -461,7 +449,7 @@ def _solve(args: argparse.Namespace) -> int:
         raise DesignInputError(str(out), "", "already exists", "a new file name for the solved design (-o)")
     text = solved_text(source.read_text(encoding="utf-8"), result, args.target.partition("=")[2], revision,
                        args.date or _today(), str(out))
-    write_atomic(out, text.encode("utf-8"))
+    write_atomic(writable_target(out, [args.design]), text.encode("utf-8"))
     unit = TARGET_UNITS[name]
     print(f"{result.key} = {quantity_text(result.value, result.spec)}: {name} {result.achieved:.4f} {unit} "
           f"(target {goal:g} {unit}) after {result.evaluations} trials; every check passes")
@@ -506,7 +494,7 @@ def _check(args: argparse.Namespace) -> int:
 
 
 def _build(args: argparse.Namespace) -> int:
-    from .output import build_outputs
+    from .release import build_outputs
 
     written, resolved = build_outputs(Path(args.design), Path(args.out), force=args.force)
     if not resolved.ok:
@@ -524,6 +512,8 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the ``yodraft`` command."""
     argv = sys.argv[1:] if argv is None else list(argv)
     code = 0
+    streams = sys.stdout, sys.stderr
+    sys.stdout, sys.stderr = _SafeStream(sys.stdout), _SafeStream(sys.stderr)  # user text never acts on a terminal
     try:
         if not argv:  # a first try with no arguments: show what the program does, not an error
             _parser().print_help()
@@ -541,12 +531,32 @@ def main(argv: Sequence[str] | None = None) -> int:
     except KeyboardInterrupt:
         print("yodraft: interrupted", file=sys.stderr)
         return 130
+    except OSError as exc:  # the system refused a path given on the command line (too long, no access, full disk)
+        name = exc.filename if isinstance(exc.filename, str) else "yodraft"
+        print(f"yodraft: {DesignInputError(name, '', f'cannot be used ({exc.strerror or exc})', 'a usable path')}",
+              file=sys.stderr)
+        return 2
     except Exception as exc:  # a bug in yodraft, not in the design: still one line, unless asked for the trace
         if os.environ.get("YODRAFT_TRACEBACK"):
             raise
         print(f"yodraft: internal error ({one_line(f'{type(exc).__name__}: {exc}')}); please report it with the "
               "design file, or set YODRAFT_TRACEBACK=1 to see where", file=sys.stderr)
         return INTERNAL_ERROR
+    finally:
+        sys.stdout, sys.stderr = streams
+
+
+class _SafeStream:
+    """A text stream that shows control and format characters of what it is given as escapes."""
+
+    def __init__(self, stream: Any) -> None:
+        self._stream = stream
+
+    def write(self, text: str) -> int:
+        return self._stream.write(terminal_safe(text))
+
+    def __getattr__(self, name: str) -> Any:  # flush, isatty, fileno … of the real stream
+        return getattr(self._stream, name)
 
 
 def _silence_stdout() -> None:

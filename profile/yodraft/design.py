@@ -2,7 +2,9 @@
 from __future__ import annotations
 
 import datetime
+import os
 import re
+import stat
 import tomllib
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field, replace
@@ -165,8 +167,16 @@ def load(path: str | Path) -> Design:
     """Read a design file; DesignInputError names the file and key for anything wrong."""
     p = Path(path)
     name = str(path)
-    if p.is_dir():
+    try:
+        mode = os.stat(p).st_mode
+    except FileNotFoundError:
+        raise DesignInputError(name, "", "no such file", "a design file (.toml)") from None
+    except OSError as exc:
+        raise DesignInputError(name, "", f"cannot be read ({exc.strerror})", "a readable design file") from None
+    if stat.S_ISDIR(mode):
         raise DesignInputError(name, "", "is a directory", "a design file (.toml)")
+    if stat.S_ISFIFO(mode) or stat.S_ISSOCK(mode):  # reading a pipe nobody writes to would wait for ever
+        raise DesignInputError(name, "", "is a named pipe or socket", "a design file (.toml)")
     try:
         with p.open("rb") as handle:  # read with a limit: /dev/zero or a runaway pipe would fill the memory
             data = handle.read(MAX_DESIGN_BYTES + 1)

@@ -1,6 +1,7 @@
 """The error family: bad input (exit 2) and a failed design rule (exit 1)."""
 from __future__ import annotations
 
+import re
 import unicodedata
 from collections.abc import Sequence
 from typing import TYPE_CHECKING
@@ -8,7 +9,7 @@ from typing import TYPE_CHECKING
 if TYPE_CHECKING:  # pragma: no cover
     from .checks import Check
 
-__all__ = ["YodraftError", "DesignInputError", "UsageError", "CheckFailure", "one_line"]
+__all__ = ["YodraftError", "DesignInputError", "UsageError", "CheckFailure", "one_line", "shortened", "terminal_safe"]
 
 
 def one_line(text: str) -> str:
@@ -23,6 +24,47 @@ def one_line(text: str) -> str:
     return "".join(
         (f"\\x{ord(c):02x}" if ord(c) < 0x100 else f"\\u{ord(c):04x}") if unicodedata.category(c) in ("Cc", "Cf") else c
         for c in text)
+
+
+#: characters that act on a terminal instead of showing: C0 controls but tab, newline and carriage return, DEL,
+#: the C1 controls, and the invisible format characters (bidirectional overrides and isolates, zero-width marks)
+_UNSAFE = re.compile("[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\u00ad\u061c\u180e\u200b-\u200f\u202a-\u202e"
+                     "\u2060-\u2064\u2066-\u206f\ufeff\ufff9-\ufffb\U000110bd\U0001d173-\U0001d17a\U000e0001"
+                     "\U000e0020-\U000e007f]")
+
+
+def _escape(match: re.Match[str]) -> str:
+    code = ord(match.group(0))
+    if code > 0xFFFF:  # as a JSON-style surrogate pair, so that escaped JSON stays valid JSON
+        code -= 0x10000
+        return f"\\u{0xD800 + (code >> 10):04x}\\u{0xDC00 + (code & 0x3FF):04x}"
+    return f"\\u{code:04x}"
+
+
+def terminal_safe(text: str) -> str:
+    r"""``text`` with every character that would act on a terminal shown as a ``\uXXXX`` escape
+    (valid inside a JSON string too); line breaks and tabs are kept.
+
+    >>> terminal_safe("LS-56\u202e65-SL\n\x1b[2J")
+    'LS-56\\u202e65-SL\n\\u001b[2J'
+    """
+    return _UNSAFE.sub(_escape, text)
+
+
+#: longest file name shown in a message: a longer one keeps its start and its end
+FILE_SHOWN = 160
+
+
+def shortened(name: str) -> str:
+    """A file name short enough for a one-line message (the middle of a very long path is cut).
+
+    >>> shortened("/tmp/" + "a" * 300 + ".toml")[-12:], len(shortened("/" + "a" * 300))
+    ('aaaaaaa.toml', 160)
+    """
+    if len(name) <= FILE_SHOWN:
+        return name
+    half = (FILE_SHOWN - 3) // 2
+    return name[:half] + "..." + name[-(FILE_SHOWN - 3 - half):]
 
 
 #: longest key path shown in a message; a longer one (a pasted paragraph used as a key) is cut
@@ -53,7 +95,8 @@ class DesignInputError(YodraftError, ValueError):
 
     def __str__(self) -> str:
         key = self.key if len(self.key) <= KEY_SHOWN else self.key[:KEY_SHOWN - 3] + "..."
-        text = f"{self.file}: {key}: {self.problem}" if key else f"{self.file}: {self.problem}"
+        file = shortened(self.file)
+        text = f"{file}: {key}: {self.problem}" if key else f"{file}: {self.problem}"
         if self.expected:
             text += f" (expected {self.expected})"
         return one_line(text)
@@ -91,4 +134,4 @@ class CheckFailure(YodraftError):
 
     def __str__(self) -> str:
         names = ", ".join(f"{c.name} ({c.feature}.{c.parameter})" for c in self.failed)
-        return one_line(f"{self.file}: {len(self.failed)} check(s) failed: {names}")
+        return one_line(f"{shortened(self.file)}: {len(self.failed)} check(s) failed: {names}")

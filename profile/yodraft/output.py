@@ -7,15 +7,13 @@ import re
 import stat
 import tempfile
 from pathlib import Path
-from typing import TYPE_CHECKING
+from collections.abc import Iterator, Sequence
+from contextlib import contextmanager
 
-from . import revision
 from .errors import DesignInputError
 
-if TYPE_CHECKING:  # pragma: no cover
-    from .builder import Resolved
-
-__all__ = ["write_atomic", "safe_stem", "output_path", "prepare_directory", "build_outputs"]
+__all__ = ["write_atomic", "write_files", "safe_stem", "output_path", "prepare_directory", "writable_target",
+           "directory_lock", "clean_stale_parts"]
 
 
 def write_atomic(path: Path, data: bytes) -> None:
@@ -31,6 +29,8 @@ def write_files(files: "dict[Path, bytes]") -> None:
     A name that cannot be written is a DesignInputError naming the file.
     """
     staged: list[tuple[str, Path]] = []
+    for path in files:
+        writable_target(path)
     try:
         for path, data in files.items():
             if path.is_dir():  # the one way a rename in the same folder can still fail
@@ -117,9 +117,9 @@ def prepare_directory(directory: Path) -> Path:
     """The output folder, created if needed; DesignInputError if it cannot be written."""
 
     directory = Path(directory)
-    if directory.exists() and not directory.is_dir():
-        raise DesignInputError(str(directory), "", "is not a folder", "an output folder")
     try:
+        if directory.exists() and not directory.is_dir():
+            raise DesignInputError(str(directory), "", "is not a folder", "an output folder")
         directory.mkdir(parents=True, exist_ok=True)
         probe = tempfile.NamedTemporaryFile(dir=directory, prefix=".yodraft-probe-")
         probe.close()
@@ -128,26 +128,58 @@ def prepare_directory(directory: Path) -> Path:
     return directory
 
 
-def build_outputs(design_path: Path, directory: Path, force: bool = False) -> tuple[list[Path], "Resolved"]:
-    """Load, resolve and check a design; when every check passes, write its drawings into ``directory``.
-
-    Every file is rendered in memory first, then all are written as one atomic step, so
-    a failed check, a bad input or a failed write leaves the folder as it was. A drawing of the same
-    revision with other geometry is not overwritten unless ``force`` (see yodraft.revision).
+def writable_target(path: Path, inputs: Sequence[Path | str] = ()) -> Path:
+    """``path`` if yodraft may write a file there, else DesignInputError naming it: its folder must exist, and
+    nothing but a regular file (or a link) may stand under its name — never a device, a pipe or a folder, which a
+    rename would replace — and it must not be one of ``inputs`` (the design files a command reads).
     """
-    from .builder import build
-    from .design import load
-    from .drawing.drawing import render_files
-    from .pictures.assembly import assembly_svg
+    path = Path(path)
+    name = str(path)
+    try:
+        st = os.lstat(path)
+    except FileNotFoundError:
+        st = None
+    except OSError as exc:
+        raise DesignInputError(name, "", f"cannot be written ({exc.strerror})", "a file name in a writable folder") from None
+    if st is not None and not (stat.S_ISREG(st.st_mode) or stat.S_ISLNK(st.st_mode)):
+        what = "a folder" if stat.S_ISDIR(st.st_mode) else "a device, pipe or socket, not a file"
+        raise DesignInputError(name, "", f"is {what}", "a file name to write")
+    if not path.parent.is_dir():
+        raise DesignInputError(name, "", "its folder does not exist", "a file in an existing folder")
+    for source in inputs:
+        try:
+            same = st is not None and os.path.samefile(path, source)
+        except OSError:
+            same = False
+        if same:
+            raise DesignInputError(name, "", "is one of the input files; not overwritten", "another file name")
+    return path
 
-    resolved = build(load(design_path))
-    if not resolved.ok:
-        return [], resolved
-    stem = safe_stem(resolved.design.name, resolved.design.revision)
-    files = render_files(resolved, stem)
-    files[f"{stem}-assembly.svg"] = assembly_svg(resolved)
-    directory = prepare_directory(directory)
-    files.update(revision.guard(directory, stem, resolved, force))
-    targets = {output_path(directory, name): data for name, data in files.items()}
-    write_files(targets)
-    return list(targets), resolved
+
+@contextmanager
+def directory_lock(directory: Path) -> Iterator[None]:
+    """Hold an exclusive lock on the output folder (no file is left behind): two builds writing into one folder
+    take turns, so a drawing and its build record always come from the same build."""
+    import fcntl
+
+    fd = os.open(directory, os.O_RDONLY)
+    try:
+        fcntl.flock(fd, fcntl.LOCK_EX)
+        yield
+    finally:
+        os.close(fd)  # closing releases the lock
+
+
+def clean_stale_parts(paths: Sequence[Path]) -> None:
+    """Remove the hidden ``.part`` files a killed writer of one of ``paths`` left behind (call it under the
+    folder's lock, so no live writer of the same file is at work)."""
+    for path in paths:
+        for stale in path.parent.glob(f".{_glob_escape(path.name)}.*.part"):
+            try:
+                stale.unlink()
+            except OSError:
+                pass
+
+
+def _glob_escape(name: str) -> str:
+    return re.sub(r"([*?\[])", r"[\1]", name)

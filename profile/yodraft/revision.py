@@ -11,6 +11,8 @@ from __future__ import annotations
 import hashlib
 import json
 import math
+import os
+import stat
 from collections.abc import Mapping
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -21,10 +23,11 @@ from .geometry import Arc
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
 
-__all__ = ["RevisionConflict", "RECORD_SUFFIX", "DRAWING_SUFFIXES", "geometry_fingerprint", "inputs_fingerprint",
-           "record", "read_record", "guard"]
+__all__ = ["RevisionConflict", "RECORD_SUFFIX", "DRAWING_SUFFIXES", "NOT_THE_PART", "geometry_fingerprint",
+           "part_fingerprint", "inputs_fingerprint", "record", "read_record", "guard"]
 
 RECORD_SUFFIX = ".build.json"
+RECORD_MAX_BYTES = 2**20  # a record is a few hundred bytes
 #: files whose presence means a drawing of this revision was already issued
 DRAWING_SUFFIXES = (".dxf",)
 FORMAT = "yodraft build record 1"
@@ -83,6 +86,25 @@ def geometry_fingerprint(resolved: "Resolved") -> str:
     return _sha({"profile": segments, "dimensions": _canon(dims)})
 
 
+#: settings that do not describe the part a machinist turns: the title-block people, title and date,
+#: the target mass, and the analysis settings that reach only the report (the spin rate and balance
+#: grade do reach the sheet: they set the runout tolerance)
+NOT_THE_PART = frozenset({"design.title", "design.owner", "design.identification", "design.creator", "design.approver",
+                          "design.date", "envelope.target_mass", "analysis.drag_torque", "analysis.rim_radius_ratio"})
+
+
+def part_fingerprint(resolved: "Resolved") -> str:
+    """SHA-256 of everything the sheet says about the part: the geometry (as ``geometry_fingerprint``) and every
+    setting read — material, bearing, shop settings (tolerances, finish, roughness, edge break), balance grade —
+    except ``NOT_THE_PART``. Equal whatever the file's wording or units.
+    """
+    d = resolved.design
+    settings = {f"{section}.{key}": value for section, table in d.sections.items() for key, value in table.items()
+                if f"{section}.{key}" not in NOT_THE_PART}
+    settings.update({f"features.{name}.{key}": value for name, table in d.features.items() for key, value in table.items()})
+    return _sha({"geometry": geometry_fingerprint(resolved), "settings": _canon(settings)})
+
+
 def inputs_fingerprint(resolved: "Resolved") -> str:
     """SHA-256 of the parsed design file (comments and layout do not count)."""
     return _sha(_canon(dict(resolved.design.raw)))
@@ -94,15 +116,20 @@ def record(resolved: "Resolved") -> dict[str, Any]:
 
     d = resolved.design
     return {"format": FORMAT, "design": d.name, "revision": d.revision,
-            "geometry_sha256": geometry_fingerprint(resolved), "inputs_sha256": inputs_fingerprint(resolved),
+            "geometry_sha256": geometry_fingerprint(resolved), "part_sha256": part_fingerprint(resolved),
+            "inputs_sha256": inputs_fingerprint(resolved),
             "revisions": [{"letter": r.letter, "date": r.date, "note": r.note} for r in d.revisions],
             "yodraft": __version__}
 
 
 def read_record(directory: Path, stem: str) -> dict[str, Any] | None:
     """The build record of ``stem`` in ``directory``, or None when there is none (or it is unreadable)."""
+    path = Path(directory) / f"{stem}{RECORD_SUFFIX}"
     try:
-        data = json.loads((Path(directory) / f"{stem}{RECORD_SUFFIX}").read_text(encoding="utf-8"))
+        if not stat.S_ISREG(os.stat(path).st_mode):  # a pipe planted under the record's name would hang the read
+            return None
+        with path.open("rb") as handle:
+            data = json.loads(handle.read(RECORD_MAX_BYTES).decode("utf-8"))
     except (OSError, ValueError):
         return None
     return data if isinstance(data, dict) else None
@@ -130,4 +157,7 @@ def guard(directory: Path, stem: str, resolved: "Resolved", force: bool = False)
     if old["geometry_sha256"] != rec["geometry_sha256"]:
         raise RevisionConflict(drawings[0], f"the geometry differs from the drawing already issued as revision "
                                f"{resolved.design.revision}")
+    if "part_sha256" in old and old["part_sha256"] != rec["part_sha256"]:  # records before 0.2 hold geometry only
+        raise RevisionConflict(drawings[0], "the material, a tolerance, the finish or another note on the sheet differs "
+                               f"from the drawing already issued as revision {resolved.design.revision}")
     return out

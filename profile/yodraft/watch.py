@@ -52,7 +52,8 @@ def watch(design_path: Path, out_dir: Path, *, interval: float = 0.25, max_build
     """
     from . import revision
     from .diff import diff
-    from .output import build_outputs, safe_stem
+    from .output import safe_stem
+    from .release import build_outputs
 
     design_path, out_dir = Path(design_path), Path(out_dir)
     deadline = None if timeout is None else time.monotonic() + timeout
@@ -89,12 +90,12 @@ def _build_once(design_path, out_dir, force, session, build_outputs, revision, s
         design = load(design_path)
         stem = safe_stem(design.name, design.revision)
         rec = revision.read_record(out_dir, stem)
-        own = rec is not None and rec.get("geometry_sha256") in session
+        own = rec is not None and rec.get("part_sha256") in session
         written, resolved = build_outputs(design_path, out_dir, force=force or own)
     except YodraftError as exc:
         return WatchEvent("error", message=str(exc)), None
     if not resolved.ok:
         failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]: {c.message}" for c in resolved.failed)
         return WatchEvent("failed", failed=failed), resolved
-    session.add(revision.geometry_fingerprint(resolved))
+    session.add(revision.part_fingerprint(resolved))
     return WatchEvent("built", written=tuple(written)), resolved

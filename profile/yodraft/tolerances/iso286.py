@@ -6,10 +6,11 @@ Size steps are "over a, up to and including b"; the first step is 0 (excl.) to 3
 
 Supported tolerance classes
 ---------------------------
-Holes: E F G H JS (grades 1–12); K M N (grades 3–8, with Δ); N (grades 9–11);
+Holes: E F G H JS (grades 1–12); K M N (grades 3–8, with Δ); K M (grades 9–12, without Δ); N (grades 9–11);
 P (grades 3–7 with Δ, 8–12 without); N9–N11 only over 1 mm. Shafts: e f g h js k m n p (grades 1–12).
-Anything else (other letters, K/M/N/P below grade 3, K and M above 8, N above 11,
-sizes over 120 mm) raises :class:`FitCodeError` naming what is not supported.
+Anything else (other letters, K/M/N/P below grade 3, N above 11, the grades IT01 and IT0,
+sizes over 120 mm) raises :class:`FitCodeError` naming what is not supported. A grade is
+written as the standard writes it ("7", "01"): "007" or "H07" is not read as IT7.
 
 JS/js are taken as exactly ± IT/2 (half-micrometre values are kept, not rounded).
 
@@ -220,13 +221,17 @@ def hole_limits(letter: str, grade: int, size_mm: float) -> Limits:
         es = -_SHAFT_EI[low][i] + delta_um(grade, size_mm)
     elif letter == "P" and grade >= 8:
         es = -_SHAFT_EI[low][i]
+    elif letter == "K" and grade >= 9:
+        es = 0.0  # K above IT8 sits on the zero line  # ISO 286-1, Table 3 (from memory)
+    elif letter == "M" and grade >= 9:
+        es = -_SHAFT_EI["m"][i]  # M above IT8: ES = −m, no Δ  # ISO 286-1, Table 3
     elif letter == "N" and 9 <= grade <= 11:
         if size_mm <= 1.0:  # ISO 286-1, Table 3 footnote: N above IT8 not for sizes up to 1 mm
             raise FitCodeError(f"hole class N{grade} is not used for sizes up to 1 mm",
                                "N with a grade from 3 to 8 at this size")
         es = -4.0 if i == 0 else 0.0  # ISO 286-1, Table 3, N above IT8
     else:
-        supported = {"K": "3 to 8", "M": "3 to 8", "N": "3 to 11", "P": "3 to 12"}[letter]
+        supported = {"K": "3 to 12", "M": "3 to 12", "N": "3 to 11", "P": "3 to 12"}[letter]
         raise FitCodeError(f"hole class {letter}{grade} is not supported here",
                            f"{letter} with a grade from {supported}")
     return Limits(_round(es), _round(es - it))
@@ -267,7 +272,13 @@ def _split_class(text: str) -> tuple[str, int]:
     match = _CLASS.match(text)
     if not match:  # pragma: no cover - the code pattern already guarantees the shape
         raise FitCodeError(f"cannot read tolerance class {text!r}", "a letter and a grade, e.g. H7")
-    letter, grade = match.group(1), int(match.group(2))
+    letter, digits = match.group(1), match.group(2)
+    if digits in ("01", "0"):
+        raise FitCodeError(f"tolerance grade IT{digits} of {text!r} is not held here",
+                           f"a grade from IT{GRADES[0]} to IT{GRADES[-1]}")
+    if digits.startswith("0"):
+        raise FitCodeError(f"cannot read tolerance grade {digits!r} of {text!r}", "a grade such as 7 or 11, e.g. H7")
+    grade = int(digits)
     if letter not in _HOLE_LETTERS and letter not in _SHAFT_LETTERS:
         raise FitCodeError(f"tolerance class {text!r} has an unknown or unsupported letter {letter!r}",
                            "holes " + " ".join(_HOLE_LETTERS) + ", shafts " + " ".join(_SHAFT_LETTERS))
