@@ -393,6 +393,10 @@ class Placer:
                 pts = [v.to_paper((z, 0.0)), v.to_paper((z, sign * abs(r)))]
             else:
                 pts = [v.to_paper((p[0], -p[1] if lower else p[1])) for p in req.points]
+            # a lane on or beside another dimension line is out whatever the text does: test that first
+            (u1, _), (u2, _) = fr.uv(pts[0]), fr.uv(pts[1])
+            if self.obstacles.dimline_too_close([(fr.xy(min(u1, u2), c), fr.xy(max(u1, u2), c))]):
+                continue
             for texts, lines, ext, arrows, dline in self._linear_candidates(req, fr, pts[0], pts[1], c, half, mode):
                 if self._ok(texts, lines, ext, [dline] if not half else [], [dline]):
                     strokes = [Stroke(s, "dimension", v.name) for s in lines]

@@ -31,9 +31,10 @@ def _find(name: str) -> Path | None:
         root = Path(folder).expanduser()
         if not root.is_dir():
             continue
-        direct = root / name
-        if direct.is_file():
-            return direct
+        for sub in ("", "truetype/dejavu", "dejavu", "TTF", "dejavu-sans-fonts"):  # where distributions put it
+            direct = root / sub / name
+            if direct.is_file():
+                return direct
         for dirpath, _, files in os.walk(root):
             if name in files:
                 return Path(dirpath) / name
