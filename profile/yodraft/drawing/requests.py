@@ -13,13 +13,13 @@ Every point comes from the drawn profile (``locate``), so each dimension measure
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from ..builder import Resolved
 from ..geometry import Arc, Point, Profile
 from .locate import LocateError, on_face, on_radius
 from .locate import corner as _vertex_or_corner
-from .numbers import tolerance_text
+from .numbers import size_text, tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
            "detail_requests", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
@@ -151,73 +151,160 @@ def _tolerance(tol_mm: float, nominal_mm: float, inch: bool) -> str:
 
 
 def section_requests(resolved: Resolved) -> list[DimensionRequest]:
-    """The dimensions of the main view (the seat's own sizes are on the detail)."""
+    """The dimensions of the main view (the seat's own sizes are on the detail), the chain settled."""
+    return [r for r in sheet_requests(resolved) if r.view == "main"]
+
+
+def detail_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The dimensions of the seat detail: the fitted diameters, the seat face, and the gap's chain from it."""
+    return [r for r in sheet_requests(resolved) if r.view == "detail"]
+
+
+def sheet_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """Every dimension of the sheet in order of importance, settled into one chain (``chain.settle``):
+    the seat and the gap's chain first (from the seat face, their functional face), then the seat face
+    from datum face B, then what locates the rest from B and the axis. A dimension that would close a
+    loop stays as an auxiliary one; whatever corner no dimension locates gets its position from B or its
+    diameter, and every arc its radius (``n×`` where one value serves several)."""
+    from .chain import settle
+
+    profile = resolved.profile
+    assert profile is not None
+    wanted = _seat_requests(resolved) + _main_requests(resolved)
+    settled, chain = settle(wanted, profile, datum_face_z(resolved))
+    settled += _complete(resolved, chain)
+    return _radii(resolved, settled)
+
+
+def _seat_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The seat detail: post (datum A) and wall bore with their fits, the seat face, and from the seat face
+    the wall offset and post length with the tolerances the gap allocates, and the vent groove depth."""
+    profile = resolved.profile
+    assert profile is not None
+    v = resolved.values
+    fit = seat_fit(resolved)
+    inch = bool(v["bearing.inch"])
+    out = [
+        DimensionRequest(("bearing_seat.post_diameter",), "diameter",
+                         (on_radius(profile, v["bearing_seat.post_diameter"] / 2, prefer="min"),), view="detail",
+                         side="left", decimals=3, tolerance=_tolerance(fit.post.tolerance_mm, fit.post.nominal_mm, inch)),
+        DimensionRequest(("bearing_seat.wall_bore", "vent_groove.outer_diameter"), "diameter",
+                         (on_radius(profile, v["bearing_seat.wall_bore"] / 2, prefer="min"),), view="detail",
+                         side="left", decimals=3, tolerance=_tolerance(fit.wall.tolerance_mm, fit.wall.nominal_mm, inch)),
+        DimensionRequest(("bearing_seat.seat_face_diameter", "vent_groove.inner_diameter"), "diameter",
+                         (on_radius(profile, v["bearing_seat.seat_face_diameter"] / 2, prefer="min"),),
+                         view="detail", side="left", decimals=3),
+    ]
+    seat_z = v["bearing_seat.seat_face_z"]
+    seat = on_face(profile, seat_z)
+    post = on_face(profile, v["bearing_seat.post_face_z"])
+    wall = on_face(profile, v["bearing_seat.wall_face_z"], prefer="min")
+    out.append(DimensionRequest(("bearing_seat.wall_offset",), "linear", (wall, seat), view="detail",
+                                direction="axial", side="above", decimals=3,
+                                tolerance=f"±{size_text(v['bearing_seat.wall_offset_tolerance'])}"))
+    out.append(DimensionRequest(("bearing_seat.post_length",), "linear", (post, seat), view="detail",
+                                direction="axial", side="above", decimals=3,
+                                tolerance=f"±{size_text(v['bearing_seat.post_length_tolerance'])}"))
+    face_r = v["bearing_seat.seat_face_diameter"] / 2
+    out.append(DimensionRequest(("vent_groove.depth",), "linear", (
+        corner(profile, (seat_z, face_r)), corner(profile, (v["vent_groove.bottom_z"], face_r))),
+        view="detail", direction="axial"))
+    return out
+
+
+def _main_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The main view's dimensions in order of importance: the seat face from datum face B, the gap side,
+    the axle hole, the outer shape from B and the axis; then what follows from those (auxiliary once settled)."""
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
     R = profile.bounds()[3]
     wall_z = v["bearing_seat.wall_face_z"]
-    out: list[DimensionRequest] = []
+    zb = datum_face_z(resolved)
+    b = on_face(profile, zb)
     cone = v["shape.kind"] == "cone"
-    if cone:
-        # diameters on the outer side
-        for keys, at in (
-            (("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),
-            (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
-            (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
-            (("rim.diameter",), on_radius(profile, R)),
-        ):
-            out.append(DimensionRequest(keys, "diameter", (at,), side="right"))
-    # diameters on the gap side that the detail does not carry
+    z_post = v["bearing_seat.post_face_z"]
+    out: list[DimensionRequest] = [
+        DimensionRequest(("bearing_seat.seat_face_z",), "linear",
+                         (on_face(profile, v["bearing_seat.seat_face_z"], prefer="min"), b), direction="axial",
+                         side="below", lower=True, decimals=3,
+                         tolerance=f"±{size_text(v['axial.seat_depth_tolerance'])}" if "axial.seat_depth_tolerance" in v else ""),
+    ]
+    # the gap side: pad groove (its depth from the wall face) and the catch zone's start
+    pad_r0 = v["pad_groove.inner_diameter"] / 2
     for keys, at in (
         (("pad_groove.inner_diameter", "bearing_seat.wall_outside_diameter"),
-         on_radius(profile, v["pad_groove.inner_diameter"] / 2, prefer="min")),
+         on_radius(profile, pad_r0, prefer="min")),
         (("pad_groove.outer_diameter",), on_radius(profile, v["pad_groove.outer_diameter"] / 2, prefer="min")),
     ):
         out.append(DimensionRequest(keys, "diameter", (at,), side="left"))
+    out.append(DimensionRequest(("pad_groove.depth",), "linear", (
+        corner(profile, (wall_z, pad_r0)), corner(profile, (v["pad_groove.bottom_z"], pad_r0))), direction="axial"))
     start_r = v["shape.start_diameter"] / 2
     if cone:
         out.append(DimensionRequest(("catch_zone.start_diameter",), "diameter", (corner(profile, (wall_z, start_r)),),
                                     side="left"))
+    # the axle hole: thread (ISO 6410-1) with its full-thread depth, tap drill with its depth, from the post face
     r_t = v["axle_bore.major_diameter"] / 2
-    z_post = v["bearing_seat.post_face_z"]
+    r_d = v["axle_bore.tap_drill"] / 2
     thread = thread_callout(resolved)
     out.append(DimensionRequest(("axle_bore.major_diameter",), "diameter", ((z_post, r_t),), side="left",
                                 lower=True, text="M<>" + thread[len(f"M{v['axle_bore.major_diameter']:g}"):]))
-    pad_r0 = v["pad_groove.inner_diameter"] / 2
-    out.append(DimensionRequest(("pad_groove.depth",), "linear", (
-        corner(profile, (wall_z, pad_r0)), corner(profile, (v["pad_groove.bottom_z"], pad_r0))), direction="axial"))
     out.append(DimensionRequest(("axle_bore.thread_depth",), "linear", (
-        (z_post, r_t), (z_post + v["axle_bore.thread_depth"], r_t)), direction="axial", lower=True))
-    # axial positions from datum face B (the outer face), below the mirror half
-    zb = datum_face_z(resolved)
-    b = on_face(profile, zb)
+        (z_post, r_t), (z_post + v["axle_bore.thread_depth"], r_t)), direction="axial", lower=True, text="↧<>"))
+    out.append(DimensionRequest(("axle_bore.tap_drill",), "diameter", ((z_post, r_d),), side="left", lower=True,
+                                text="Ø<> 118°"))
+    out.append(DimensionRequest(("axle_bore.drill_depth",), "linear", (
+        (z_post, r_d), (v["axle_bore.bottom_z"], r_d)), direction="axial", lower=True, text="↧<>"))
+    if cone:
+        out += _rim_requests(resolved)
+    else:
+        out += shape_requests(resolved)
+    # positions from datum face B that the seat chain already gives: auxiliary once settled
     for keys, p in (
-        (("bearing_seat.seat_face_z",), on_face(profile, v["bearing_seat.seat_face_z"], prefer="min")),
         (("bearing_seat.wall_face_z",), corner(profile, (wall_z, start_r))),
         (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, z_post, prefer="min")),
     ):
         out.append(DimensionRequest(keys, "linear", (p, b), direction="axial", side="below", lower=True))
-    if not cone:
-        return out + shape_requests(resolved)
-    # rim band, cup depth and hub height
-    out.append(DimensionRequest(("rim.width",), "linear", (
-        corner(profile, (v["catch_zone.end_z"], R)), corner(profile, (v["rim.face_z"], R))),
-        direction="axial", side="above"))
+    return out
+
+
+def _rim_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The cone family's rim and cup: diameters; the rim band, cup floor, flat floor and hub face from
+    datum face B; then the hub height and the two cone angles, which follow (auxiliary once settled)."""
+    profile = resolved.profile
+    assert profile is not None
+    v = resolved.values
+    R = profile.bounds()[3]
+    zb = datum_face_z(resolved)
+    b = on_face(profile, zb)
+    wall_z = v["bearing_seat.wall_face_z"]
+    out: list[DimensionRequest] = []
+    has_hub = v["rim.hub_diameter"] > 0 and v["rim.hub_height"] > 0
+    for keys, at in (
+        (("rim.diameter",), on_radius(profile, R)),
+        (("rim.cup_diameter",), corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))),
+        (("rim.floor_diameter",), corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))),
+    ) + ((("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),) * has_hub:
+        out.append(DimensionRequest(keys, "diameter", (at,), side="right"))
+    band = corner(profile, (v["catch_zone.end_z"], R))
+    out.append(DimensionRequest(("rim.width",), "linear", (band, corner(profile, (v["rim.face_z"], R))),
+                                direction="axial", side="above"))
     cup0 = corner(profile, (v["rim.floor_z"], v["rim.cup_diameter"] / 2))
     cup1 = corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))
     out.append(DimensionRequest(("rim.cup_depth",), "linear", (cup0, cup1), direction="axial"))
-    hub = on_radius(profile, v["rim.hub_diameter"] / 2)
     floor = corner(profile, (v["rim.flat_z"], v["rim.floor_diameter"] / 2))
-    out.append(DimensionRequest(("rim.hub_height",), "linear", (floor, hub), direction="axial"))
-    # catch-zone angle and cup floor cone, both from the gap plane
+    out.append(DimensionRequest(("rim.flat_z",), "linear", (floor, b), direction="axial", side="below", lower=True))
+    if has_hub:
+        hub = on_radius(profile, v["rim.hub_diameter"] / 2)
+        out.append(DimensionRequest(("rim.hub_face_z",), "linear", (hub, b), direction="axial", side="below",
+                                    lower=True))
+        out.append(DimensionRequest(("rim.hub_height",), "linear", (floor, hub), direction="axial"))
     start = corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))
-    tip = corner(profile, (v["catch_zone.end_z"], R))
-    out.append(DimensionRequest(("catch_zone.angle",), "angle", (start, tip, (start[0], start[1] + 10.0)),
+    out.append(DimensionRequest(("catch_zone.angle",), "angle", (start, band, (start[0], start[1] + 10.0)),
                                 decimals=1))
     out.append(DimensionRequest(("rim.floor_angle",), "angle", (cup0, floor, (cup0[0], cup0[1] - 10.0)),
                                 decimals=1))
-    # fillet and edge radii (a sharp edge, radius 0, has none)
     for key, near in (
         ("rim.edge_radius", (v["rim.face_z"], R)),
         ("rim.lip_radius", (v["rim.face_z"], v["rim.cup_diameter"] / 2)),
@@ -228,6 +315,48 @@ def section_requests(resolved: Resolved) -> list[DimensionRequest]:
         if arc is not None:
             mid = arc.point_at(arc.start_angle + arc.sweep / 2)
             out.append(DimensionRequest((key,), "radius", (arc.center, mid, arc.start, arc.end), decimals=2))
+    return out
+
+
+def _complete(resolved: Resolved, chain) -> list[DimensionRequest]:  # type: ignore[no-untyped-def]
+    """A position from datum face B and a diameter for each corner the requests leave unlocated."""
+    profile = resolved.profile
+    assert profile is not None
+    b = on_face(profile, datum_face_z(resolved))
+    out = []
+    for c in chain.unlocated():
+        if not chain.z.located(c[0]):
+            chain.tie("axial", c, b)
+            out.append(DimensionRequest(("profile.position",), "linear", (c, b), direction="axial", side="below",
+                                        lower=True))
+        if not chain.r.located(abs(c[1])):
+            chain.tie("diameter", c)
+            out.append(DimensionRequest(("profile.diameter",), "diameter", (c,), side="right"))
+    return out
+
+
+def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[DimensionRequest]:
+    """Every arc of the loop sized: one radius dimension per value, written ``n×R…`` where it serves n arcs."""
+    profile = resolved.profile
+    assert profile is not None
+    arcs = [s for s in profile.segments if isinstance(s, Arc)]
+    radius_reqs = [r for r in requests if r.kind == "radius"]
+    out = [r for r in requests if r.kind != "radius"]
+    shown: dict[float, list[DimensionRequest]] = {}
+    for req in radius_reqs:
+        shown.setdefault(round(measure(req), 6), []).append(req)
+    for arc in arcs:
+        value = round(arc.radius, 6)
+        own = [r for r in shown.get(value, []) if math.dist(r.points[0], arc.center) < 1e-6]
+        if not own and value not in shown:
+            mid = arc.point_at(arc.start_angle + arc.sweep / 2)
+            shown[value] = [DimensionRequest(("profile.radius",), "radius", (arc.center, mid))]
+    for value, reqs in shown.items():
+        count = sum(1 for a in arcs if abs(a.radius - value) < 1e-6)
+        keys = tuple(dict.fromkeys(k for r in reqs for k in r.keys))
+        first = replace(reqs[0], keys=keys)
+        # one dimension per value: the others are the same size and are counted on it
+        out.append(replace(first, text=f"{count}×R<>") if count > 1 else first)
     return out
 
 
@@ -268,39 +397,6 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
                                     side="left" if first else "right"))
     for _, (keys, at) in sorted(positions.items(), reverse=True):
         out.append(DimensionRequest(tuple(sorted(keys)), "linear", (at, b), direction="axial", side="below", lower=True))
-    return out
-
-
-def detail_requests(resolved: Resolved) -> list[DimensionRequest]:
-    """The dimensions of the seat detail: the fitted diameters, groove depth, post length and wall offset."""
-    profile = resolved.profile
-    assert profile is not None
-    v = resolved.values
-    fit = seat_fit(resolved)
-    inch = bool(v["bearing.inch"])
-    out = [
-        DimensionRequest(("bearing_seat.post_diameter",), "diameter",
-                         (on_radius(profile, v["bearing_seat.post_diameter"] / 2, prefer="min"),), view="detail",
-                         side="left", decimals=3, tolerance=_tolerance(fit.post.tolerance_mm, fit.post.nominal_mm, inch)),
-        DimensionRequest(("bearing_seat.seat_face_diameter", "vent_groove.inner_diameter"), "diameter",
-                         (on_radius(profile, v["bearing_seat.seat_face_diameter"] / 2, prefer="min"),),
-                         view="detail", side="left", decimals=3),
-        DimensionRequest(("bearing_seat.wall_bore", "vent_groove.outer_diameter"), "diameter",
-                         (on_radius(profile, v["bearing_seat.wall_bore"] / 2, prefer="min"),), view="detail",
-                         side="left", decimals=3, tolerance=_tolerance(fit.wall.tolerance_mm, fit.wall.nominal_mm, inch)),
-    ]
-    seat_z = v["bearing_seat.seat_face_z"]
-    face_r = v["bearing_seat.seat_face_diameter"] / 2
-    out.append(DimensionRequest(("vent_groove.depth",), "linear", (
-        corner(profile, (seat_z, face_r)), corner(profile, (v["vent_groove.bottom_z"], face_r))),
-        view="detail", direction="axial"))
-    seat = on_face(profile, seat_z)
-    post = on_face(profile, v["bearing_seat.post_face_z"])
-    wall = on_face(profile, v["bearing_seat.wall_face_z"], prefer="min")
-    out.append(DimensionRequest(("bearing_seat.post_length",), "linear", (post, seat), view="detail",
-                                direction="axial", side="above"))
-    out.append(DimensionRequest(("bearing_seat.wall_offset",), "linear", (wall, seat), view="detail",
-                                direction="axial", side="above"))
     return out
 
 

@@ -50,7 +50,7 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     dims = {"diameter": diameter, "overall_width": overall, "face_z": face_z, "width": p["width"],
             "thickness": p["thickness"], "cup_diameter": 2 * cup_r, "cup_depth": cup_depth, "floor_z": floor_z,
             "floor_angle": p["floor_angle"], "floor_diameter": 2 * flat_r, "flat_z": flat_z,
-            "hub_diameter": 2 * hub_r, "hub_height": hub_h, "edge_radius": p["edge_radius"],
+            "hub_diameter": 2 * hub_r, "hub_height": hub_h, "hub_face_z": flat_z + hub_h, "edge_radius": p["edge_radius"],
             "lip_radius": p["lip_radius"], "cup_radius": p["cup_radius"]}
     checks = (
         check("cup inside the rim", f"{NAME}.thickness", 0 < cup_r < R, f"cup Ø{2 * cup_r:.2f} mm in a Ø{diameter:.2f} mm rim"),
