@@ -53,9 +53,12 @@ def _arc_centre(p: tuple[float, float], q: tuple[float, float], bulge: float) ->
 
 
 def _segments(poly) -> list[dict]:  # type: ignore[no-untyped-def]
+    """The pieces of one polyline (closing piece included when it is closed)."""
     pts = [(x, y, b) for x, y, _, _, b in poly.get_points("xyseb")]
     out = []
-    for i, (x, y, b) in enumerate(pts):
+    count = len(pts) if poly.closed else len(pts) - 1
+    for i in range(count):
+        x, y, b = pts[i]
         nx, ny, _ = pts[(i + 1) % len(pts)]
         if math.dist((x, y), (nx, ny)) < 1e-12:
             continue
@@ -64,6 +67,49 @@ def _segments(poly) -> list[dict]:  # type: ignore[no-untyped-def]
             seg["centre"], seg["radius"] = _arc_centre((x, y), (nx, ny), b)
         out.append(seg)
     return out
+
+
+def _half_loop(polys: list) -> list[dict]:  # type: ignore[type-arg]
+    """The upper half's closed loop: the pieces of the outline polylines that lie in the upper half, joined
+    end to start, the gaps between them closed along the axis (where the half and its mirror meet the
+    section is solid, and one outline runs round both)."""
+    runs: list[list[dict]] = []
+    for poly in polys:
+        segs = _segments(poly)
+        up = [min(s["start"][1], s["end"][1]) > -EPS and max(s["start"][1], s["end"][1]) > EPS for s in segs]
+        if all(up):
+            runs.append(segs)
+            continue
+        if not any(up):
+            continue
+        k = up.index(False)
+        segs, up = segs[k:] + segs[:k], up[k:] + up[:k]
+        run: list[dict] = []
+        for seg, u in zip(segs, up):
+            if u:
+                run.append(seg)
+            elif run:
+                runs.append(run)
+                run = []
+        if run:
+            runs.append(run)
+    if len(runs) == 1 and math.dist(runs[0][0]["start"], runs[0][-1]["end"]) < EPS:
+        return runs[0]
+    loop: list[dict] = []
+    rest = list(runs)
+    run = rest.pop(0)
+    while True:
+        loop += run
+        end = run[-1]["end"]
+        if not rest:
+            break
+        run = min(rest, key=lambda r: math.dist(r[0]["start"], end))
+        rest.remove(run)
+        if math.dist(run[0]["start"], end) > EPS:
+            loop.append({"start": end, "end": run[0]["start"], "bulge": 0.0})
+    if math.dist(loop[-1]["end"], loop[0]["start"]) > EPS:
+        loop.append({"start": loop[-1]["end"], "end": loop[0]["start"], "bulge": 0.0})
+    return loop
 
 
 def _direction(seg: dict, at_start: bool) -> tuple[float, float]:
@@ -142,7 +188,7 @@ def read_sheet(path: Path) -> dict:
     msp = doc.modelspace()
     loops = [e for e in msp.query("LWPOLYLINE") if e.dxf.layer == "outline"]
     outline_segs = [_segments(p) for p in loops]
-    upper = max(outline_segs, key=lambda segs: max(s["start"][1] for s in segs))
+    upper = _half_loop(loops)
     dims = list(msp.query("DIMENSION"))
     for block in doc.blocks:
         if not block.name.startswith("*"):
@@ -228,6 +274,11 @@ def analyse(sheet: dict) -> dict:
             joined = z.join(z.node(p2.x), z.node(p3.x))
         elif abs(p2.y + p3.y) < EPS and abs(p2.x - p3.x) < EPS:  # a (half-shown) diameter: 2r across the axis
             joined = r.join(r.node(abs(p2.y)), r.node(0.0))
+            depth = re.search(r"↧\s*(\d+(?:\.\d+)?)", text)
+            if depth:  # a hole's depth written with its diameter (ISO 129-1 depth symbol), from the face it starts at
+                ends = [p2.x + float(depth.group(1)), p2.x - float(depth.group(1))]
+                end = next((e for e in ends if any(abs(c[0] - e) < 1e-3 for c in corners)), ends[0])
+                z.join(z.node(p2.x), z.node(next((c[0] for c in corners if abs(c[0] - end) < 1e-3), end)))
         else:
             joined = r.join(r.node(abs(p2.y)), r.node(abs(p3.y)))
         if not joined:

@@ -118,7 +118,8 @@ def test_every_dimension_is_a_real_tagged_dimension_measuring_the_model(files, r
     # what each key's DIMENSION must measure (mm; angles in degrees)
     expected = {
         "rim.diameter": v["rim.diameter"], "rim.hub_diameter": v["rim.hub_diameter"],
-        "rim.width": v["rim.width"], "rim.cup_depth": v["rim.cup_depth"],
+        # the cup floor and the hub face located from datum face B (ISO 129-1 chain from the datum face)
+        "rim.width": v["rim.width"], "rim.flat_z": zb - v["rim.flat_z"], "rim.hub_face_z": zb - v["rim.hub_face_z"],
         "catch_zone.angle": math.degrees(v["catch_zone.angle"]),
         "bearing_seat.post_diameter": v["bearing_seat.post_diameter"],
         "bearing_seat.wall_bore": v["bearing_seat.wall_bore"],
@@ -161,12 +162,16 @@ def test_hatch_area_equals_section_area(files, resolved):
 
 
 def test_outline_is_the_loop_and_its_mirror(files, resolved):
+    """One closed outline round the half and its mirror: where they meet on the axis the section is solid
+    metal, so no outline runs there, only the centre line (ISO 128-3)."""
     doc, _ = _read(files[f"{STEM}.dxf"])
     loops = doc.modelspace().query("LWPOLYLINE[layer=='outline']")
-    assert len(loops) == 2
-    for e in loops:
-        poly = shapely.Polygon([(q.x, q.y) for q in ezdxf.path.make_path(e).flattening(0.001)])
-        assert poly.area == pytest.approx(resolved.profile.signed_area(), rel=1e-4)
+    assert len(loops) == 1 and loops[0].closed
+    poly = shapely.Polygon([(q.x, q.y) for q in ezdxf.path.make_path(loops[0]).flattening(0.001)])
+    assert poly.is_valid and poly.area == pytest.approx(2 * resolved.profile.signed_area(), rel=1e-4)
+    pts = [(x, y) for x, y, *_ in loops[0].get_points("xyb")]
+    on_axis = [(a, b) for a, b in zip(pts, pts[1:] + pts[:1]) if abs(a[1]) < 1e-9 and abs(b[1]) < 1e-9]
+    assert on_axis == []
 
 
 def _paper_texts(doc) -> str:  # type: ignore[no-untyped-def]
@@ -345,7 +350,7 @@ def _check_sheet(data: bytes) -> None:
 def test_no_text_collides_on_any_template(path):
     files = render_files(build(load(path)), "x")
     _check_sheet(files["x.dxf"])
-    assert len(ezdxf.read(io.StringIO(files["x.dxf"].decode())).paperspace("sheet").query("TEXT")) > 60
+    assert len(ezdxf.read(io.StringIO(files["x.dxf"].decode())).paperspace("sheet").query("TEXT")) > 50
 
 
 @pytest.mark.parametrize("case", sorted(EDGES), ids=str)

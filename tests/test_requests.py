@@ -32,7 +32,7 @@ def _expected(r) -> dict[str, float]:
     n = sum(1 for k in v if k.startswith("shape.point_") and k.endswith("_z"))
     for i in range(n):
         z, d = v[f"shape.point_{i}_z"], v[f"shape.point_{i}_diameter"]
-        if d > 0:
+        if d > 0 and abs(d - v["pad_groove.outer_diameter"]) > 1e-9:  # that diameter is dimensioned once, on the groove
             out[f"shape.point_{i}_diameter"] = d
         if abs(z - zb) > 1e-9 and abs(z - v["bearing_seat.wall_face_z"]) > 1e-9:
             out[f"shape.point_{i}_z"] = zb - z
@@ -46,8 +46,9 @@ def _common(r, zb: float) -> dict[str, float]:
     v = r.values
     return {
         "rim.diameter": v["rim.diameter"], "rim.cup_diameter": v["rim.cup_diameter"],
-        "rim.hub_diameter": v["rim.hub_diameter"], "rim.floor_diameter": v["rim.floor_diameter"],
-        "rim.width": v["rim.width"], "rim.cup_depth": v["rim.cup_depth"], "rim.hub_height": v["rim.hub_height"],
+        "rim.hub_diameter": v["rim.hub_diameter"], "rim.width": v["rim.width"], "rim.hub_height": v["rim.hub_height"],
+        # the cup floor and the hub face from datum face B
+        "rim.flat_z": zb - v["rim.flat_z"], "rim.hub_face_z": zb - v["rim.hub_face_z"],
         "rim.floor_angle": math.degrees(v["rim.floor_angle"]),
         "catch_zone.start_diameter": v["catch_zone.start_diameter"],
         "catch_zone.angle": math.degrees(v["catch_zone.angle"]),
@@ -57,13 +58,12 @@ def _common(r, zb: float) -> dict[str, float]:
         "bearing_seat.seat_face_diameter": v["bearing_seat.seat_face_diameter"],
         "bearing_seat.post_diameter": v["bearing_seat.post_diameter"],
         "bearing_seat.seat_face_z": zb - v["bearing_seat.seat_face_z"],
-        "bearing_seat.wall_face_z": zb - v["bearing_seat.wall_face_z"],
         "bearing_seat.post_face_z": zb - v["bearing_seat.post_face_z"],
         "bearing_seat.post_length": v["bearing_seat.post_length"],
         "bearing_seat.wall_offset": v["bearing_seat.wall_offset"],
         "vent_groove.depth": v["vent_groove.depth"],
         "axle_bore.major_diameter": v["axle_bore.major_diameter"],
-        "axle_bore.thread_depth": v["axle_bore.thread_depth"],
+        "axle_bore.tap_drill": v["axle_bore.tap_drill"],
         "rim.edge_radius": v["rim.edge_radius"], "rim.lip_radius": v["rim.lip_radius"],
         "rim.cup_radius": v["rim.cup_radius"], "catch_zone.edge_radius": v["catch_zone.edge_radius"],
     }
@@ -77,6 +77,15 @@ def test_every_request_measures_what_the_design_resolved(path):
     for key, value in _expected(r).items():
         assert key in shown, f"no dimension for {key}"
         assert measure(shown[key]) == pytest.approx(value, abs=1e-6), key
+    # a surface shown twice (the cup floor in the band's end plane, the flat floor at the pad groove's
+    # diameter) is dimensioned once
+    v = r.values
+    if v["shape.kind"] == "cone":
+        assert ("rim.cup_depth" in shown) == (abs(v["rim.floor_z"] - v["catch_zone.end_z"]) > 1e-6)
+        assert ("rim.floor_diameter" in shown) == (abs(v["rim.floor_diameter"] - v["pad_groove.outer_diameter"]) > 1e-6)
+    # the hole's depths are written with their diameters, with the depth symbol (ISO 129-1)
+    assert shown["axle_bore.thread_depth"].text.endswith(f"↧{v['axle_bore.thread_depth']:g}")
+    assert shown["axle_bore.drill_depth"].text.endswith(f"↧{v['axle_bore.drill_depth']:g}")
 
 
 def test_angle_is_counter_clockwise_from_p1_to_p2():

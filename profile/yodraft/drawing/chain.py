@@ -5,7 +5,7 @@ ISO 129-1 dimensions to) have an axial position z and a radius r. A flat face ma
 z, a cylinder its corners one r. Each linear dimension ties two z (axial) or two r (radial), a diameter
 ties an r to the axis. Walking the requests in order of importance, a dimension that ties two values
 already tied closes a loop: it is kept for the reader as an auxiliary dimension, in parentheses and
-without a tolerance (ISO 129-1). An angle never locates a corner here: it is auxiliary. What stays
+without a tolerance (ISO 129-1),. An angle never locates a corner here: it is auxiliary. What stays
 unlocated after all requests is what the sheet still lacks.
 
 >>> from yodraft.geometry import Line, Profile
@@ -153,6 +153,7 @@ def settle(requests: list[Any], profile: Profile, face_b: float) -> tuple[list[A
     order of importance; and the chain they leave."""
     chain = Chain(profile, face_b)
     out = []
+    direct: set[tuple[float, float]] = set()
     for req in requests:
         if req.kind == "radius":
             out.append(req)
@@ -160,6 +161,21 @@ def settle(requests: list[Any], profile: Profile, face_b: float) -> tuple[list[A
             out.append(replace(req, auxiliary=True, tolerance=""))
         else:
             kind = req.direction if req.kind == "linear" else "diameter"
-            tied = chain.tie(kind, *req.points)
-            out.append(req if tied else replace(req, auxiliary=True, tolerance=""))
+            pair = _pair(kind, req.points)
+            if chain.tie(kind, *req.points):
+                direct.add(pair)
+                out.append(req)
+            elif pair not in direct:  # the very same two surfaces as a dimension already given: nothing new
+                out.append(replace(req, auxiliary=True, tolerance=""))
     return out, chain
+
+
+def _pair(kind: str, points: tuple[Point, ...]) -> tuple[float, float]:
+    """The two values a dimension ties (rounded), the same for any dimension between the same two surfaces."""
+    if kind == "axial":
+        a, b = points[0][0], points[1][0]
+    elif kind == "radial":
+        a, b = abs(points[0][1]), abs(points[1][1])
+    else:
+        a, b = abs(points[0][1]), 0.0
+    return (round(min(a, b), 6), round(max(a, b), 6))

@@ -19,7 +19,7 @@ from .clip import clip_segments
 from .layout import CLEAR, TEXT_HEIGHT, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, shop_lines
-from .requests import DATUM_A_KEY, detail_region, detail_requests, section_requests
+from .requests import DATUM_A_KEY, datum_face_z, detail_region, detail_requests, section_requests
 from .sheetdata import (Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View, segments_of, text_box,
                         translate)
 
@@ -116,6 +116,51 @@ def _profile_stroke(profile: Profile, view: View, layer: str = "outline") -> Str
     return Stroke(pts, layer, view.name, closed=True, bulges=bulges)
 
 
+def _section_strokes(profile: Profile, view: View) -> list[Stroke]:
+    """The section's outline: the half's loop and its mirror's, joined into one closed loop where they
+    share an edge on the axis (there the section is solid metal and only the centre line runs, ISO 128-3).
+    A half that never, or more than once, runs along the axis keeps its two loops (open at the axis)."""
+    def runs(loop: Profile) -> list[list]:  # type: ignore[type-arg]
+        segs = list(loop.segments)
+        axial = [isinstance(x, Line) and abs(x.start[1]) < 1e-9 and abs(x.end[1]) < 1e-9 for x in segs]
+        if not any(axial):
+            return [segs]
+        k = axial.index(True)
+        segs, axial = segs[k:] + segs[:k], axial[k:] + axial[:k]
+        out, run = [], []  # type: ignore[var-annotated]
+        for seg, on in zip(segs, axial):
+            if on and run:
+                out.append(run)
+                run = []
+            elif not on:
+                run.append(seg)
+        if run:
+            out.append(run)
+        return out
+
+    def stroke(pieces: list, closed: bool) -> Stroke:  # type: ignore[type-arg]
+        pts = tuple(view.to_paper(x.start) for x in pieces) + (() if closed else (view.to_paper(pieces[-1].end),))
+        return Stroke(pts, "outline", view.name, closed=closed,
+                      bulges=tuple(x.bulge if isinstance(x, Arc) else 0.0 for x in pieces))
+
+    upper, lower = runs(profile), runs(profile.mirrored())
+    one_gap = len(upper) == 1 and len(lower) == 1 and any(
+        isinstance(x, Line) and abs(x.start[1]) < 1e-9 and abs(x.end[1]) < 1e-9 for x in profile.segments)
+    if one_gap:
+        a, b = upper[0], lower[0]
+        if math.dist(b[0].start, a[-1].end) > 1e-9:  # run the mirror back from where the half ends
+            b = [_reversed(x) for x in reversed(b)]
+        return [stroke(a + b, closed=True)]
+    return [stroke(run, closed=False) for run in upper + lower]
+
+
+def _reversed(seg: Line | Arc) -> Line | Arc:
+    """The same edge walked the other way."""
+    if isinstance(seg, Line):
+        return Line(seg.end, seg.start)
+    return Arc(seg.center, seg.radius, seg.start_angle + seg.sweep, -seg.sweep)
+
+
 def _hatch_lines(polys: list[shapely.Polygon], origin: tuple[float, float], spacing: float,
                  angle: float = 45.0) -> list[tuple[tuple[float, float], tuple[float, float]]]:
     """Section lines at ``angle`` ``spacing`` apart, one through ``origin``, cut to the polygons (paper)."""
@@ -192,6 +237,7 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     view = View("main", scale, (0.0, 0.0), (-400.0, -400.0, 400.0, 400.0))
     upper, lower = _profile_stroke(profile, view), _profile_stroke(profile.mirrored(), view)
     hatch = _hatch([profile.polygon(), profile.mirrored().polygon()], view, (upper, lower))
+    section = _section_strokes(profile, view)
     over = 4.0
     axis = Stroke((view.to_paper((z_min, 0.0)), view.to_paper((z_max, 0.0))), "centre", "main")
     axis = Stroke(((axis.points[0][0] - over, 0.0), (axis.points[1][0] + over, 0.0)), "centre", "main")
@@ -200,13 +246,13 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     end = z0 + v["axle_bore.thread_depth"]
     thread = [Stroke((view.to_paper((z0, s * r_t)), view.to_paper((end, s * r_t))), "thread", "main") for s in (1, -1)]
     thread.append(Stroke((view.to_paper((end, -r_t)), view.to_paper((end, r_t))), "thread", "main", weight=0.5))
-    items: list[Item] = [upper, lower, hatch, axis] + thread
+    items: list[Item] = section + [hatch, axis] + thread
     # the detail's region marked on the view (ISO 128-3: narrow frame and its letter)
     region = detail_region(resolved)
     a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
     marker = _rect(a[0], a[1], b[0], b[1], "detail")
     items.append(marker)
-    ob = _obstacles(items, [upper, lower])
+    ob = _obstacles(items, section)
     bbox = (view.to_paper((z_min, -R))[0], view.to_paper((z_min, -R))[1], view.to_paper((z_max, R))[0],
             view.to_paper((z_max, R))[1])
     placer = Placer(view, font, ob, _solid_test(profile, view), bbox)
@@ -218,8 +264,9 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
                                          (a[0] - 1.5, b[1] + 4.0, "right"), (a[0] - 5.0, b[1] + 6.0, "right")])
     items.append(letter)
     ob.add_item(letter)
-    # datum A on the dimension line of the datum feature
+    # datum A on the dimension line of the datum feature; datum B on the outer face itself
     items += _datum(font, ob, [d for d in dims if DATUM_A_KEY in d.request.keys], "A")
+    items += _datum_face(font, ob, view, profile, datum_face_z(resolved), "B")
     # runout of the rim's outer diameter
     z_od = v["catch_zone.end_z"] + 0.25 * (v["rim.face_z"] - v["catch_zone.end_z"])
     items += _runout(font, ob, view.to_paper((z_od, R)), data.runout_mm, up=True)
@@ -237,6 +284,39 @@ def _place_text(font: Lettering, ob: Obstacles, s: str, spots, h: float = TEXT_H
             return t
     assert first is not None
     return first
+
+
+def _datum_face(font: Lettering, ob: Obstacles, view: View, profile: Profile, z: float, letter: str) -> list[Item]:
+    """ISO 5459 datum feature indicator on a flat face at ``z`` (upper half): the filled triangle's base on
+    the face's outline, a leader out beyond the face (+z), the framed letter at its end."""
+    faces = [x for x in profile.segments if isinstance(x, Line) and abs(x.start[0] - z) < 1e-9 and abs(x.end[0] - z) < 1e-9]
+    if not faces:
+        return []
+    face = max(faces, key=lambda x: abs(x.end[1] - x.start[1]))
+    r0, r1 = sorted((face.start[1], face.end[1]))
+    s, size = 3.0, 7.0
+    for share in (0.5, 0.3, 0.7, 0.15, 0.85):
+        x, y = view.to_paper((z, r0 + share * (r1 - r0)))
+        for reach in (4.0, 7.0, 10.0, 14.0):
+            for rise in (0.0, 6.0, -6.0, 10.0, -10.0):
+                apex = (x + s * 0.87, y)
+                tri = Fill(((x, y - s / 2), (x, y + s / 2), apex), "dimension")
+                knee = (apex[0] + reach, y)
+                end = (knee[0], y + rise)
+                parts: list[Item] = [tri, Stroke((apex, knee), "dimension")]
+                if rise:
+                    parts.append(Stroke((knee, end), "dimension"))
+                    cx, cy = end[0], end[1] + (size / 2 if rise > 0 else -size / 2)
+                else:
+                    cx, cy = knee[0] + size / 2, y
+                box = (cx - size / 2, cy - size / 2, cx + size / 2, cy + size / 2)
+                parts += [_rect(*box, "dimension"), _text(font, letter, (cx, cy - TEXT_HEIGHT / 2), align="center")]
+                if _free(ob, parts) and not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR)):
+                    for p in parts:
+                        ob.add_item(p)
+                    ob.add_box(box)
+                    return parts
+    return []
 
 
 def _free(ob: Obstacles, items: list[Item], within: tuple[float, float, float, float] | None = None) -> bool:

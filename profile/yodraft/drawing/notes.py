@@ -117,7 +117,7 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     out.append(f"Edges ISO 13715: external -{brk:g}, internal -{brk:g}; post/seat-face corner "
                f"+{passing:g}/-{brk:g} (ring chamfer {size_text(resolved['bearing.chamfer'])})")
     d = resolved.features["axle_bore"].dims
-    out.append(f"{thread_designation(resolved)}, tap drill Ø{d['tap_drill']:g} ↧{d['drill_depth']:g} from post face; "
+    out.append(f"{thread_designation(resolved)}, tap drill Ø{d['tap_drill']:g} ↧{d['drill_depth']:g}, 118° point, from post face; "
                f"{back_wall_mm(resolved):.2f} left to hub face (min {shop['min_wall']:g})")
     out.append(f"Post, seat face and wall bore Ra {shop['seat_roughness']:g} µm; elsewhere Ra 3.2 µm")
     out.append(f"Runout {data.runout_mm:.3f} to A: G{data.balance_grade:g} (ISO 21940-11), "
@@ -137,7 +137,13 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
         for region in reentrant_regions(resolved.profile):
             out.append(f"Undercut z {region.z_min:.2f}…{region.z_max:.2f}, Ø{2 * region.r_min:.2f}…Ø{2 * region.r_max:.2f}: "
                        f"{region.tool}")
-    out.append(f"General tolerance {shop['general_tolerance']}; dimensions in mm")
+    from .requests import unspecified_radii
+
+    radii = unspecified_radii(resolved)
+    general = f"General tolerance {shop['general_tolerance']}; dimensions in mm"
+    if radii:
+        general += "; unspecified radii " + ", ".join(f"R{size_text(x)}" for x in radii)
+    out.append(general)
     return out
 
 

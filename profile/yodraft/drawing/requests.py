@@ -22,10 +22,10 @@ from .locate import corner as _vertex_or_corner
 from .numbers import size_text, tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
-           "detail_requests", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+           "detail_requests", "sheet_requests", "unspecified_radii", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
 
 DIA = "Ø"
-DATUM_A_KEY = "axle_bore.major_diameter"  # the dimension whose feature is datum A (its axis)
+DATUM_A_KEY = "bearing_seat.post_diameter"  # the dimension whose feature is datum A: the bearing seat's axis
 KINDS = ("linear", "diameter", "radius", "angle")
 VIEWS = ("main", "detail")
 SIDES = ("", "above", "below", "left", "right")
@@ -172,6 +172,10 @@ def sheet_requests(resolved: Resolved) -> list[DimensionRequest]:
     assert profile is not None
     wanted = _seat_requests(resolved) + _main_requests(resolved)
     settled, chain = settle(wanted, profile, datum_face_z(resolved))
+    # the tap drill's depth, written with its diameter (Ø3.3 ↧10.1), locates the drill's end from the post face
+    v = resolved.values
+    r_d = v["axle_bore.tap_drill"] / 2
+    chain.tie("axial", (v["bearing_seat.post_face_z"], r_d), (v["axle_bore.bottom_z"], r_d))
     settled += _complete(resolved, chain)
     return _radii(resolved, settled)
 
@@ -244,28 +248,24 @@ def _main_requests(resolved: Resolved) -> list[DimensionRequest]:
     if cone:
         out.append(DimensionRequest(("catch_zone.start_diameter",), "diameter", (corner(profile, (wall_z, start_r)),),
                                     side="left"))
-    # the axle hole: thread (ISO 6410-1) with its full-thread depth, tap drill with its depth, from the post face
+    # the axle hole (ISO 6410-1 representation): the thread and the tap drill, each with its depth from the
+    # post face written with the depth symbol, e.g. M4×0.7-6H ↧8 and Ø3.3 ↧10.1 (the drill's 118° point in the notes)
     r_t = v["axle_bore.major_diameter"] / 2
     r_d = v["axle_bore.tap_drill"] / 2
     thread = thread_callout(resolved)
-    out.append(DimensionRequest(("axle_bore.major_diameter",), "diameter", ((z_post, r_t),), side="left",
-                                lower=True, text="M<>" + thread[len(f"M{v['axle_bore.major_diameter']:g}"):]))
-    out.append(DimensionRequest(("axle_bore.thread_depth",), "linear", (
-        (z_post, r_t), (z_post + v["axle_bore.thread_depth"], r_t)), direction="axial", lower=True, text="↧<>"))
-    out.append(DimensionRequest(("axle_bore.tap_drill",), "diameter", ((z_post, r_d),), side="left", lower=True,
-                                text="Ø<> 118°"))
-    out.append(DimensionRequest(("axle_bore.drill_depth",), "linear", (
-        (z_post, r_d), (v["axle_bore.bottom_z"], r_d)), direction="axial", lower=True, text="↧<>"))
+    out.append(DimensionRequest(("axle_bore.major_diameter", "axle_bore.thread_depth"), "diameter", ((z_post, r_t),),
+                                side="left", lower=True,
+                                text="M<>" + thread[len(f"M{v['axle_bore.major_diameter']:g}"):]
+                                + f" ↧{size_text(v['axle_bore.thread_depth'])}"))
+    out.append(DimensionRequest(("axle_bore.tap_drill", "axle_bore.drill_depth"), "diameter", ((z_post, r_d),),
+                                side="left", text=f"Ø<> ↧{size_text(v['axle_bore.drill_depth'])}"))
     if cone:
         out += _rim_requests(resolved)
     else:
         out += shape_requests(resolved)
-    # positions from datum face B that the seat chain already gives: auxiliary once settled
-    for keys, p in (
-        (("bearing_seat.wall_face_z",), corner(profile, (wall_z, start_r))),
-        (("bearing_seat.post_face_z", "profile.half_width"), on_face(profile, z_post, prefer="min")),
-    ):
-        out.append(DimensionRequest(keys, "linear", (p, b), direction="axial", side="below", lower=True))
+    # the post face from datum face B, which the seat chain already gives: the half's width, auxiliary once settled
+    out.append(DimensionRequest(("bearing_seat.post_face_z", "profile.half_width"), "linear",
+                                (on_face(profile, z_post, prefer="min"), b), direction="axial", side="below", lower=True))
     return out
 
 
@@ -303,8 +303,9 @@ def _rim_requests(resolved: Resolved) -> list[DimensionRequest]:
     start = corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))
     out.append(DimensionRequest(("catch_zone.angle",), "angle", (start, band, (start[0], start[1] + 10.0)),
                                 decimals=1))
-    out.append(DimensionRequest(("rim.floor_angle",), "angle", (cup0, floor, (cup0[0], cup0[1] - 10.0)),
-                                decimals=1))
+    if v["rim.floor_angle"] > 0 and math.dist(cup0, floor) > 1e-6:  # a flat floor has no cone to show
+        out.append(DimensionRequest(("rim.floor_angle",), "angle", (cup0, floor, (cup0[0], cup0[1] - 10.0)),
+                                    decimals=1))
     for key, near in (
         ("rim.edge_radius", (v["rim.face_z"], R)),
         ("rim.lip_radius", (v["rim.face_z"], v["rim.cup_diameter"] / 2)),
@@ -336,28 +337,34 @@ def _complete(resolved: Resolved, chain) -> list[DimensionRequest]:  # type: ign
 
 
 def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[DimensionRequest]:
-    """Every arc of the loop sized: one radius dimension per value, written ``n×R…`` where it serves n arcs."""
+    """One radius dimension per value: an arc whose value another arc's dimension already shows is left to
+    the "unspecified radii" note (``unspecified_radii``); an arc of a value no dimension shows gets its own."""
     profile = resolved.profile
     assert profile is not None
-    arcs = [s for s in profile.segments if isinstance(s, Arc)]
-    radius_reqs = [r for r in requests if r.kind == "radius"]
     out = [r for r in requests if r.kind != "radius"]
-    shown: dict[float, list[DimensionRequest]] = {}
-    for req in radius_reqs:
-        shown.setdefault(round(measure(req), 6), []).append(req)
-    for arc in arcs:
+    shown: dict[float, DimensionRequest] = {}
+    for req in (r for r in requests if r.kind == "radius"):
+        value = round(measure(req), 6)
+        if value in shown:
+            shown[value] = replace(shown[value], keys=tuple(dict.fromkeys(shown[value].keys + req.keys)))
+        else:
+            shown[value] = req
+    for arc in (s for s in profile.segments if isinstance(s, Arc)):
         value = round(arc.radius, 6)
-        own = [r for r in shown.get(value, []) if math.dist(r.points[0], arc.center) < 1e-6]
-        if not own and value not in shown:
-            mid = arc.point_at(arc.start_angle + arc.sweep / 2)
-            shown[value] = [DimensionRequest(("profile.radius",), "radius", (arc.center, mid))]
-    for value, reqs in shown.items():
-        count = sum(1 for a in arcs if abs(a.radius - value) < 1e-6)
-        keys = tuple(dict.fromkeys(k for r in reqs for k in r.keys))
-        first = replace(reqs[0], keys=keys)
-        # one dimension per value: the others are the same size and are counted on it
-        out.append(replace(first, text=f"{count}×R<>") if count > 1 else first)
-    return out
+        if value not in shown:
+            shown[value] = DimensionRequest(("profile.radius",), "radius",
+                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2)))
+    return out + list(shown.values())
+
+
+def unspecified_radii(resolved: Resolved) -> list[float]:
+    """The radii of arcs drawn without a dimension of their own (another arc of that size carries it)."""
+    profile = resolved.profile
+    if profile is None:
+        return []
+    dimensioned = [r.points[0] for r in sheet_requests(resolved) if r.kind == "radius"]
+    return sorted({round(s.radius, 6) for s in profile.segments
+                   if isinstance(s, Arc) and all(math.dist(s.center, c) > 1e-6 for c in dimensioned)})
 
 
 def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
