@@ -170,7 +170,8 @@ def sheet_requests(resolved: Resolved) -> list[DimensionRequest]:
 
     profile = resolved.profile
     assert profile is not None
-    wanted = _seat_requests(resolved) + _main_requests(resolved)
+    # a length of zero (a hub standing up to datum face B) is no dimension
+    wanted = [r for r in _seat_requests(resolved) + _main_requests(resolved) if r.kind != "linear" or measure(r) > 1e-9]
     settled, chain = settle(wanted, profile, datum_face_z(resolved))
     # the tap drill's depth, written with its diameter (Ø3.3 ↧10.1), locates the drill's end from the post face
     v = resolved.values
@@ -297,7 +298,7 @@ def _rim_requests(resolved: Resolved) -> list[DimensionRequest]:
     out.append(DimensionRequest(("rim.flat_z",), "linear", (floor, b), direction="axial", side="below", lower=True))
     if has_hub:
         hub = on_radius(profile, v["rim.hub_diameter"] / 2)
-        out.append(DimensionRequest(("rim.hub_face_z",), "linear", (hub, b), direction="axial", side="below",
+        out.append(DimensionRequest(("rim.hub_face_z",), "linear", (hub, b), direction="axial",
                                     lower=True))
         out.append(DimensionRequest(("rim.hub_height",), "linear", (floor, hub), direction="axial"))
     start = corner(profile, (wall_z, v["catch_zone.start_diameter"] / 2))
