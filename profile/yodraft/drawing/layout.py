@@ -319,6 +319,8 @@ class Placer:
             if abs(v - c) > 1e-9:
                 sign = 1.0 if c > v else -1.0
                 ext.append((fr.xy(u, v), fr.xy(u, c + sign * EXT_OVER)))
+        if self.obstacles.ext_too_close(ext) or self.obstacles.crosses_text(ext):
+            return  # the extension lines do not depend on where the text goes
         lo, hi = (u1, u2) if u1 <= u2 else (u2, u1)
         span = hi - lo
         inside = span >= 2 * ARROW + 1.0 or half
@@ -398,7 +400,7 @@ class Placer:
             if self.obstacles.dimline_too_close([(fr.xy(min(u1, u2), c), fr.xy(max(u1, u2), c))]):
                 continue
             for texts, lines, ext, arrows, dline in self._linear_candidates(req, fr, pts[0], pts[1], c, half, mode):
-                if self._ok(texts, lines, ext, [dline] if not half else [], [dline]):
+                if self._ok(texts, lines, [], [dline] if not half else [], [dline]):
                     strokes = [Stroke(s, "dimension", v.name) for s in lines]
                     text = " / ".join(t.text for t in texts)
                     dim = Dimension(req, tuple(strokes + arrows + texts), dline[0], texts[0].at, text, v.name,
