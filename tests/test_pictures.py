@@ -156,7 +156,7 @@ def test_assembly_picture_renders(tmp_path: Path) -> None:
 
 
 def test_material_colours_tell_parts_apart() -> None:
-    names = ["6061-T6", "C36000", "304", "Ti-6Al-4V", "POM", "silicone", "steel"]
+    names = ["6061-T6", "C36000", "304", "Ti-6Al-4V", "W90", "POM", "silicone", "steel"]
     assert len({material_colour(n) for n in names}) == len(names)
 
 
@@ -168,7 +168,7 @@ def test_a_pressed_in_ring_is_drawn_in_its_material_colour() -> None:
     resolved = build(load(TEMPLATES / "string-trick.toml"))
     ring = Part("rim ring", "C36000", 8.5, Profile.from_points([(15, 25.0), (19.5, 25.0), (19.5, 27.0), (15, 27.0)]))
     root = parse(assembly_svg(dataclasses.replace(resolved, parts=resolved.parts + (ring,))))
-    assert "rim ring, C36000" in _texts(root)
+    assert "rim ring, C36000 (copper alloy)" in _texts(root)
     brass = material_colour("C36000")
     filled = [p for p in root.iter(f"{SVG}path") if p.get("fill") == brass]
     # both halves' rings, each drawn above and below the axis: four rectangles of four lines

@@ -15,12 +15,13 @@ from dataclasses import dataclass
 
 from ..analysis import MassAndSpin, mass_and_spin, small_parts
 from ..builder import Resolved
+from ..catalog.materials import lookup_material
 from ..geometry import Arc, Line, Segment
 from ..parts import BODY
 from .silhouette import creases, outline_runs
 from .svg import Page, View, circle, hatch_pattern, line, num, path, rect, segments_d
 
-__all__ = ["assembly_svg", "material_colour", "PartSection", "part_sections", "drawing_scale"]
+__all__ = ["assembly_svg", "material_colour", "material_label", "PartSection", "part_sections", "drawing_scale"]
 
 OUTLINE = "#1b1f24"
 WIDE, NARROW = 0.5, 0.18  # line widths on the page, mm (ISO 128-20 wide and narrow lines)
@@ -41,8 +42,29 @@ _COLOURS: tuple[tuple[tuple[str, ...], str], ...] = (
 )
 
 
+#: by the catalog's material family first
+_FAMILY_COLOURS = {"aluminium alloy": "#d3dde6", "titanium alloy": "#d4cbe0", "stainless steel": "#c3c8cc",
+                   "copper alloy": "#e8cf86", "tungsten alloy": "#8c9299", "polymer": "#f1eee2"}
+
+
+def _family(name: str) -> str | None:
+    try:
+        return lookup_material(name).family
+    except KeyError:
+        return None
+
+
+def material_label(name: str) -> str:
+    """A material as the legend names it: the catalog name with its family, e.g. "C36000 (copper alloy)"."""
+    family = _family(name)
+    return f"{name} ({family})" if family else name
+
+
 def material_colour(name: str) -> str:
     """The fill colour a part of this material gets in the pictures."""
+    family = _family(name)
+    if family in _FAMILY_COLOURS:
+        return _FAMILY_COLOURS[family]
     low = name.lower()
     for words, colour in _COLOURS:
         if any(low == w or low.startswith(w) or f" {w}" in f" {low}" for w in words):
@@ -240,11 +262,11 @@ def assembly_svg(resolved: Resolved, mass: MassAndSpin | None = None) -> bytes:
         _centre_lines(page, view, width / 2, diameter / 2)
     body = v["material.name"]
     rows: list[tuple[str, str, str | None]] = [
-        (f"half body, {body}", material_colour(body), "url(#hatch-body)"),
+        (f"half body, {material_label(body)}", material_colour(body), "url(#hatch-body)"),
         (f"bearing {v['bearing.designation']}, steel", STEEL, None), (f"axle {v['axle_bore.thread']}, steel", STEEL, None)]
     seen = {r[0] for r in rows}
     for p in sections[1:]:
-        label = f"{p.name}, {p.material}"
+        label = f"{p.name}, {material_label(p.material)}"
         if p.name != "half" and label not in seen:
             rows.append((label, p.colour, "url(#hatch-part)" if p.hatched else None))
             seen.add(label)
