@@ -699,7 +699,23 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     if frame[2] - right_x < TITLE_WIDTH and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room right of the view")
     # the detail, framed, under the top edge
-    dscale = _detail_scale(resolved, 0.32 * (frame[2] - right_x), 0.45 * (frame[3] - frame[1]))
+    largest = _detail_scale(resolved, 0.32 * (frame[2] - right_x), 0.45 * (frame[3] - frame[1]))
+    # a smaller enlargement leaves the notes more room: tried before a larger sheet
+    scales = [s for s in DETAIL_SCALES if s <= largest]
+    for i, dscale in enumerate(scales):
+        try:
+            return _right_side(resolved, data, font, paper_name, paper, frame, scale, dscale, main, mview, label_y,
+                               right_x, views, force)
+        except SheetTooSmall:
+            if i == len(scales) - 1:
+                raise
+    raise SheetTooSmall(paper_name)  # pragma: no cover - the loop returns or raises
+
+
+def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, paper, frame,  # type: ignore[no-untyped-def]
+                scale: float, dscale: float, main: "_Group", mview: View, label_y: float, right_x: float,
+                views: dict, force: bool) -> Sheet:
+    """The detail, revisions, cautions, notes and title block right of the main view."""
     if ("detail", dscale) not in views:
         views["detail", dscale] = _detail(resolved, dscale, font, data)
     detail, dview, dfailed = views["detail", dscale]
