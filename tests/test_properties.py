@@ -266,3 +266,80 @@ def test_check_json_survives_a_loop_that_mass_cannot_take(changes: dict[tuple[st
     resolved = build(from_dict(raw, "fuzz.toml"))
     assert not resolved.ok
     json.dumps(summary(resolved), allow_nan=False)
+
+
+# ---------------------------------------------------------------- a passing check means a successful build
+
+def issue_every_file(resolved: yodraft.Resolved) -> None:
+    """Everything `yodraft build` writes for an accepted design — the real sheet (DXF, SVG, PDF), the CAM profile,
+    the assembly picture — plus the report; any exception here is an internal error (exit 3) a designer would meet."""
+    from yodraft.drawing.drawing import render_files
+    from yodraft.pictures.assembly import assembly_svg
+    from yodraft.report import report_data, report_markdown
+
+    files = render_files(resolved, "fuzz-A")
+    assert files["fuzz-A.dxf"] and files["fuzz-A.svg"] and files["fuzz-A.pdf"]
+    doc, auditor = ezdxf.recover.read(io.BytesIO(files["fuzz-A.dxf"]))
+    assert not auditor.has_errors, [e.message for e in auditor.errors]
+    assert assembly_svg(resolved)
+    data = report_data(resolved)
+    json.dumps(data, allow_nan=False)
+    assert report_markdown(data)
+
+
+def check_then_build(raw: dict[str, Any]) -> str:
+    """What `check` then `build` make of a design: refused, failed, or accepted and every file issued."""
+    try:
+        resolved = build(from_dict(raw, "fuzz.toml"))
+    except DesignInputError:
+        return "refused"
+    json.dumps(summary(resolved), allow_nan=False)  # check --json never crashes either
+    if not resolved.ok:
+        return "failed"
+    issue_every_file(resolved)
+    return "accepted"
+
+
+@FUZZ
+@given(designs(inside=True))
+def test_a_design_whose_check_passes_builds_every_file(case: tuple[dict[str, Any], list[str]]) -> None:
+    raw, _ = case
+    event(check_then_build(raw))
+
+
+@pytest.mark.parametrize("key, spec, value", edge_cases(), ids=[f"{k}={v!r}" for k, _, v in edge_cases()])
+def test_every_edge_of_every_bound_checks_then_builds(key: str, spec: ParamSpec, value: float) -> None:
+    raw = copy.deepcopy(TEMPLATE)
+    table = raw
+    *parents, name = key.split(".")
+    for part in parents:
+        table = table.setdefault(part, {})
+    table[name] = value if spec.kind == "number" else f"{value!r} {UNIT[spec.kind]}"
+    check_then_build(raw)
+
+
+#: designs the reference allows that once passed `check` and then crashed the drawing (exit 3)
+ONCE_CRASHED = {
+    "sharp outer edge": {("features", "rim", "edge_radius"): "0 mm"},
+    "sharp lip": {("features", "rim", "lip_radius"): "0 mm"},
+    "sharp cup corner": {("features", "rim", "cup_radius"): "0 mm"},
+    "sharp catch-zone edge": {("features", "catch_zone", "edge_radius"): "0 mm"},
+    "every edge sharp": {("features", "rim", "edge_radius"): "0 mm", ("features", "rim", "lip_radius"): "0 mm",
+                         ("features", "rim", "cup_radius"): "0 mm", ("features", "catch_zone", "edge_radius"): "0 mm"},
+    "rim as thick as its two radii": {("features", "rim", "thickness"): "2.8 mm"},
+    "floor diameter at the rim": {("features", "rim", "floor_diameter"): "49 mm"},
+    "pad groove at the rim": {("features", "pad_groove", "outer_diameter"): "45 mm"},
+    "small envelope": {("envelope", "diameter"): "40 mm", ("envelope", "width"): "30 mm"},
+    "groove inner diameter between pad and groove": {("features", "pad_groove", "inner_diameter"): "19.1 mm"},
+}
+
+
+@pytest.mark.parametrize("changes", list(ONCE_CRASHED.values()), ids=list(ONCE_CRASHED))
+def test_designs_that_once_crashed_the_build(changes: dict[tuple[str, ...], str]) -> None:
+    raw = copy.deepcopy(TEMPLATE)
+    for path, value in changes.items():
+        table = raw
+        for part in path[:-1]:
+            table = table.setdefault(part, {})
+        table[path[-1]] = value
+    check_then_build(raw)

@@ -49,7 +49,8 @@ def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
     axle_mass, spacing, thread_depth = spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"]
     pitch, major_d = v["axle_bore.pitch"], v["axle_bore.major_diameter"]
     bearing_part = ring_part("bearing", bearing_mass, bore / 2, od / 2, width, 0.0)
-    r_in, r_out = pad_inner_d / 2, pad_outer_d / 2
+    r_out = pad_outer_d / 2
+    r_in = min(pad_inner_d / 2, r_out)  # a groove wider than its pad fails its own check; weigh an empty ring till then
     if pad_mass is None:
         pad_mass = ring_mass_g(pad_density, r_in, r_out, thickness)
     # the pad (or the silicone) sits on the groove's bottom and stands toward the gap by its thickness

@@ -249,13 +249,21 @@ def _sensitivities(design: Design, dims: Sequence[Band]) -> np.ndarray:
     base = {b.key: b.nominal for b in dims}
     out = np.zeros((2, len(dims)))
     memo = BuildMemo()  # the features a dimension does not reach are resolved once
+    nominal = None
     for k, b in enumerate(dims):
-        for h in (b.half, b.half / 8):
+        for h in (b.half, b.half / 8, b.half / 64):
             plus = _unit_props(_pinned(design, {**base, b.key: b.nominal + h}), memo)
             minus = _unit_props(_pinned(design, {**base, b.key: b.nominal - h}), memo)
             if plus is not None and minus is not None:
                 out[:, k] = (np.asarray(plus) - np.asarray(minus)) / (2 * h)
                 break
+            if plus is not None or minus is not None:  # a design at the edge of a rule: a one-sided difference
+                if nominal is None:
+                    nominal = _unit_props(_pinned(design, base), memo)
+                if nominal is not None:
+                    side, sign = (plus, 1.0) if plus is not None else (minus, -1.0)
+                    out[:, k] = sign * (np.asarray(side) - np.asarray(nominal)) / h
+                    break
         else:
             raise ValueError(f"{b.key} ± {b.half:g} breaks the half-profile; the lot cannot be drawn")
     return out

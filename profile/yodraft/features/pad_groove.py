@@ -60,6 +60,9 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     checks = (
         check("pad fits the groove", f"{NAME}.outer_diameter", outer >= pad.pad_diameter_mm,
               f"groove Ø{inner:.2f}–Ø{outer:.2f} mm for a Ø{pad.pad_diameter_mm:g} mm pad"),
+        check("pad bridges the groove's inner diameter", f"{NAME}.inner_diameter", inner < pad.pad_diameter_mm,
+              f"groove inner Ø{inner:.2f} mm must lie inside the Ø{pad.pad_diameter_mm:g} mm pad, or the pad has "
+              "nothing to sit on"),
         check("pad not sunk below the wall face", f"{NAME}.depth", proud >= -p["max_below"] - 1e-9,
               f"pad {thickness:.3f} mm thick in a {depth:.3f} mm groove stands {_proud_words(proud)}; "
               f"at most {p['max_below']:.3f} mm below"),
