@@ -55,6 +55,8 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     checks = (
         check("cup inside the rim", f"{NAME}.thickness", 0 < cup_r < R, f"cup Ø{2 * cup_r:.2f} mm in a Ø{diameter:.2f} mm rim"),
         check("hub inside the cup", f"{NAME}.hub_diameter", hub_r < cup_r, f"hub Ø{2 * hub_r:.2f} mm, cup Ø{2 * cup_r:.2f} mm"),
+        check("hub given whole", f"{NAME}.hub_height", (hub_r > 0) == (hub_h > 0),
+              f"hub Ø{2 * hub_r:.2f} mm, {hub_h:.2f} mm high: give both a diameter and a height, or neither"),
         check("hub below the outer face", f"{NAME}.hub_height", flat_z + hub_h <= face_z + 1e-9,
               f"hub top at z = {flat_z + hub_h:.2f} mm, outer face at z = {face_z:.2f} mm"),
         check("flat floor inside the cup", f"{NAME}.floor_diameter", hub_r <= flat_r <= cup_r,
