@@ -19,7 +19,7 @@ from ..catalog.materials import lookup_material
 from ..geometry import Arc, Line, Segment
 from ..parts import BODY
 from .silhouette import creases, outline_runs
-from .svg import Page, View, circle, hatch_pattern, line, num, path, rect, segments_d
+from .svg import Page, View, circle, hatch_pattern, line, num, path, rect, segments_d, text_width
 
 __all__ = ["assembly_svg", "material_colour", "material_label", "PartSection", "part_sections", "drawing_scale"]
 
@@ -271,6 +271,7 @@ def assembly_svg(resolved: Resolved, mass: MassAndSpin | None = None) -> bytes:
             rows.append((label, p.colour, "url(#hatch-part)" if p.hatched else None))
             seen.add(label)
     _legend(page, legend_x, head + label_h + 4, rows)
+    page.width = max(page.width, legend_x + 10.5 + max(text_width(r[0], 3.0) for r in rows) + 8)
     cy = axis_y + vh / 2 + 14
     page.text(margin, cy, f"overall Ø{diameter:.2f} mm × {width:.2f} mm wide · gap {gap:.2f} mm", size=3.6)
     page.text(margin, cy + 6, f"mass {m.assembly.total_g:.2f} g · Izz {m.assembly.izz_g_mm2:,.0f} g·mm² "
