@@ -39,6 +39,12 @@ def _expected(r) -> dict[str, float]:
     for c in r.features["shape"].chunks["outer"]:
         if c.radius > 0:
             out[c.owner] = c.radius
+    if v["shape.kind"] == "sketch":  # every arc of the chain shows the radius the design gave it
+        for i, point in enumerate(r.design.features["shape"]["points"]):
+            if point["arc"] in ("convex", "concave"):
+                out[f"shape.points[{i}].arc_radius"] = point["arc_radius"]
+    elif v["shape.kind"] == "arc":
+        out["shape.catch_radius"] = v["shape.catch_radius"]
     return out
 
 

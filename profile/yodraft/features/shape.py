@@ -5,7 +5,8 @@ a straight cone catch zone, a square band rim, a coned or flat cup with an optio
 presets reuse those features' sizes and change one thing each:
 
 - ``arc``: the catch zone is an arc of ``catch_radius`` (convex or concave) instead of a cone;
-- ``stepped``: the rim band steps down to ``step_diameter`` for ``step_width`` at the outer face;
+- ``stepped``: the rim band steps down to ``step_diameter`` for ``step_width`` at the outer face (both of the
+  step's outer edges take ``step_radius``);
 - ``undercut``: a weight groove ``undercut_depth`` deep is turned into the cup wall;
 - ``flat``: the outer face runs flat to the axis, with no cup and no hub.
 
@@ -33,10 +34,11 @@ PARAMS = (
     ParamSpec("catch_radius", "length", "arc preset: radius of the catch-zone arc; default 1.5 × its chord", None, 0.0, 500.0),
     ParamSpec("catch_arc", "text", "arc preset: the catch zone bulges out of the metal (convex) or into it (concave)",
               "convex", choices=("convex", "concave")),
-    ParamSpec("step_diameter", "length", "stepped preset: diameter of the band at the outer face; default 3 mm under the outer diameter",
+    ParamSpec("step_diameter", "length", "stepped preset: diameter of the band at the outer face; default halfway between the cup and the outer diameter",
               None, 1.0, 150.0),
     ParamSpec("step_width", "length", "stepped preset: axial length of the smaller band; default half the rim band", None, 0.0, 60.0),
-    ParamSpec("step_radius", "length", "stepped preset: radius of the step's outer edge", 0.5, 0.0, 20.0, lo_closed=True),
+    ParamSpec("step_radius", "length", "stepped preset: radius of the step's two outer edges (at the outer face and at the shoulder)",
+              0.5, 0.0, 20.0, lo_closed=True),
     ParamSpec("undercut_depth", "length", "undercut preset: radial depth of the weight groove into the cup wall", 1.5, 0.0, 30.0),
     ParamSpec("undercut_width", "length", "undercut preset: axial width of the weight groove", 3.0, 0.0, 60.0),
     ParamSpec("undercut_offset", "length", "undercut preset: height of the groove's lower side above the cup floor",
@@ -45,7 +47,6 @@ PARAMS = (
 #: arrays of tables this feature reads besides its keys
 TABLES = {"points": POINT_PARAMS}
 CATCH_RADIUS_SHARE = 1.5  # default arc radius over its chord  # common practice, no published source
-STEP_DEPTH = 3.0  # mm below the outer diameter, default step  # common practice, no published source
 
 
 def _cup(ctx: Context) -> list[FilletVertex]:
@@ -102,9 +103,9 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         corners = _cup(ctx) + _lip_and_edge(ctx) + [FilletVertex(V(*end).point, 0.0, "", sweep + 0.0), V(*start)]
     elif kind == "stepped":
         R, face_z, band = ctx["rim.diameter"] / 2, ctx["rim.face_z"], ctx["catch_zone.rim_width"]
-        step_r = pick(p, "step_diameter", 2 * R - 2 * STEP_DEPTH, derived) / 2
-        step_w = pick(p, "step_width", band / 2, derived)
         cup_r = ctx["rim.cup_diameter"] / 2
+        step_r = pick(p, "step_diameter", R + cup_r, derived) / 2  # default halfway between cup and outer diameter
+        step_w = pick(p, "step_width", band / 2, derived)
         checks += [
             check("step between cup and outer diameter", f"{NAME}.step_diameter", cup_r < step_r < R,
                   f"step Ø{2 * step_r:.3f} mm between cup Ø{2 * cup_r:.3f} and outer Ø{2 * R:.3f} mm"),
@@ -113,7 +114,7 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         ]
         dims.update(step_diameter=2 * step_r, step_width=step_w, step_radius=p["step_radius"])
         lip = _lip_and_edge(ctx)[0]
-        corners = _cup(ctx) + [lip, V(face_z, step_r, ctx["rim.edge_radius"], "rim.edge_radius"),
+        corners = _cup(ctx) + [lip, V(face_z, step_r, p["step_radius"], f"{NAME}.step_radius"),
                                V(face_z - step_w, step_r), V(face_z - step_w, R, p["step_radius"], f"{NAME}.step_radius")]
         corners += _cone(ctx)
     elif kind == "undercut":
