@@ -89,3 +89,50 @@ def test_assert_profiles_close_sees_a_moved_corner() -> None:
     b = Profile.from_points([(0, 0), (1, 0), (1, 1.001), (0, 1)])
     with pytest.raises(AssertionError):
         assert_profiles_close(a, b, 1e-6)
+
+
+def _direction(seg, at_end: bool):
+    from yodraft.geometry import Arc as _Arc
+
+    if isinstance(seg, _Arc):
+        a = seg.end_angle if at_end else seg.start_angle
+        s = 1.0 if seg.sweep > 0 else -1.0
+        return (-s * math.sin(a), s * math.cos(a))
+    (z0, r0), (z1, r1) = seg.start, seg.end
+    length = math.hypot(z1 - z0, r1 - r0)
+    return ((z1 - z0) / length, (r1 - r0) / length)
+
+
+@pytest.mark.parametrize("sweep", [math.pi / 3, -math.pi / 3])
+def test_a_fillet_next_to_an_arc_is_tangent_to_both(sweep: float) -> None:
+    # a box whose top edge is an arc (convex or concave); every corner rounded. Tangency (plane geometry):
+    # the fillet's centre lies its radius from the line and its radius ± the arc's radius from the arc's centre,
+    # and the loop's direction does not jump where a fillet meets an edge
+    from yodraft.geometry import Arc as _Arc, FilletVertex, fillet_loop
+
+    corners = [FilletVertex((0.0, 0.0), 1.0, "a"), FilletVertex((10.0, 0.0), 1.0, "b"),
+               FilletVertex((10.0, 8.0), 1.0, "c", sweep), FilletVertex((0.0, 8.0), 1.0, "d")]
+    profile, misfits = fillet_loop(corners)
+    assert misfits == []
+    segs = profile.segments
+    for a, b in zip(segs, segs[1:] + segs[:1]):
+        assert math.dist(a.end, b.start) < 1e-9
+        da, db = _direction(a, True), _direction(b, False)
+        assert da[0] * db[0] + da[1] * db[1] == pytest.approx(1.0, abs=1e-9)
+    big = [s for s in segs if isinstance(s, _Arc) and s.radius > 1.5]
+    assert len(big) == 1 and abs(big[0].sweep) < abs(sweep)  # the top arc, trimmed by the two fillets
+    for fillet in (s for s in segs if isinstance(s, _Arc) and abs(s.radius - 1.0) < 1e-12):
+        d = math.dist(fillet.center, big[0].center)
+        if abs(abs(d - big[0].radius) - 1.0) < 1e-9:
+            continue  # touches the arc
+        # otherwise it rounds one of the two lower corners, between lines
+        assert min(abs(fillet.center[1]), abs(fillet.center[0]), abs(10 - fillet.center[0])) == pytest.approx(1.0)
+
+
+def test_a_fillet_too_big_for_an_arc_edge_is_a_misfit() -> None:
+    from yodraft.geometry import FilletVertex, fillet_loop
+
+    corners = [FilletVertex((0.0, 0.0)), FilletVertex((10.0, 0.0)), FilletVertex((10.0, 8.0), 9.0, "c", math.pi / 3),
+               FilletVertex((0.0, 8.0))]
+    _, misfits = fillet_loop(corners)
+    assert misfits == ["c"]

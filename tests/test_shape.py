@@ -31,11 +31,12 @@ def _preset(kind: str, **keys: str) -> str:
 
 
 def _tangent_sketch() -> str:
-    """A sketch unlike the template's: a concave catch zone, a tangent arc into the rim band, a flat cup without hub."""
+    """A sketch unlike the template's: a concave catch zone, a tangent arc into the rim band (rounded where it
+    meets it), a flat cup without hub."""
     points = [
         dict(z_from="wall face", r="12 mm"),
         dict(z_from="wall face", z="6 mm", r_from="outer diameter", r="-6 mm", arc="concave", arc_radius="30 mm"),
-        dict(z_from="outer face", z="-6 mm", r_from="outer diameter", arc="tangent"),
+        dict(z_from="outer face", z="-6 mm", r_from="outer diameter", arc="tangent", radius="1 mm"),
         dict(z_from="outer face", r_from="outer diameter", radius="1.5 mm"),
         dict(z_from="outer face", r_from="outer diameter", r="-3.5 mm", radius="0.5 mm"),
         dict(z_from="outer face", z="-8.5 mm", r_from="outer diameter", r="-3.5 mm", radius="1 mm"),
@@ -54,6 +55,8 @@ HIDDEN = {
     "undercut": _preset("undercut", undercut_depth="1.2 mm", undercut_width="2.5 mm"),
     "flat": _preset("flat"),
     "sketch": SKETCHED.replace('"larchmere-sk54"', '"hidden-sketch-a"'),
+    "sketch-rounded-arc": SKETCHED.replace('"larchmere-sk54"', '"hidden-sketch-b"').replace(
+        'arc_radius = "36 mm"', 'arc_radius = "36 mm"\nradius = "1.5 mm"'),
     "sketch-tangent": _tangent_sketch(),
 }
 
@@ -186,7 +189,8 @@ def test_undercut_is_named_with_its_tool() -> None:
     assert [r.tool for r in reentrant_regions(deep.profile)] == [GROOVING_TOOL]
 
 
-@pytest.mark.parametrize("name", ["cone", "arc-convex", "arc-concave", "stepped", "flat", "sketch-tangent"])
+@pytest.mark.parametrize("name", ["cone", "arc-convex", "arc-concave", "stepped", "flat", "sketch-tangent",
+                                  "sketch-rounded-arc"])
 def test_shapes_without_undercut_are_turned_straight(name: str) -> None:
     assert reentrant_regions(yodraft.build(loads(HIDDEN[name])).profile) == []
 

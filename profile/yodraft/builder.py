@@ -226,7 +226,7 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
     for owner in misfits:
         if owner.startswith("shape.points["):
             raise DesignInputError(design.source, f"features.{owner}", "does not fit the edges it joins",
-                                   "a corner radius whose tangent points lie on its two lines, between two lines")
+                                   "a corner radius whose tangent points lie on the two segments it joins")
     chunks = {f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in LOOP_ORDER}
     checks: list[Check] = [c for r in results.values() for c in r.checks]
     checks += radial_order(values)

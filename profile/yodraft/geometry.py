@@ -270,6 +270,108 @@ def _fillet(prev: Point, here: Point, nxt: Point, radius: float) -> tuple[float,
     return t, t1, t2, Arc(center, radius, a0, sweep)
 
 
+def _tangent(arc: Arc | None, a: Point, b: Point, at_end: bool) -> Point:
+    """Unit direction of travel along an edge (a line from ``a`` to ``b``, or ``arc``) at its end or start."""
+    if arc is None:
+        length = _dist(a, b)
+        return ((b[0] - a[0]) / length, (b[1] - a[1]) / length)
+    angle = arc.end_angle if at_end else arc.start_angle
+    sign = 1.0 if arc.sweep > 0 else -1.0
+    return (-sign * math.sin(angle), sign * math.cos(angle))
+
+
+def _offset_hits(here: Point, t_in: Point, t_out: Point, arc_in: Arc | None, arc_out: Arc | None, side: float,
+                 radius: float) -> list[Point]:
+    """Where the two edges' curves, each moved ``radius`` toward the inside of the turn, cross."""
+    curves = []
+    for arc, t in ((arc_in, t_in), (arc_out, t_out)):
+        if arc is None:
+            normal = (-t[1] * side, t[0] * side)
+            curves.append(("line", (here[0] + radius * normal[0], here[1] + radius * normal[1]), t))
+        else:
+            toward_centre = (side > 0) == (arc.sweep > 0)
+            r = arc.radius - radius if toward_centre else arc.radius + radius
+            if r <= 1e-12:
+                return []
+            curves.append(("circle", arc.center, r))
+    (k1, a1, b1), (k2, a2, b2) = curves
+    if k1 == "line" and k2 == "line":
+        return []
+    if k1 == "line" or k2 == "line":
+        (_, p0, t), (_, c, r) = ((k1, a1, b1), (k2, a2, b2)) if k1 == "line" else ((k2, a2, b2), (k1, a1, b1))
+        fz, fr = p0[0] - c[0], p0[1] - c[1]
+        half_b = fz * t[0] + fr * t[1]
+        disc = half_b * half_b - (fz * fz + fr * fr - r * r)
+        if disc < 0:
+            return []
+        root = math.sqrt(disc)
+        return [(p0[0] + lam * t[0], p0[1] + lam * t[1]) for lam in (-half_b - root, -half_b + root)]
+    (c1, r1), (c2, r2) = (a1, b1), (a2, b2)
+    d = _dist(c1, c2)
+    if d < 1e-12 or d > r1 + r2 or d < abs(r1 - r2):
+        return []
+    along = (d * d + r1 * r1 - r2 * r2) / (2 * d)
+    h = math.sqrt(max(0.0, r1 * r1 - along * along))
+    ez, er = (c2[0] - c1[0]) / d, (c2[1] - c1[1]) / d
+    mz, mr = c1[0] + along * ez, c1[1] + along * er
+    return [(mz - h * er, mr + h * ez), (mz + h * er, mr - h * ez)]
+
+
+def _foot(arc: Arc | None, a: Point, b: Point, centre: Point) -> Point:
+    """Where the fillet round ``centre`` touches the edge (a line from ``a`` to ``b``, or ``arc``)."""
+    if arc is None:
+        length = _dist(a, b)
+        t = ((b[0] - a[0]) / length, (b[1] - a[1]) / length)
+        lam = (centre[0] - a[0]) * t[0] + (centre[1] - a[1]) * t[1]
+        return (a[0] + lam * t[0], a[1] + lam * t[1])
+    d = _dist(centre, arc.center)
+    return (arc.center[0] + arc.radius * (centre[0] - arc.center[0]) / d,
+            arc.center[1] + arc.radius * (centre[1] - arc.center[1]) / d)
+
+
+def _taken(arc: Arc | None, a: Point, b: Point, foot: Point, from_end: bool) -> float | None:
+    """How much of the edge (length of a line, angle of an arc) lies between ``foot`` and the corner; None when
+    the foot falls off the edge."""
+    if arc is None:
+        length = _dist(a, b)
+        t = ((b[0] - a[0]) / length, (b[1] - a[1]) / length)
+        lam = (foot[0] - a[0]) * t[0] + (foot[1] - a[1]) * t[1]
+        taken = length - lam if from_end else lam
+        return taken if -1e-9 <= taken <= length + 1e-9 else None
+    sign = 1.0 if arc.sweep > 0 else -1.0
+    angle = math.atan2(foot[1] - arc.center[1], foot[0] - arc.center[0])
+    corner = arc.end_angle if from_end else arc.start_angle
+    taken = ((corner - angle) * sign if from_end else (angle - corner) * sign) % (2 * math.pi)
+    return taken if taken <= abs(arc.sweep) + 1e-9 else None
+
+
+def _fillet_next_to_arc(prev: Point, here: Point, nxt: Point, arc_in: Arc | None, arc_out: Arc | None,
+                        radius: float) -> tuple[float, float, Point, Point, Arc] | None | bool:
+    """The fillet of ``radius`` at corner ``here`` where one edge or both are arcs: how much of each edge it
+    takes, its tangent points and its arc; None when the edges already meet tangent (nothing to round),
+    False when no fillet of that radius touches both edges."""
+    t_in = _tangent(arc_in, prev, here, True)
+    t_out = _tangent(arc_out, here, nxt, False)
+    turn = t_in[0] * t_out[1] - t_in[1] * t_out[0]
+    if abs(turn) < 1e-9 and t_in[0] * t_out[0] + t_in[1] * t_out[1] > 0:
+        return None
+    side = 1.0 if turn > 0 else -1.0
+    hits = _offset_hits(here, t_in, t_out, arc_in, arc_out, side, radius)
+    if not hits:
+        return False
+    centre = min(hits, key=lambda q: _dist(q, here))
+    f_in, f_out = _foot(arc_in, prev, here, centre), _foot(arc_out, here, nxt, centre)
+    took_in, took_out = _taken(arc_in, prev, here, f_in, True), _taken(arc_out, here, nxt, f_out, False)
+    if took_in is None or took_out is None:
+        return False
+    a0 = math.atan2(f_in[1] - centre[1], f_in[0] - centre[0])
+    a1 = math.atan2(f_out[1] - centre[1], f_out[0] - centre[0])
+    sweep = ((a1 - a0) * side) % (2 * math.pi) * side
+    if abs(sweep) < 1e-12:
+        return None
+    return took_in, took_out, f_in, f_out, Arc(centre, radius, a0, sweep)
+
+
 def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     """Compose a closed loop through ``vertices``, rounding each corner that has a radius.
 
@@ -288,32 +390,45 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
         edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]
     if n < 3:
         raise GeometryError("a loop needs at least three distinct corners")
-    tangent = [0.0] * n
+    arcs = [arc_through(pts[i], pts[(i + 1) % n], v.sweep) if v.sweep else None for i, v in enumerate(vertices)]
+    measure = [abs(a.sweep) if a is not None else edge[i] for i, a in enumerate(arcs)]  # angle along an arc edge
+    trim_in = [0.0] * n  # how much of edge i - 1 the fillet at corner i takes, at its end
+    trim_out = [0.0] * n  # how much of edge i it takes, at its start
     plans: list[tuple[Point, Point, Arc] | None] = [None] * n
     misfits: list[str] = []
     for i, v in enumerate(vertices):
-        if v.radius > 0 and (v.sweep or vertices[i - 1].sweep):
-            misfits.append(v.owner or f"corner {i}")  # a fillet is only worked out between two lines
-        elif v.radius > 0:
-            plan = _fillet(pts[i - 1], pts[i], pts[(i + 1) % n], v.radius)
-            if plan is not None:
-                tangent[i], plans[i] = plan[0], plan[1:]
+        if v.radius <= 0:
+            continue
+        if v.sweep or vertices[i - 1].sweep:
+            general = _fillet_next_to_arc(pts[i - 1], pts[i], pts[(i + 1) % n], arcs[i - 1], arcs[i], v.radius)
+            if general is False:
+                misfits.append(v.owner or f"corner {i}")
+            elif general is not None:
+                trim_in[i], trim_out[i], plans[i] = general[0], general[1], general[2:]
+            continue
+        plan = _fillet(pts[i - 1], pts[i], pts[(i + 1) % n], v.radius)
+        if plan is not None:
+            trim_in[i] = trim_out[i] = plan[0]
+            plans[i] = plan[1:]
     for i in range(n):
         j = (i + 1) % n
-        if tangent[i] + tangent[j] > edge[i] + 1e-9:
+        if trim_out[i] + trim_in[j] > measure[i] + 1e-9:
             for k in (i, j):
                 if plans[k] is not None:
                     misfits.append(vertices[k].owner or f"corner {k}")
                     plans[k] = None
-                    tangent[k] = 0.0
+                    trim_in[k] = trim_out[k] = 0.0
     segments: list[Segment] = []
     for i in range(n):
         j = (i + 1) % n
         start = plans[i][1] if plans[i] else pts[i]
         end = plans[j][0] if plans[j] else pts[j]
-        if vertices[i].sweep:
-            arc = arc_through(pts[i], pts[j], vertices[i].sweep)
-            segments.append(Arc(arc.center, arc.radius, arc.start_angle, arc.sweep))
+        arc = arcs[i]
+        if arc is not None:
+            sign = 1.0 if arc.sweep > 0 else -1.0
+            left = abs(arc.sweep) - trim_out[i] - trim_in[j]
+            if left > 1e-12:
+                segments.append(Arc(arc.center, arc.radius, arc.start_angle + sign * trim_out[i], sign * left))
         elif _dist(start, end) > 1e-9:
             segments.append(Line(start, end))
         if plans[j]:

@@ -5,7 +5,7 @@ Each point may be placed from an anchor the builder knows (the wall face, the ou
 pad groove, the outer diameter), so a revision of that feature moves the point with it. The
 segment that reaches a point is a line, an arc of a given radius (bulging out of the metal,
 convex, or into it, concave) or an arc tangent to the segment before. A point may carry a
-corner radius where two lines meet.
+corner radius, tangent to both segments it joins (lines or arcs).
 
 The chain is turned into loop corners (``FilletVertex``) in the loop's counter-clockwise order,
 which runs the other way: from the axis at the back to the wall face.
@@ -45,7 +45,7 @@ POINT_PARAMS = (
     ParamSpec("r", "length", "radius of the point, measured from r_from (outward is +, so below the outer diameter is −)",
               0.0, -150.0, 150.0, lo_closed=True),
     ParamSpec("r_from", "text", "what r is measured from ('pad groove': its outer diameter)", "axis", choices=R_ANCHORS),
-    ParamSpec("radius", "length", "corner radius at this point, where two lines meet (0: sharp)", 0.0, 0.0, 50.0,
+    ParamSpec("radius", "length", "corner radius at this point, tangent to the two segments it joins (0: sharp)", 0.0, 0.0, 50.0,
               lo_closed=True),
     ParamSpec("arc", "text", "the segment that reaches this point from the one before: a line, an arc of arc_radius "
               "bulging out of the metal (convex) or into it (concave), or an arc tangent to the segment before",
@@ -122,6 +122,8 @@ def chain_vertices(points: Sequence[Mapping[str, Any]], anchors: Anchors, owner:
             raise _fail(i, "", "repeats the point before it", "each point apart from the one before")
     # signed sweeps in the chain's direction (+ counter-clockwise); metal lies on the chain's right
     sweeps = [0.0] * n
+    starts: list[Point] = [(0.0, 1.0)] * n  # direction each segment leaves its first point
+    ends: list[Point] = [(0.0, 1.0)] * n  # and arrives at its last (the land arrives at point 0 up the wall face)
     heading: Point = (0.0, 1.0)  # the chain arrives at its first point up the wall face
     for i in range(1, n):
         p, q = pts[i - 1], pts[i]
@@ -147,7 +149,8 @@ def chain_vertices(points: Sequence[Mapping[str, Any]], anchors: Anchors, owner:
             turn = 2 * math.asin(min(1.0, length / (2 * radius)))
             sweep = -turn if kind == "convex" else turn  # convex bulges to the chain's left, away from the metal
         sweeps[i] = sweep
-        heading = _rotate(chord, sweep / 2)
+        starts[i] = _rotate(chord, -sweep / 2)
+        heading = ends[i] = _rotate(chord, sweep / 2)
     _check_simple(pts, sweeps)
     # the loop runs the chain backwards: corner i carries the edge to corner i - 1, with its sweep reversed
     out = []
@@ -155,9 +158,10 @@ def chain_vertices(points: Sequence[Mapping[str, Any]], anchors: Anchors, owner:
         radius = points[i]["radius"]
         if radius > 0 and i == n - 1:
             raise _fail(i, "radius", "a point on the spin axis cannot be rounded", "radius 0 on the axis")
-        if radius > 0 and (sweeps[i] or (i + 1 < n and sweeps[i + 1])):
-            raise _fail(i, "radius", "rounds a corner next to an arc (a corner radius joins two lines)",
-                        "radius 0 here; shape the corner with a tangent arc instead")
+        if radius > 0 and i + 1 < n:
+            a, b = ends[i], starts[i + 1]
+            if abs(a[0] * b[1] - a[1] * b[0]) < 1e-9 and a[0] * b[0] + a[1] * b[1] > 0:
+                raise _fail(i, "radius", "rounds no corner: the segments meet tangent here", "radius 0 here")
         out.append(FilletVertex(V(*pts[i]).point, float(radius), f"{owner}.points[{i}].radius", -sweeps[i] + 0.0))
     return out
 

@@ -16,7 +16,7 @@ import math
 from dataclasses import dataclass, replace
 
 from ..builder import Resolved
-from ..geometry import Arc, Point, Profile
+from ..geometry import Arc, Point, Profile, arc_through
 from .locate import LocateError, on_face, on_radius
 from .locate import corner as _vertex_or_corner
 from .numbers import size_text, tolerance_text
@@ -382,7 +382,7 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
     diameters: dict[float, tuple[list[str], Point]] = {}
     positions: dict[float, tuple[list[str], Point]] = {}
     out: list[DimensionRequest] = []
-    for c, (key, arc_key) in zip(corners, labels):
+    for k, (c, (key, arc_key)) in enumerate(zip(corners, labels)):
         z, r = c.point
         at = c.point  # the sharp (theoretical) corner, which a fillet there rounds
         if r > 1e-9:
@@ -396,7 +396,9 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
             if arc is not None:
                 out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
         if c.sweep and arc_key:
-            arc = next(s for s in profile.segments if isinstance(s, Arc) and math.dist(s.start, c.point) < 1e-6)
+            whole = arc_through(c.point, corners[k + 1].point, c.sweep)  # fillets at its ends may trim it
+            arc = next(s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - whole.radius) < 1e-6
+                       and math.dist(s.center, whole.center) < 1e-6)
             out.append(DimensionRequest((arc_key,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
     start_d = round(v["shape.start_diameter"], 6)
     for d, (keys, at) in sorted(diameters.items()):
