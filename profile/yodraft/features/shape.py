@@ -100,8 +100,7 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         turn = 2 * math.asin(min(1.0, chord / (2 * radius))) if fits else 0.0
         sweep = turn if p["catch_arc"] == "convex" else -turn  # the loop runs counter-clockwise: convex turns left
         dims.update(catch_radius=radius, catch_arc=p["catch_arc"])
-        corners = _cup(ctx) + _lip_and_edge(ctx) + [
-            FilletVertex(V(*end).point, ctx["catch_zone.edge_radius"], "catch_zone.edge_radius", sweep + 0.0), V(*start)]
+        corners = _cup(ctx) + _lip_and_edge(ctx) + [FilletVertex(V(*end).point, 0.0, "", sweep + 0.0), V(*start)]
     elif kind == "stepped":
         R, face_z, band = ctx["rim.diameter"] / 2, ctx["rim.face_z"], ctx["catch_zone.rim_width"]
         cup_r = ctx["rim.cup_diameter"] / 2
