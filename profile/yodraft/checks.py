@@ -7,8 +7,6 @@ from itertools import chain
 from collections.abc import Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
-import numpy as np
-import shapely
 
 if TYPE_CHECKING:  # pragma: no cover
     from .geometry import Point, Profile
@@ -82,8 +80,10 @@ _RADIAL_PAIRS = tuple((f"radial order: {fb}.{pb} outside {fa}.{pa}", f"{fa}.{pa}
 
 
 @functools.lru_cache(maxsize=1024)  # a sweep measures from the same unchanged surfaces again and again
-def _polyline(points: tuple[Point, ...]) -> shapely.Geometry:
+def _polyline(points: tuple[Point, ...]) -> "shapely.Geometry":
     """A shapely line through ``points`` (a point when there is only one)."""
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
     return shapely.linestrings(np.asarray(points)) if len(points) > 1 else shapely.points(points[0])
 
 
@@ -122,6 +122,8 @@ LOOP_CHECK_TOLERANCE = 0.02
 
 def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str]) -> list[Check]:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
     flat = profile.flatten(LOOP_CHECK_TOLERANCE)
@@ -193,6 +195,8 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     Surfaces meeting at a corner do not face each other there; a pair counts where the line of
     least distance between them runs through the metal, square to both (within FACING_DEG).
     """
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
     n = len(segs)
     tol = LOOP_CHECK_TOLERANCE
@@ -267,6 +271,8 @@ def reentrant_regions(profile: "Profile") -> list[Reentrant]:
     A region deeper radially than it is wide needs a grooving tool plunged into it; a wider one a
     back-turning tool that reaches in behind the shoulder.
     """
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
     starts, owners = [], []
     for i, seg in enumerate(segs):

@@ -15,8 +15,6 @@ import math
 from dataclasses import dataclass, field
 from typing import NamedTuple, Union
 
-import numpy as np
-import shapely
 
 __all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "arc_through", "GeometryError"]
 
@@ -161,8 +159,10 @@ class Profile:
                 out.extend(seg.flattened(tol))
         return out
 
-    def polygon(self, tol: float = 0.005) -> shapely.Polygon:
+    def polygon(self, tol: float = 0.005) -> "shapely.Polygon":
         """A shapely polygon of the flattened loop."""
+        import numpy as np  # imported where used: the quick commands never load it
+        import shapely  # imported where used: the quick commands never load it
         return shapely.polygons(np.asarray(self.flatten(tol)))
 
     def signed_area(self) -> float:

@@ -17,8 +17,6 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-import numpy as np
-import shapely
 
 from .checks import Check, check
 from .features.base import FeatureResult, PartOutline, SeatCut
@@ -81,6 +79,8 @@ def seat_checks(body: Profile, seats: Sequence[SeatCut], min_wall: float) -> lis
     Surfaces that touch the seat (its own faces, and the faces it opens into) are left out: the part
     fills the seat, so what holds it is the material beyond them.
     """
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
     out: list[Check] = []
     for seat in seats:
         if not seat.bottom:

@@ -25,7 +25,6 @@ from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from typing import Any
 
-import shapely
 
 from .features.base import FeatureInputError, V
 from .geometry import FilletVertex, Point, arc_through
@@ -168,6 +167,7 @@ def chain_vertices(points: Sequence[Mapping[str, Any]], anchors: Anchors, owner:
 
 def _check_simple(pts: Sequence[Point], sweeps: Sequence[float]) -> None:
     """The chain's segments meet only at their shared points."""
+    import shapely  # imported where used: the quick commands never load it
     pieces = []
     for i in range(1, len(pts)):
         if sweeps[i]:

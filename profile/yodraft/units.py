@@ -16,8 +16,10 @@ import functools
 import math
 import re
 from pathlib import Path
+from typing import TYPE_CHECKING
 
-import pint
+if TYPE_CHECKING:  # pragma: no cover
+    import pint
 
 __all__ = ["registry", "parse_quantity", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH", "UnitError"]
 
@@ -87,8 +89,11 @@ class UnitError(ValueError):
 
 
 @functools.cache
-def registry() -> pint.UnitRegistry:
-    """The one unit registry, from our own small definitions file (created once, on first use)."""
+def registry() -> "pint.UnitRegistry":
+    """The one unit registry, from our own small definitions file (created once, on first use: the commands
+    that read no quantity never import pint, nor the numpy pint loads)."""
+    import pint
+
     return pint.UnitRegistry(str(Path(__file__).with_name("units.txt")))
 
 
@@ -110,6 +115,8 @@ def parse_quantity(text: object, kind: str) -> float:
         raise UnitError(f"{text.strip()[:60]!r} is not a finite number")
     unit = unit.replace("^", "**").replace("μ", "u").replace("µ", "u").replace("°", "deg")
     ureg = registry()
+    import pint
+
     try:
         quantity = ureg.Quantity(float(number), ureg.parse_units(unit))
         value = float(quantity.to(base).magnitude)
