@@ -1,0 +1,62 @@
+"""solve: move one parameter until the design hits a target mass, Izz or gap; the new revision is a new file."""
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+import yodraft
+from conftest import TEMPLATES
+from yodraft.analysis import analyse
+from yodraft.cli import main
+from yodraft.solve import solve
+
+
+def test_solve_reaches_66_g_and_passes(tmp_path: Path) -> None:
+    design = yodraft.load(TEMPLATES / "string-trick.toml")
+    result = solve(design, "mass", 66.0, "features.rim.thickness")
+    assert result.resolved.ok
+    assert analyse(result.resolved).assembly.total_g == pytest.approx(66.0, abs=0.01)
+
+
+def test_solve_command_writes_a_new_file_that_checks(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    before = source.read_bytes()
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 0
+    assert source.read_bytes() == before
+    solved = tmp_path / "st-B.toml"
+    design = yodraft.load(solved)
+    assert design.revision == "B" and design.revisions[-1].letter == "B"
+    resolved = yodraft.build(design)
+    assert resolved.ok and analyse(resolved).assembly.total_g == pytest.approx(66.0, abs=0.01)
+    # a second solve would overwrite the first: refused
+    capsys.readouterr()
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 2
+
+
+def test_solve_out_of_reach_names_closest(capsys: pytest.CaptureFixture[str], tmp_path: Path) -> None:
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    assert main(["solve", str(source), "--target", "mass=500g", "--vary", "features.rim.thickness"]) == 1
+    assert "closest" in capsys.readouterr().err
+    assert not (tmp_path / "st-B.toml").exists()
+
+
+def test_solve_gap() -> None:
+    design = yodraft.load(TEMPLATES / "string-trick.toml")
+    result = solve(design, "gap", 4.0, "features.bearing_seat.wall_offset")
+    # gap = bearing width − 2 × offset → offset = (4.7625 − 4.0) / 2  # common practice, no published source
+    assert result.value == pytest.approx((4.7625 - 4.0) / 2, abs=1e-5)
+
+
+def test_solve_to_a_design_that_breaks_a_check_writes_nothing(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    # a 5 mm gap is wider than the 4.7625 mm bearing: the wall offset goes negative  # common practice
+    code = main(["solve", str(source), "--target", "gap=5mm", "--vary", "features.bearing_seat.wall_offset"])
+    out, err = capsys.readouterr()
+    assert code == 1
+    assert len(err.strip().splitlines()) == 1 and "bearing_seat.wall_offset" in err
+    assert "FAILED bearing_seat.wall_offset" in out
+    assert not (tmp_path / "st-B.toml").exists()
