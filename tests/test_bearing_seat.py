@@ -1,7 +1,6 @@
 """The bearing seat feature: gap, post length and the worst-case post of the trade example."""
 from __future__ import annotations
 
-
 import pytest
 
 import yodraft
