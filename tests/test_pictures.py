@@ -14,7 +14,7 @@ import shapely
 from conftest import TEMPLATES
 from yodraft import analyse, build, load
 from yodraft.cli import main
-from yodraft.geometry import Arc, Profile
+from yodraft.geometry import Arc, Line, Profile
 from yodraft.pictures.assembly import assembly_svg, drawing_scale, material_colour
 from yodraft.pictures.silhouette import outline_chains, outline_runs
 from yodraft.pictures.svg import View, segments_d
@@ -357,3 +357,13 @@ def test_heat_map_rises_whichever_way_the_sweep_ran(tmp_path: Path) -> None:
 
     assert cells("rim.thickness=3mm:4mm:3", "catch_zone.land=1mm:2mm:2") == \
         cells("rim.thickness=4mm:3mm:3", "catch_zone.land=2mm:1mm:2")
+
+
+def test_a_sliver_of_arc_between_two_stations_is_drawn_as_its_chord() -> None:
+    """Regression: two stations closer than an arc can turn gave an arc of zero sweep (a GeometryError)."""
+    from yodraft.pictures.silhouette import _Piece
+
+    arc = Arc((0.0, 0.0), 5.0, math.pi / 2, -math.pi / 2)
+    piece = _Piece(0, 0, arc, 0.0, 5.0)
+    sliver = piece.between(2.0, 2.0 + 1e-13)
+    assert isinstance(sliver, Line) and sliver.start[1] == pytest.approx(math.sqrt(21.0))

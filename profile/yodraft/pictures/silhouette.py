@@ -53,6 +53,8 @@ class _Piece:
         a0 = math.atan2(self.r_at(za) - rc, za - zc)
         a1 = math.atan2(self.r_at(zb) - rc, zb - zc)
         sweep = math.remainder(a1 - a0, 2 * math.pi)
+        if abs(sweep) < 1e-12:  # a sliver of arc too short to turn: its chord is the same to the page
+            return Line((za, self.r_at(za)), (zb, self.r_at(zb)))
         return Arc(s.center, s.radius, a0, sweep)
 
 
