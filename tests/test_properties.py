@@ -192,6 +192,17 @@ def test_one_value_beyond_its_bounds_is_refused_at_its_key(spec_path: tuple[tupl
     assert info.value.key == ".".join(path)
 
 
+def template_with(changes: dict[tuple[str, ...], Any]) -> dict[str, Any]:
+    """The parsed starter template with each key path set to a value as a design file writes it."""
+    raw = copy.deepcopy(TEMPLATE)
+    for path, value in changes.items():
+        table = raw
+        for part in path[:-1]:
+            table = table.setdefault(part, {})
+        table[path[-1]] = value
+    return raw
+
+
 def edge_cases() -> list[tuple[str, ParamSpec, float]]:
     """Each numeric parameter at the edges of its bounds, just inside: where off-by-one limits hide."""
     out = []
@@ -206,14 +217,10 @@ def edge_cases() -> list[tuple[str, ParamSpec, float]]:
 
 
 @pytest.mark.parametrize("key, spec, value", edge_cases(), ids=[f"{k}={v!r}" for k, _, v in edge_cases()])
-def test_every_edge_of_every_bound_is_read_and_judged(key: str, spec: ParamSpec, value: float) -> None:
-    raw = copy.deepcopy(TEMPLATE)
-    table = raw
-    *parents, name = key.split(".")
-    for part in parents:
-        table = table.setdefault(part, {})
-    table[name] = value if spec.kind == "number" else f"{value!r} {UNIT[spec.kind]}"
+def test_every_edge_of_every_bound_is_read_judged_and_built(key: str, spec: ParamSpec, value: float) -> None:
+    raw = template_with({tuple(key.split(".")): value if spec.kind == "number" else f"{value!r} {UNIT[spec.kind]}"})
     judge(raw, [key])
+    check_then_build(raw)  # and when its check passes, every file `build` writes is made
 
 
 def test_the_template_is_accepted_and_drawn() -> None:
@@ -257,12 +264,7 @@ def test_a_mistyped_file_is_refused_by_key_or_handled(text: str) -> None:
 ], ids=["crossing-loop", "below-the-axis", "negative-axle"])
 def test_check_json_survives_a_loop_that_mass_cannot_take(changes: dict[tuple[str, ...], str]) -> None:
     # both found by test_any_value_is_refused_by_key_failed_by_check_or_drawn
-    raw = copy.deepcopy(TEMPLATE)
-    for path, value in changes.items():
-        table = raw
-        for part in path[:-1]:
-            table = table.setdefault(part, {})
-        table[path[-1]] = value
+    raw = template_with(changes)
     resolved = build(from_dict(raw, "fuzz.toml"))
     assert not resolved.ok
     json.dumps(summary(resolved), allow_nan=False)
@@ -307,17 +309,6 @@ def test_a_design_whose_check_passes_builds_every_file(case: tuple[dict[str, Any
     event(check_then_build(raw))
 
 
-@pytest.mark.parametrize("key, spec, value", edge_cases(), ids=[f"{k}={v!r}" for k, _, v in edge_cases()])
-def test_every_edge_of_every_bound_checks_then_builds(key: str, spec: ParamSpec, value: float) -> None:
-    raw = copy.deepcopy(TEMPLATE)
-    table = raw
-    *parents, name = key.split(".")
-    for part in parents:
-        table = table.setdefault(part, {})
-    table[name] = value if spec.kind == "number" else f"{value!r} {UNIT[spec.kind]}"
-    check_then_build(raw)
-
-
 #: designs the reference allows that once passed `check` and then crashed the drawing (exit 3)
 ONCE_CRASHED = {
     "sharp outer edge": {("features", "rim", "edge_radius"): "0 mm"},
@@ -336,10 +327,4 @@ ONCE_CRASHED = {
 
 @pytest.mark.parametrize("changes", list(ONCE_CRASHED.values()), ids=list(ONCE_CRASHED))
 def test_designs_that_once_crashed_the_build(changes: dict[tuple[str, ...], str]) -> None:
-    raw = copy.deepcopy(TEMPLATE)
-    for path, value in changes.items():
-        table = raw
-        for part in path[:-1]:
-            table = table.setdefault(part, {})
-        table[path[-1]] = value
-    check_then_build(raw)
+    check_then_build(template_with(changes))

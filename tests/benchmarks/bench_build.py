@@ -10,20 +10,15 @@ import tempfile
 import time
 from pathlib import Path
 
-ROOT = Path(__file__).resolve().parents[2]
-TEMPLATE = ROOT / "templates" / "string-trick.toml"
-BASELINE = (
-    "import ezdxf, pint, shapely, numpy, sys\n"
-    "doc = ezdxf.new('R2013', units=ezdxf.units.MM)\n"
-    "doc.saveas(sys.argv[1])\n"
-)
+sys.path.insert(0, str(Path(__file__).parent))
+from floor import ENV, FLOOR as BASELINE, TEMPLATE  # noqa: E402
 
 
 def _time(cmd: list[str], runs: int) -> float:
     times = []
     for _ in range(runs):
         start = time.perf_counter()
-        subprocess.run(cmd, check=True, capture_output=True, env={"PYTHONPATH": str(ROOT / "profile"), "PATH": ""})
+        subprocess.run(cmd, check=True, capture_output=True, env=ENV)
         times.append(time.perf_counter() - start)
     return statistics.median(times)
 

@@ -16,13 +16,8 @@ import tempfile
 import time
 from pathlib import Path
 
-ROOT = Path(__file__).resolve().parents[2]
-TEMPLATE = ROOT / "templates" / "string-trick.toml"
-BASELINE = (
-    "import ezdxf, pint, shapely, numpy, sys\n"
-    "doc = ezdxf.new('R2013', units=ezdxf.units.MM)\n"
-    "doc.saveas(sys.argv[1])\n"
-)
+sys.path.insert(0, str(Path(__file__).parent))
+from floor import ENV, FLOOR as BASELINE, TEMPLATE  # noqa: E402
 COMMANDS = {
     "check": ["check", str(TEMPLATE)],
     "fit": ["fit", "6 H7/g6"],
@@ -33,7 +28,6 @@ COMMANDS = {
 #: runs the command in-process, then names the heavy modules it loaded
 PROBE = ("import sys\nfrom yodraft.cli import main\ncode = main(sys.argv[1:])\n"
          "print('loaded:', ' '.join(m for m in ('ezdxf', 'numpy', 'shapely') if m in sys.modules), file=sys.stderr)\n")
-ENV = {"PYTHONPATH": str(ROOT / "profile"), "PATH": ""}
 
 
 def _once(cmd: list[str]) -> float:
