@@ -44,7 +44,7 @@ FUZZ = settings(max_examples=EXAMPLES, deadline=None, suppress_health_check=[Hea
 
 #: the base unit each kind's bounds are held in, as a user would type it
 UNIT = {"length": "mm", "mass": "g", "angle": "rad", "torque": "N*mm", "density": "g/cm^3", "speed": "rpm",
-        "roughness": "um"}
+        "roughness": "um", "force": "N", "temperature": "degC", "temperature_difference": "K"}
 
 
 def numeric_specs() -> list[tuple[tuple[str, ...], ParamSpec]]:

@@ -11,7 +11,7 @@ from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any
 
-from .catalog.finishes import FINISHES
+from .catalog.finishes import FINISHES, check_finish
 from .errors import DesignInputError
 from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, read_table
@@ -317,7 +317,8 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
         else:
             features[fname] = read_table(table, module.PARAMS, source, f"features.{fname}")
         given.update(f"features.{fname}.{k}" for k in table)
-        _check_feature_materials(features[fname], source, f"features.{fname}")
+        if hasattr(module, "validate"):  # a feature's own cross-key rules (a ring's material, finish and fit)
+            module.validate(features[fname], source, f"features.{fname}")
     revisions = _read_revisions(raw.get("revisions", []), source)
     return Design(source, sections, features, frozenset(given), revisions, raw)
 
@@ -360,28 +361,6 @@ def _check_catalog_names(sections: Mapping[str, Mapping[str, Any]], source: str)
                    "bearing")
     check_name(bearing["precision"], normalise_precision, list(PRECISION_CLASSES), source, "bearing.precision",
                "precision class")
-
-
-def check_finish(finish: str, material: str, source: str, key: str) -> None:
-    """A finish must suit its part's material (anodize on aluminium alloys only, polymers none); else exit 2 at ``key``."""
-    from .catalog.finishes import finishes_for, suits
-    from .catalog.materials import lookup_material
-
-    family = lookup_material(material).family
-    if not suits(finish, family):
-        raise DesignInputError(source, key, f"{finish!r} does not suit {lookup_material(material).name} ({family})",
-                               f"a finish for {family}: " + ", ".join(repr(f) for f in finishes_for(family)))
-
-
-def _check_feature_materials(values: Mapping[str, Any], source: str, path: str) -> None:
-    """A feature that makes a part of its own names a catalog material and a finish that suits it."""
-    from .catalog.materials import MATERIALS, lookup_material
-
-    if values.get("material") is None:
-        return
-    check_name(values["material"], lookup_material, list(MATERIALS), source, f"{path}.material", "material")
-    if values.get("coating") is not None:
-        check_finish(values["coating"], values["material"], source, f"{path}.coating")
 
 
 def _read_array(items: Any, specs: tuple[ParamSpec, ...], source: str, path: str) -> tuple[dict[str, Any], ...]:

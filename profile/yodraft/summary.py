@@ -6,6 +6,7 @@ from typing import Any
 
 from .analysis import analyse
 from .builder import Resolved
+from .features.ring import ring_summary
 
 __all__ = ["summary", "resolved_dimensions", "back_wall_mm"]
 
@@ -70,6 +71,7 @@ def summary(resolved: Resolved, *, detail: bool = True) -> dict[str, Any]:
         "axle_bore": _hole(resolved),
         "shape": _shape_section(resolved),
         **_response_section(resolved),
+        **_ring_section(resolved),
         **(_mass_sections(resolved) if resolved.can_analyse else {}),
         **({"features": resolved_dimensions(resolved),
             "checks": [c.as_dict() for c in resolved.checks]} if detail else {}),
@@ -137,6 +139,11 @@ def _shape_section(resolved: Resolved) -> dict[str, Any]:
     return {"kind": resolved.values["shape.kind"],
             "reentrant": [{"z_min_mm": r.z_min, "z_max_mm": r.z_max, "diameter_min_mm": 2 * r.r_min,
                            "diameter_max_mm": 2 * r.r_max, "tool": r.tool} for r in regions]}
+
+
+def _ring_section(resolved: Resolved) -> dict[str, Any]:
+    fit = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
+    return {} if fit is None else {"ring": ring_summary(fit)}
 
 
 def _mass_sections(resolved: Resolved) -> dict[str, Any]:

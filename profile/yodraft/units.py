@@ -35,6 +35,9 @@ KINDS: dict[str, tuple[str, str]] = {
     "speed": ("revolution / minute", 'a spin rate with a unit, e.g. "10000 rpm"'),
     "inertia": ("gram * millimeter ** 2", 'a moment of inertia with a unit, e.g. "30000 g*mm^2"'),
     "roughness": ("micrometer", 'a roughness with a unit, e.g. "0.8 um"'),
+    "force": ("newton", 'a force with a unit, e.g. "500 N"'),
+    "temperature": ("degree_Celsius", 'a temperature with a unit, e.g. "60 degC" or "140 degF"'),
+    "temperature_difference": ("kelvin", 'a temperature difference in kelvin, e.g. "150 K"'),
 }
 
 #: how a value of each kind is shown to the user and written back into a design file:
@@ -42,7 +45,9 @@ KINDS: dict[str, tuple[str, str]] = {
 DISPLAY_UNITS: dict[str, tuple[float, str, str]] = {
     "length": (1.0, "mm", "_mm"), "angle": (math.pi / 180, "deg", "_deg"), "mass": (1.0, "g", "_g"),
     "torque": (1.0, "N*mm", "_n_mm"), "density": (1.0, "g/cm^3", "_g_cm3"), "speed": (1.0, "rpm", "_rpm"),
-    "inertia": (1.0, "g*mm^2", "_g_mm2"), "roughness": (1.0, "um", "_um"), "number": (1.0, "", "")}
+    "inertia": (1.0, "g*mm^2", "_g_mm2"), "roughness": (1.0, "um", "_um"),
+    "force": (1.0, "N", "_n"), "temperature": (1.0, "degC", "_c"), "temperature_difference": (1.0, "K", "_k"),
+    "number": (1.0, "", "")}
 
 #: the unit a summary or column key holds, read from its suffix; longest suffix first ("_g_mm2" before "_g")
 SUFFIX_UNITS = (("_kg_m2_per_s", "kg·m²/s"), ("_m_s2", "m/s²"), ("_mm_s", "mm/s"), ("_g_mm2", "g·mm²"),
@@ -118,11 +123,15 @@ def parse_quantity(text: object, kind: str) -> float:
     import pint
 
     try:
-        quantity = ureg.Quantity(float(number), ureg.parse_units(unit))
+        units = ureg.parse_units(unit)
+        quantity = ureg.Quantity(float(number), units)
         value = float(quantity.to(base).magnitude)
+        offset = kind == "temperature_difference" and ureg.Quantity(0.0, units).to(base).magnitude != 0
     except (pint.UndefinedUnitError, pint.DimensionalityError, AttributeError, TypeError, ValueError, KeyError, SyntaxError,
             ArithmeticError):
-        raise UnitError(f"{unit!r} is not a unit of {kind}") from None
+        raise UnitError(f"{unit!r} is not a unit of {kind.replace('_', ' ')}") from None
+    if offset:
+        raise UnitError(f"{unit!r} is a temperature scale, not a difference (write the difference in K)")
     if not math.isfinite(value):
         raise UnitError(f"{text[:60]!r} is not a finite number")
     return value

@@ -8,9 +8,10 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from .materials import FAMILIES
+from ..errors import DesignInputError
+from .materials import FAMILIES, lookup_material
 
-__all__ = ["Finish", "FINISHES", "suits", "finishes_for"]
+__all__ = ["Finish", "FINISHES", "suits", "finishes_for", "check_finish"]
 
 _METALS = tuple(f for f in FAMILIES if f != "polymer")
 
@@ -48,3 +49,11 @@ def suits(finish: str, family: str) -> bool:
 def finishes_for(family: str) -> list[str]:
     """The finishes that suit a material of ``family``, in catalog order."""
     return [f.name for f in FINISHES.values() if family in f.families]
+
+
+def check_finish(finish: str, material: str, source: str, key: str) -> None:
+    """A finish must suit its part's material (anodize on aluminium alloys only, polymers none); else exit 2 at ``key``."""
+    m = lookup_material(material)
+    if not suits(finish, m.family):
+        raise DesignInputError(source, key, f"{finish!r} does not suit {m.name} ({m.family})",
+                               f"a finish for {m.family}: " + ", ".join(repr(f) for f in finishes_for(m.family)))

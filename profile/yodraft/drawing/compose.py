@@ -190,11 +190,27 @@ def _hatch_lines(polys: list[shapely.Polygon], origin: tuple[float, float], spac
     return sorted(out)
 
 
-def _hatch(polys_model: list[shapely.Polygon], view: View, loops: tuple[Stroke, ...]) -> Hatch:
+#: section lining of each further part of a half (a ring): adjacent parts differ in direction and
+#: spacing (ISO 128-50)
+PART_HATCH = (135.0, HATCH_SPACING / 2)
+
+
+def _hatch(polys_model: list[shapely.Polygon], view: View, loops: tuple[Stroke, ...], angle: float = 45.0,
+           spacing: float = HATCH_SPACING) -> Hatch:
     s = view.scale
     paper = [shapely.transform(p, lambda c: c * s + [view.origin[0], view.origin[1]]) for p in polys_model]
-    lines = _hatch_lines(paper, view.origin, HATCH_SPACING)
-    return Hatch(loops, 45.0, HATCH_SPACING, view.origin, tuple(lines), "hatch", view.name)
+    lines = _hatch_lines(paper, view.origin, spacing, angle)
+    return Hatch(loops, angle, spacing, view.origin, tuple(lines), "hatch", view.name)
+
+
+def part_items(resolved: Resolved, view: View) -> list[Item]:
+    """Each further part of the half (a ring) in the section: its outline and mirror, hatched in its own way."""
+    out: list[Item] = []
+    for part in resolved.parts[1:]:
+        up, low = _profile_stroke(part.profile, view), _profile_stroke(part.profile.mirrored(), view)
+        out += [up, low, _hatch([part.profile.polygon(), part.profile.mirrored().polygon()], view, (up, low),
+                                *PART_HATCH)]
+    return out
 
 
 # ------------------------------------------------------------------ the main view
@@ -210,8 +226,8 @@ class _Group:
         return _Group([translate(i, dx, dy) for i in self.items], (b[0] + dx, b[1] + dy, b[2] + dx, b[3] + dy))
 
 
-def _solid_test(profile: Profile, view: View):  # type: ignore[no-untyped-def]
-    both = shapely.union(profile.polygon(), profile.mirrored().polygon())
+def _solid_test(profile: Profile, view: View, others: tuple[Profile, ...] = ()):  # type: ignore[no-untyped-def]
+    both = shapely.union_all([p.polygon() for q in (profile,) + others for p in (q, q.mirrored())])
     shapely.prepare(both)
 
     def solid(p: tuple[float, float]) -> bool:
@@ -246,16 +262,16 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     end = z0 + v["axle_bore.thread_depth"]
     thread = [Stroke((view.to_paper((z0, s * r_t)), view.to_paper((end, s * r_t))), "thread", "main") for s in (1, -1)]
     thread.append(Stroke((view.to_paper((end, -r_t)), view.to_paper((end, r_t))), "thread", "main", weight=0.5))
-    items: list[Item] = section + [hatch, axis] + thread
+    items: list[Item] = section + [hatch, axis] + thread + part_items(resolved, view)
     # the detail's region marked on the view (ISO 128-3: narrow frame and its letter)
     region = detail_region(resolved)
     a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
     marker = _rect(a[0], a[1], b[0], b[1], "detail")
     items.append(marker)
-    ob = _obstacles(items, section)
+    ob = _obstacles(items, section + [i for i in part_items(resolved, view) if isinstance(i, Stroke)])
     bbox = (view.to_paper((z_min, -R))[0], view.to_paper((z_min, -R))[1], view.to_paper((z_max, R))[0],
             view.to_paper((z_max, R))[1])
-    placer = Placer(view, font, ob, _solid_test(profile, view), bbox)
+    placer = Placer(view, font, ob, _solid_test(profile, view, tuple(p.profile for p in resolved.parts[1:])), bbox)
     dims = placer.place(section_requests(resolved))
     items += dims
     # the detail letter beside its frame, in open paper
@@ -479,7 +495,8 @@ def _detail(resolved: Resolved, scale: float, font: Lettering, data: SheetData) 
 
 # ------------------------------------------------------------------ blocks of text
 def _title_block(font: Lettering, resolved: Resolved, data: SheetData, scales: str,
-                 origin: tuple[float, float]) -> list[Item]:
+                 origin: tuple[float, float], overrides: dict[str, tuple[str, str]] | None = None) -> list[Item]:
+    """The ISO 7200 title block; ``overrides`` maps a field's label to (label, value) for another part's sheet."""
     d = resolved.design["design"]
     shop = resolved.design["shop"]
     cells = [
@@ -499,6 +516,8 @@ def _title_block(font: Lettering, resolved: Resolved, data: SheetData, scales: s
         ("General tolerance", shop["general_tolerance"], 90, 50, 0),
         ("Projection", "", 140, 40, 0),
     ]
+    if overrides:
+        cells = [(*overrides.get(label, (label, value)), cx, cw, row) for label, value, cx, cw, row in cells]
     x0, y0 = origin
     rows = 4
     items: list[Item] = [_rect(x0, y0, x0 + TITLE_WIDTH, y0 + rows * ROW, "frame")]

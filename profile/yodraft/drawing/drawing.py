@@ -8,7 +8,7 @@ from .dxf_sheet import sheet_document
 from .notes import SheetData
 from .outline import dxf_bytes
 from .pdf_sheet import sheet_pdf
-from .profile_dxf import profile_document
+from .profile_dxf import part_profile_document, profile_document
 from .sheetdata import Sheet
 from .svg_sheet import sheet_svg
 
@@ -30,13 +30,23 @@ def compose_sheet(resolved: Resolved, data: SheetData | None = None) -> Sheet:
 
 
 def render_files(resolved: Resolved, stem: str, data: SheetData | None = None) -> dict[str, bytes]:
-    """``{file name: bytes}`` for ``<stem>.dxf``, ``<stem>-profile.dxf``, ``<stem>.svg`` and ``<stem>.pdf``."""
+    """``{file name: bytes}`` for ``<stem>.dxf``, ``<stem>-profile.dxf``, ``<stem>.svg`` and ``<stem>.pdf``; and
+    for a half with a ring, ``<stem>-ring.dxf`` (its own sheet), ``<stem>-ring-profile.dxf`` and ``<stem>-ring.svg``."""
+    data = data or sheet_data(resolved)
     sheet = compose_sheet(resolved, data)
     d = resolved.design["design"]
-    return {
+    files = {
         f"{stem}.dxf": dxf_bytes(sheet_document(sheet, resolved)),
         f"{stem}-profile.dxf": dxf_bytes(profile_document(resolved)),
         f"{stem}.svg": sheet_svg(sheet),
         f"{stem}.pdf": sheet_pdf(sheet, title=d["title"] or resolved.design.name, author=d["owner"],
                                        date=d["date"]),
     }
+    for part in resolved.parts[1:]:  # a ring: its own sheet, CAM profile and preview
+        from .ring_sheet import compose_ring
+
+        ring_sheet = compose_ring(resolved, data, part.name)
+        files[f"{stem}-{part.name}.dxf"] = dxf_bytes(sheet_document(ring_sheet, resolved))
+        files[f"{stem}-{part.name}-profile.dxf"] = dxf_bytes(part_profile_document(resolved, part.name))
+        files[f"{stem}-{part.name}.svg"] = sheet_svg(ring_sheet)
+    return files

@@ -158,13 +158,13 @@ def _dimension(dim: Dimension, t: _Target, doc: Drawing) -> None:
 def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
     """The drawing of ``sheet``: model space, the detail block and the ``sheet`` layout."""
     d = resolved.design
-    doc = new_document(d["design"]["date"], f"{d.name}-{d.revision}:sheet")
+    doc = new_document(d["design"]["date"], f"{d.name}-{d.revision}:{sheet.name}")
     layers.setup(doc)
     doc.header["$PSLTSCALE"] = 1  # line type patterns in paper millimetres in every viewport
     msp = doc.modelspace()
     main = sheet.view("main")
-    detail = sheet.view("detail")
-    block = doc.blocks.new(DETAIL_BLOCK)
+    detail = next((v for v in sheet.views if v.name == "detail"), None)  # a ring's sheet has no detail
+    block = doc.blocks.new(DETAIL_BLOCK) if detail is not None else None
     # the one paper layout: ezdxf's default "Layout1" renamed, set up as the sheet
     psp = doc.layouts.get("Layout1")
     doc.layouts.rename("Layout1", LAYOUT_NAME)
@@ -173,7 +173,9 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
     for e in list(psp.query("VIEWPORT")):
         if e.dxf.id != 1:
             psp.delete_entity(e)
-    targets = {"main": _Target(msp, main), "detail": _Target(block, detail), "paper": _Target(psp, None)}
+    targets = {"main": _Target(msp, main), "paper": _Target(psp, None)}
+    if detail is not None:
+        targets["detail"] = _Target(block, detail)
     for item in sheet.items:
         view = getattr(item, "view", "paper")
         target = targets[view]
@@ -186,8 +188,9 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
     vp = psp.add_viewport(center=centre, size=(x1 - x0, y1 - y0), view_center_point=main.to_model(centre),
                           view_height=(y1 - y0) / main.scale, dxfattribs={"layer": "viewport"})
     vp.dxf.flags = vp.dxf.flags | 16384  # locked display
-    psp.add_blockref(DETAIL_BLOCK, detail.origin, dxfattribs={"xscale": detail.scale, "yscale": detail.scale,
-                                                               "layer": "detail"})
+    if detail is not None:
+        psp.add_blockref(DETAIL_BLOCK, detail.origin, dxfattribs={"xscale": detail.scale, "yscale": detail.scale,
+                                                                   "layer": "detail"})
     _extents(doc, sheet)
     return doc
 

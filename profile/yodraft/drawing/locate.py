@@ -5,13 +5,37 @@ import math
 
 from ..geometry import Arc, Line, Point, Profile
 
-__all__ = ["LocateError", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "TOL"]
+__all__ = ["LocateError", "Outline", "outline_of", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "TOL"]
 
 TOL = 1e-6
 
 
 class LocateError(LookupError):
     """The profile has no edge where the resolved design says a feature is (a drawing bug)."""
+
+
+class Outline:
+    """The drawn loops of a half's parts (the body, then any ring), searched together: a point
+    dimensioned on the half may lie on whichever part carries that surface."""
+
+    def __init__(self, loops: tuple[Profile, ...]) -> None:
+        self.loops = loops
+        self.segments = tuple(s for loop in loops for s in loop.segments)
+
+    def bounds(self) -> tuple[float, float, float, float]:
+        b = [loop.bounds() for loop in self.loops]
+        return min(x[0] for x in b), min(x[1] for x in b), max(x[2] for x in b), max(x[3] for x in b)
+
+    def polygon(self, tol: float = 0.005):  # type: ignore[no-untyped-def]
+        import shapely
+
+        return shapely.union_all([loop.polygon(tol) for loop in self.loops])
+
+
+def outline_of(resolved) -> Outline:  # type: ignore[no-untyped-def]
+    """The half's parts as drawn (the body's loop alone when it has no ring)."""
+    loops = tuple(p.profile for p in resolved.parts) or (resolved.profile,)
+    return Outline(loops)
 
 
 def _lines(profile: Profile) -> list[Line]:
@@ -45,8 +69,18 @@ def corner(profile: Profile, point: Point) -> Point:
     return sharp_corner(profile, point)
 
 
-def sharp_corner(profile: Profile, near: Point) -> Point:
+def sharp_corner(profile: Profile | Outline, near: Point) -> Point:
     """The intersection of the two edges tangent to the fillet arc nearest ``near`` (the dimensioned corner)."""
+    if isinstance(profile, Outline):
+        found = []
+        for loop in profile.loops:
+            try:
+                found.append(sharp_corner(loop, near))
+            except LocateError:
+                pass
+        if not found:
+            raise LocateError(f"no corner at {near}")
+        return min(found, key=lambda p: math.dist(p, near))
     segs = profile.segments
     n = len(segs)
     best = None

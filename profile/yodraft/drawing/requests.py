@@ -17,7 +17,7 @@ from dataclasses import dataclass, replace
 
 from ..builder import Resolved
 from ..geometry import Arc, Point, Profile, arc_through
-from .locate import LocateError, on_face, on_radius
+from .locate import LocateError, Outline, on_face, on_radius, outline_of
 from .locate import corner as _vertex_or_corner
 from .numbers import size_text, tolerance_text
 
@@ -171,7 +171,8 @@ def sheet_requests(resolved: Resolved) -> list[DimensionRequest]:
     profile = resolved.profile
     assert profile is not None
     # a length of zero (a hub standing up to datum face B) is no dimension
-    wanted = [r for r in _seat_requests(resolved) + _main_requests(resolved) if r.kind != "linear" or measure(r) > 1e-9]
+    wanted = [r for r in _seat_requests(resolved) + ring_seat_requests(resolved) + _main_requests(resolved)
+              if r.kind != "linear" or measure(r) > 1e-9]
     settled, chain = settle(wanted, profile, datum_face_z(resolved))
     # the tap drill's depth, written with its diameter (Ø3.3 ↧10.1), locates the drill's end from the post face
     v = resolved.values
@@ -179,6 +180,22 @@ def sheet_requests(resolved: Resolved) -> list[DimensionRequest]:
     chain.tie("axial", (v["bearing_seat.post_face_z"], r_d), (v["axle_bore.bottom_z"], r_d))
     settled += _complete(resolved, chain)
     return _radii(resolved, settled)
+
+
+def ring_seat_requests(resolved: Resolved) -> list[DimensionRequest]:
+    """The ring seat in the body (when the half has a ring): its fit diameter, toleranced as the fit
+    gives it (the body's ISO 286 class and limits, or the interference), and its depth from the face."""
+    fit = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
+    if fit is None or len(resolved.parts) < 2:
+        return []
+    from .ring_sheet import seat_fit_text
+
+    v = resolved.values
+    d, z0, face = fit.interface_mm, v["ring.seat_z"], v["rim.face_z"]
+    return [DimensionRequest(("ring.diameter",), "diameter", ((face, d / 2),), side="right", decimals=3,
+                             tolerance=seat_fit_text(fit)),
+            DimensionRequest(("ring.width",), "linear", ((z0, d / 2), (face, d / 2)), direction="axial",
+                             side="above")]
 
 
 def _seat_requests(resolved: Resolved) -> list[DimensionRequest]:
@@ -307,13 +324,14 @@ def _rim_requests(resolved: Resolved) -> list[DimensionRequest]:
     if v["rim.floor_angle"] > 0 and math.dist(cup0, floor) > 1e-6:  # a flat floor has no cone to show
         out.append(DimensionRequest(("rim.floor_angle",), "angle", (cup0, floor, (cup0[0], cup0[1] - 10.0)),
                                     decimals=1))
+    drawn = outline_of(resolved)  # a ring may carry the corner's radius (the cup lip)
     for key, near in (
         ("rim.edge_radius", (v["rim.face_z"], R)),
         ("rim.lip_radius", (v["rim.face_z"], v["rim.cup_diameter"] / 2)),
         ("catch_zone.edge_radius", (v["catch_zone.end_z"], R)),
         ("rim.cup_radius", (v["rim.floor_z"], v["rim.cup_diameter"] / 2)),
     ):
-        arc = _arc_near(profile, v[key], near)
+        arc = _arc_near(drawn, v[key], near)
         if arc is not None:
             mid = arc.point_at(arc.start_angle + arc.sweep / 2)
             out.append(DimensionRequest((key,), "radius", (arc.center, mid, arc.start, arc.end), decimals=2))
@@ -410,7 +428,7 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
     return out
 
 
-def _arc_near(profile: Profile, radius: float, near: Point) -> Arc | None:
+def _arc_near(profile: Profile | Outline, radius: float, near: Point) -> Arc | None:
     """The fillet arc of ``radius`` whose centre is nearest ``near``; None for a sharp edge (radius 0)."""
     if radius <= 0:
         return None

@@ -7,13 +7,13 @@ from __future__ import annotations
 
 from types import ModuleType
 
-from . import axle_bore, bearing_seat, catch_zone, pad_groove, rim, shape, vent_groove
+from . import axle_bore, bearing_seat, catch_zone, pad_groove, rim, ring, shape, vent_groove
 
 __all__ = ["FEATURES", "LOOP_ORDER", "OUTER_CHUNKS"]
 
 #: resolution order (each feature may read what the earlier ones published)
 FEATURES: dict[str, ModuleType] = {
-    m.NAME: m for m in (bearing_seat, vent_groove, axle_bore, pad_groove, rim, catch_zone, shape)
+    m.NAME: m for m in (bearing_seat, vent_groove, axle_bore, pad_groove, rim, catch_zone, shape, ring)
 }
 
 #: the order the features' corner chunks follow round the counter-clockwise loop,

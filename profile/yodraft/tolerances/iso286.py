@@ -7,7 +7,8 @@ Size steps are "over a, up to and including b"; the first step is 0 (excl.) to 3
 Supported tolerance classes
 ---------------------------
 Holes: E F G H JS (grades 1–12); K M N (grades 3–8, with Δ); K M (grades 9–12, without Δ); N (grades 9–11);
-P (grades 3–7 with Δ, 8–12 without); N9–N11 only over 1 mm. Shafts: e f g h js k m n p (grades 1–12).
+P (grades 3–7 with Δ, 8–12 without); N9–N11 only over 1 mm. Shafts: e f g h js k m n p, and the
+interference letters r s (grades 1–12).
 Anything else (other letters, K/M/N/P below grade 3, N above 11, the grades IT01 and IT0,
 sizes over 120 mm) raises :class:`FitCodeError` naming what is not supported. A grade is
 written as the standard writes it ("7", "01"): "007" or "H07" is not read as IT7.
@@ -93,8 +94,16 @@ _DELTA: dict[int, tuple[float, ...]] = {
     8: (0.0, 6.0, 7.0, 9.0, 12.0, 14.0, 16.0, 19.0),
 }
 
+#: shaft lower deviation ei (µm) for the interference letters r and s (all grades), whose table splits the
+#: steps above 50 mm: over 0, 3, 6, 10, 18, 30, 50, 65, 80, 100 up to 120  # ISO 286-1, Table 2
+_FINE_STEPS = (3.0, 6.0, 10.0, 18.0, 30.0, 50.0, 65.0, 80.0, 100.0, 120.0)
+_SHAFT_EI_FINE: dict[str, tuple[float, ...]] = {
+    "r": (10.0, 15.0, 19.0, 23.0, 28.0, 34.0, 41.0, 43.0, 51.0, 54.0),
+    "s": (14.0, 19.0, 23.0, 28.0, 35.0, 43.0, 53.0, 59.0, 71.0, 79.0),
+}
+
 _HOLE_LETTERS = ("E", "F", "G", "H", "JS", "K", "M", "N", "P")
-_SHAFT_LETTERS = ("e", "f", "g", "h", "js", "k", "m", "n", "p")
+_SHAFT_LETTERS = ("e", "f", "g", "h", "js", "k", "m", "n", "p", "r", "s")
 
 
 class FitCodeError(ValueError):
@@ -191,6 +200,9 @@ def shaft_limits(letter: str, grade: int, size_mm: float) -> Limits:
     if letter in _SHAFT_ES:
         es = _SHAFT_ES[letter][i]
         return Limits(_round(es), _round(es - it))
+    if letter in _SHAFT_EI_FINE:
+        ei = _SHAFT_EI_FINE[letter][next(j for j, top in enumerate(_FINE_STEPS) if size_mm <= top)]
+        return Limits(_round(ei + it), _round(ei))
     if letter == "k" and not 4 <= grade <= 7:
         ei = 0.0  # k above IT7 and up to IT3 sits on the zero line  # ISO 286-1, Table 2
     else:

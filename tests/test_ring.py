@@ -1,0 +1,196 @@
+"""The rim ring: parts with their own materials, the seat in the body, the press fit and its drawings."""
+from __future__ import annotations
+
+import io
+import math
+
+import ezdxf
+import numpy as np
+import pytest
+
+import yodraft
+from conftest import TEMPLATES
+from yodraft.catalog.materials import lookup_material
+from yodraft.drawing.drawing import render_files
+from yodraft.errors import DesignInputError
+from yodraft.pressfit import Member, contact_pressure
+from yodraft.tomledit import set_key
+
+BIMETAL = (TEMPLATES / "bimetal-ring.toml").read_text(encoding="utf-8")
+
+
+def _with(text: str, **ring: str) -> str:
+    for key, value in ring.items():
+        text = set_key(text, "features.ring", key, value)
+    return text
+
+
+def _build(text: str) -> yodraft.Resolved:
+    return yodraft.build(yodraft.loads(text))
+
+
+# ---------------------------------------------------------------- mass of the parts, read back from the DXF
+
+
+def _loop_from_dxf(data: bytes) -> list[tuple[float, float, float]]:
+    """(x, y, bulge) of the one closed outline of a CAM profile file."""
+    doc = ezdxf.read(io.StringIO(data.decode("utf-8")))
+    assert not doc.audit().has_errors
+    (poly,) = doc.modelspace().query("LWPOLYLINE")
+    assert poly.closed
+    return [(x, y, b) for x, y, _, _, b in poly.get_points("xyseb")]
+
+
+def _moments(loop: list[tuple[float, float, float]]) -> tuple[float, float]:
+    """∬ r dA and ∬ r³ dA over a loop of lines and bulge arcs, by Green's theorem
+    (∬ rⁿ dA = −∮ rⁿ⁺¹/(n+1) dz for a counter-clockwise loop) and 24-point Gauss–Legendre
+    quadrature on each edge: an independent, numerical route to the same exact integrals."""
+    nodes, weights = np.polynomial.legendre.leggauss(24)
+    out = []
+    for n in (1, 3):
+        total = 0.0
+        for (x0, y0, b), (x1, y1, _) in zip(loop, loop[1:] + loop[:1]):
+            if b == 0.0:
+                t = (nodes + 1) / 2
+                y = y0 + (y1 - y0) * t
+                total += -np.sum(weights / 2 * y ** (n + 1) / (n + 1) * (x1 - x0))
+            else:  # a bulge arc: included angle 4·atan(b), centre on the chord's perpendicular bisector
+                theta = 4 * math.atan(b)
+                chord = math.hypot(x1 - x0, y1 - y0)
+                radius = chord / (2 * math.sin(abs(theta) / 2))
+                h = chord / 2 / math.tan(theta / 2)  # signed: left of the chord for a counter-clockwise arc
+                cx = (x0 + x1) / 2 - (y1 - y0) / chord * h
+                cy = (y0 + y1) / 2 + (x1 - x0) / chord * h
+                a0 = math.atan2(y0 - cy, x0 - cx)
+                t = a0 + theta * (nodes + 1) / 2
+                y = cy + radius * np.sin(t)
+                dx = -radius * np.sin(t) * theta / 2
+                total += -np.sum(weights * y ** (n + 1) / (n + 1) * dx)
+        out.append(total)
+    return out[0], out[1]
+
+
+def test_mass_and_izz_are_those_of_both_drawn_outlines() -> None:
+    resolved = _build(BIMETAL)
+    files = render_files(resolved, "t")
+    s = yodraft.summary(resolved)
+    expect_m = expect_izz = 0.0
+    for name, file in (("body", "t-profile.dxf"), ("ring", "t-ring-profile.dxf")):
+        r1, r3 = _moments(_loop_from_dxf(files[file]))
+        material = "6061-T6" if name == "body" else "C36000"
+        rho = lookup_material(material).density_g_cm3 * 1e-3  # g/mm³
+        m, izz = rho * 2 * math.pi * r1, rho * 2 * math.pi * r3  # Pappus: V = 2π ∬ r dA; Izz = ∫ r² dm
+        part = next(p for p in s["parts"] if p["name"] == name)
+        assert part["material"] == material
+        assert part["mass_g"] == pytest.approx(m, rel=1e-6)
+        assert part["izz_g_mm2"] == pytest.approx(izz, rel=1e-6)
+        expect_m += m
+        expect_izz += izz
+    assert s["mass"]["half_g"] == pytest.approx(expect_m, rel=1e-6)
+    assert s["mass"]["half_izz_g_mm2"] == pytest.approx(expect_izz, rel=1e-6)
+
+
+def test_a_ring_moves_mass_without_losing_any() -> None:
+    # the seat cut from the body is exactly the ring's section: with the ring in the body's own
+    # material, the half weighs what the same half without a seat weighs
+    # (the ring's edge takes the cup lip's radius by default)
+    plain = _build(_with(BIMETAL, seat="none"))
+    same = _build(_with(BIMETAL, material="6061-T6"))
+    assert yodraft.analyse(same).half.mass_g == pytest.approx(yodraft.analyse(plain).half.mass_g, rel=1e-12)
+    assert yodraft.analyse(same).half.izz_g_mm2 == pytest.approx(yodraft.analyse(plain).half.izz_g_mm2, rel=1e-12)
+
+
+# ---------------------------------------------------------------- the contract
+
+
+def test_check_json_ring_keys() -> None:
+    s = yodraft.summary(_build(BIMETAL))
+    g = s["ring"]
+    for key in ("material", "fit", "interface_diameter_mm", "ring_diameters_mm", "body_diameters_mm",
+                "interference_um", "contact_pressure_mpa", "hoop_stress_body_mpa", "hoop_stress_ring_mpa",
+                "safety_factor", "assembly_delta_t_k"):
+        assert key in g, key
+    for side in ("body_material", "ring_material"):
+        assert set(g[side]) >= {"e_gpa", "poisson", "alpha_per_k", "yield_mpa"}
+    assert g["material"] == "C36000" and g["body_material"]["name"] == "6061-T6"
+    d = g["interface_diameter_mm"]
+    assert d in g["ring_diameters_mm"] and d in g["body_diameters_mm"]
+    assert g["interference_um"] == pytest.approx([50.0, 80.0])
+    assert [p["name"] for p in s["parts"]] == ["body", "ring"]
+
+
+def test_contact_pressure_follows_lame_for_the_seat() -> None:
+    g = yodraft.summary(_build(BIMETAL))["ring"]
+    ring, body = lookup_material("C36000"), lookup_material("6061-T6")
+    inner = Member(*g["ring_diameters_mm"], ring.e_gpa * 1e3, ring.poisson, ring.alpha_per_k, ring.yield_mpa)
+    outer = Member(*g["body_diameters_mm"], body.e_gpa * 1e3, body.poisson, body.alpha_per_k, body.yield_mpa)
+    lo, hi = (contact_pressure(x / 1000, inner, outer) for x in g["interference_um"])
+    assert g["contact_pressure_mpa"] == pytest.approx([lo, hi], rel=1e-12)
+
+
+def test_thermal_interference_in_the_json_by_hand() -> None:
+    g = yodraft.summary(_build(BIMETAL))["ring"]
+    d = g["interface_diameter_mm"]
+    # hand arithmetic: brass ring (20.5e-6/K) inside 6061 (23.6e-6/K), 20 → 60 °C
+    change_um = d * (20.5e-6 - 23.6e-6) * (60 - 20) * 1000
+    assert g["interference_hot_um"] == pytest.approx([50.0 + change_um, 80.0 + change_um], rel=1e-9)
+
+
+def test_iso_fit_code_gives_the_interference() -> None:
+    text = BIMETAL.replace('interference_min = "0.05 mm"\n', "").replace('interference_max = "0.08 mm"\n', "")
+    text = _with(text, fit="H7/s6", diameter="50 mm")
+    g = yodraft.summary(_build(text))["ring"]
+    # ISO 286-2 preferred fits: 50 H7/s6 gives an interference of 0.018 to 0.059 mm
+    assert g["fit"] == "50 H7/s6"
+    assert g["interference_um"] == pytest.approx([18.0, 59.0])
+
+
+@pytest.mark.parametrize("seat", ["outer diameter", "cup wall", "face"])
+def test_every_seat_builds_and_keeps_the_parts_apart(seat: str) -> None:
+    resolved = _build(_with(BIMETAL, seat=seat, hold_force="100 N"))
+    assert all(c.ok for c in resolved.checks if c.name in ("closed simple loop", "ring seat on the body"))
+    body, ring = resolved.parts[0].profile.polygon(0.001), resolved.parts[1].profile.polygon(0.001)
+    assert body.intersection(ring).area < 1e-3  # they share the seat's faces, nothing more
+    assert body.distance(ring) == pytest.approx(0.0, abs=1e-9)
+    assert resolved.ok, resolved.failed
+    if resolved.ok:
+        files = render_files(resolved, "t")
+        assert "t-ring.dxf" in files and "t-ring-profile.dxf" in files and "t-ring.svg" in files
+
+
+def test_failed_ring_checks_name_the_feature_and_parameter() -> None:
+    resolved = _build(_with(BIMETAL, safety_factor=9.0, hold_force="5000 N", max_delta_t="10 K"))
+    failed = {(c.name, c.feature, c.parameter) for c in resolved.failed}
+    assert ("ring seat stress in the body", "ring", "fit") in failed
+    assert ("ring holds the axial force", "ring", "width") in failed
+    assert ("ring assembly temperature difference", "ring", "assembly_clearance") in failed
+
+
+def test_too_little_interference_when_hot_fails() -> None:
+    resolved = _build(_with(BIMETAL, interference_min="0.002 mm", interference_max="0.01 mm", hot="120 degC"))
+    assert any(c.name == "ring holds when hot" and c.parameter == "fit" for c in resolved.failed)
+
+
+# ---------------------------------------------------------------- finishes and input
+
+
+def test_anodize_on_a_titanium_ring_is_refused() -> None:
+    with pytest.raises(DesignInputError) as err:
+        yodraft.loads(_with(BIMETAL, material="Ti-6Al-4V", coating="anodize type II"), "t.toml")
+    assert err.value.key == "features.ring.coating" and "Ti-6Al-4V" in str(err.value)
+
+
+def test_body_coating_reaches_the_fit_only_when_the_seat_is_not_masked() -> None:
+    masked = yodraft.summary(_build(BIMETAL))["ring"]
+    open_seat = yodraft.summary(_build(_with(BIMETAL, mask_seat=False)))["ring"]
+    # Type II anodize of 0.0004 in, half of it outward, grows the seat bore's surface on the diameter by
+    # 2 × 0.01016 × 0.5 mm: the bore shrinks and the interference grows by that much
+    growth_um = 2 * 0.0004 * 25.4 * 0.5 * 1000
+    assert masked["coating_growth_um"] == 0.0
+    assert open_seat["interference_um"][0] - masked["interference_um"][0] == pytest.approx(growth_um, rel=1e-9)
+
+
+def test_unknown_ring_material_names_its_key() -> None:
+    with pytest.raises(DesignInputError) as err:
+        yodraft.loads(_with(BIMETAL, material="C3600"), "t.toml")
+    assert err.value.key == "features.ring.material"
