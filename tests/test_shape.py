@@ -192,7 +192,7 @@ def test_undercut_is_named_with_its_tool() -> None:
 @pytest.mark.parametrize("name", ["cone", "arc-convex", "arc-concave", "stepped", "flat", "sketch-tangent",
                                   "sketch-rounded-arc"])
 def test_shapes_without_undercut_are_turned_straight(name: str) -> None:
-    assert reentrant_regions(yodraft.build(loads(HIDDEN[name])).profile) == []
+    assert reentrant_regions(yodraft.build(loads(HIDDEN[name])).profile) == ()
 
 
 def test_a_thin_undercut_fails_the_wall_check() -> None:

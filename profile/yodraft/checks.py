@@ -264,7 +264,15 @@ def _sample(seg: Any, t: float) -> Point:
     return (seg.start[0] + t * (seg.end[0] - seg.start[0]), seg.start[1] + t * (seg.end[1] - seg.start[1]))
 
 
-def reentrant_regions(profile: "Profile") -> list[Reentrant]:
+def reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
+    """Runs of surfaces a turning tool cannot reach by a straight path from the outside diameter
+    (radially) or from either face (axially); see ``_reentrant_regions``. The check, the summary and the
+    sheet's notes ask about the same loop, so the answer is kept for the last few loops."""
+    return _reentrant_regions(profile)
+
+
+@functools.lru_cache(maxsize=64)  # one build asks three times (check, summary, notes) about the same loop
+def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
     """Runs of surfaces a turning tool cannot reach by a straight path from the outside diameter
     (radially) or from either face (axially).
 
@@ -284,7 +292,7 @@ def reentrant_regions(profile: "Profile") -> list[Reentrant]:
             starts.append((p[0] - _OFFSET * n[0], p[1] - _OFFSET * n[1]))
             owners.append(i)
     if not starts:
-        return []
+        return ()
     s = np.asarray(starts)
     flat = np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE))
     a, b = flat, np.roll(flat, -1, axis=0)
@@ -305,7 +313,7 @@ def reentrant_regions(profile: "Profile") -> list[Reentrant]:
             blocked &= (spans & (hit < start)).any(axis=1) & (spans & (hit > start)).any(axis=1)
     hidden = sorted({owners[k] for k in np.flatnonzero(blocked)})
     if not hidden:
-        return []
+        return ()
     # consecutive hidden surfaces round the loop make one region
     runs: list[list[int]] = []
     for i in hidden:
@@ -321,7 +329,7 @@ def reentrant_regions(profile: "Profile") -> list[Reentrant]:
         zs, rs = [q[0] for q in pts], [q[1] for q in pts]
         tool = GROOVING_TOOL if (max(rs) - min(rs)) >= (max(zs) - min(zs)) else BACK_TURNING_TOOL
         out.append(Reentrant(min(zs), max(zs), min(rs), max(rs), tool))
-    return out
+    return tuple(out)
 
 
 def turning_checks(profile: "Profile") -> list[Check]:
