@@ -11,23 +11,14 @@ from __future__ import annotations
 
 import argparse
 import os
-import subprocess
 import sys
-import time
 from pathlib import Path
+
+sys.path.insert(0, str(Path(__file__).parent))
+from floor import timed  # noqa: E402
 
 ROOT = Path(__file__).resolve().parents[2]
 DESIGN = ROOT / "templates" / "string-trick.toml"
-
-
-def timed(argv: list[str]) -> float:
-    env = dict(os.environ, PYTHONPATH=str(ROOT / "profile"))
-    start = time.perf_counter()
-    done = subprocess.run([sys.executable, "-m", "yodraft", *argv], env=env, capture_output=True, text=True)
-    elapsed = time.perf_counter() - start
-    if done.returncode not in (0, 1):
-        raise SystemExit(f"yodraft {' '.join(argv)} failed: {done.stderr.strip()}")
-    return elapsed
 
 
 def main() -> None:

@@ -2,6 +2,10 @@
 empty DXF — what any tool built on these libraries pays before it does any work."""
 from __future__ import annotations
 
+import os
+import subprocess
+import sys
+import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parents[2]
@@ -14,3 +18,14 @@ FLOOR = (
 )
 #: what the timed commands run with: yodraft from the source tree, nothing from the caller's environment
 ENV = {"PYTHONPATH": str(ROOT / "profile"), "PATH": ""}
+
+
+def timed(argv: list[str]) -> float:
+    """Seconds one ``python -m yodraft ARGV`` takes as a whole process (start-up included); exit 0 or 1 only."""
+    env = dict(os.environ, PYTHONPATH=str(ROOT / "profile"))
+    start = time.perf_counter()
+    done = subprocess.run([sys.executable, "-m", "yodraft", *argv], env=env, capture_output=True, text=True)
+    elapsed = time.perf_counter() - start
+    if done.returncode not in (0, 1):
+        raise SystemExit(f"yodraft {' '.join(argv)} failed: {done.stderr.strip()}")
+    return elapsed

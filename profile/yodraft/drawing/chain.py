@@ -27,6 +27,7 @@ from dataclasses import replace
 from typing import Any
 
 from ..geometry import Arc, Line, Point, Profile
+from .locate import intersection
 
 __all__ = ["Chain", "corners_of", "settle"]
 
@@ -43,16 +44,6 @@ def _tangent(seg: Line | Arc, at_start: bool) -> tuple[float, float]:
     return (-s * math.sin(a), s * math.cos(a))
 
 
-def _meet(a: Line, b: Line) -> Point | None:
-    (x1, y1), (x2, y2) = a.start, a.end
-    (x3, y3), (x4, y4) = b.start, b.end
-    den = (x1 - x2) * (y3 - y4) - (y1 - y2) * (x3 - x4)
-    if abs(den) < 1e-12:
-        return None
-    t = ((x1 - x3) * (y3 - y4) - (y1 - y3) * (x3 - x4)) / den
-    return (x1 + t * (x2 - x1), y1 + t * (y2 - y1))
-
-
 def corners_of(profile: Profile) -> tuple[list[Point], list[tuple[Point, Point]]]:
     """The loop's corners in order (fillets between two lines as their sharp corner) and the edges between them."""
     segs = profile.segments
@@ -66,7 +57,7 @@ def corners_of(profile: Profile) -> tuple[list[Point], list[tuple[Point, Point]]
                          and math.dist(_tangent(s, False), _tangent(b, True)) < 1e-6)
     for i, s in enumerate(segs):
         if fillet[i]:
-            p = _meet(segs[i - 1], segs[(i + 1) % n])  # type: ignore[arg-type]
+            p = intersection(segs[i - 1], segs[(i + 1) % n])  # type: ignore[arg-type]
             if p is not None:
                 points.append(p)
         elif not fillet[i - 1]:

@@ -5,7 +5,7 @@ import math
 
 from ..geometry import Arc, Line, Point, Profile
 
-__all__ = ["LocateError", "Outline", "outline_of", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "TOL"]
+__all__ = ["LocateError", "Outline", "outline_of", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "intersection", "TOL"]
 
 TOL = 1e-6
 
@@ -90,7 +90,7 @@ def sharp_corner(profile: Profile | Outline, near: Point) -> Point:
         a, b = segs[i - 1], segs[(i + 1) % n]
         if not (isinstance(a, Line) and isinstance(b, Line)):
             continue
-        p = _intersect(a, b)
+        p = intersection(a, b)
         if p is not None and (best is None or math.dist(p, near) < math.dist(best, near)):
             best = p
     if best is None or math.dist(best, near) > 1e-4:
@@ -108,7 +108,7 @@ def arc_at(profile: Profile, center: Point | None = None, radius: float | None =
     return min(arcs, key=lambda a: math.dist(a.point_at(a.start_angle + a.sweep / 2), ref))
 
 
-def _intersect(a: Line, b: Line) -> Point | None:
+def intersection(a: Line, b: Line) -> Point | None:
     (x1, y1), (x2, y2) = a.start, a.end
     (x3, y3), (x4, y4) = b.start, b.end
     den = (x1 - x2) * (y3 - y4) - (y1 - y2) * (x3 - x4)
