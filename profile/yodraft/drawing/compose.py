@@ -16,7 +16,7 @@ import shapely
 from ..builder import Resolved
 from ..geometry import Arc, Line, Profile
 from .clip import clip_segments
-from .layout import CLEAR, TEXT_HEIGHT, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
+from .layout import CLEAR, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, shop_lines
 from .requests import DATUM_A_KEY, datum_face_z, detail_region, detail_requests, section_requests
@@ -327,12 +327,19 @@ def _datum_face(font: Lettering, ob: Obstacles, view: View, profile: Profile, z:
                     cx, cy = knee[0] + size / 2, y
                 box = (cx - size / 2, cy - size / 2, cx + size / 2, cy + size / 2)
                 parts += [_rect(*box, "dimension"), _text(font, letter, (cx, cy - TEXT_HEIGHT / 2), align="center")]
-                if _free(ob, parts) and not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR)):
-                    for p in parts:
-                        ob.add_item(p)
-                    ob.add_box(box)
+                if _place_if_free(ob, parts, box):
                     return parts
     return []
+
+
+def _place_if_free(ob: Obstacles, parts: list[Item], box: Box) -> bool:
+    """Put a datum callout (``parts``, its frame ``box``) on the sheet when it touches nothing there."""
+    if _free(ob, parts) and not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR)):
+        for p in parts:
+            ob.add_item(p)
+        ob.add_box(box)
+        return True
+    return False
 
 
 def _free(ob: Obstacles, items: list[Item], within: tuple[float, float, float, float] | None = None) -> bool:
@@ -386,10 +393,7 @@ def _datum(font: Lettering, ob: Obstacles, dims: list[Dimension], letter: str) -
                 t = _text(font, letter, (cx, cy - TEXT_HEIGHT / 2), align="center")
                 parts += [frame, t]
                 box = (cx - size / 2, cy - size / 2, cx + size / 2, cy + size / 2)
-                if _free(ob, parts) and not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR)):
-                    for p in parts:
-                        ob.add_item(p)
-                    ob.add_box(box)
+                if _place_if_free(ob, parts, box):
                     return parts
     return []
 

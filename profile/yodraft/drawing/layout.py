@@ -152,18 +152,12 @@ class Obstacles:
     def dimline_too_close(self, segs: Iterable[Seg]) -> bool:
         """Whether a new dimension line runs on or beside another one (closer than a text's depth)."""
         for (a, b) in segs:
-            vertical = abs(a[0] - b[0]) < 1e-9
             for (c, d) in self.dimlines:
-                if vertical and abs(c[0] - d[0]) < 1e-9:
-                    gap = abs(a[0] - c[0])
-                    lo, hi = sorted((a[1], b[1])), sorted((c[1], d[1]))
-                elif not vertical and abs(a[1] - b[1]) < 1e-9 and abs(c[1] - d[1]) < 1e-9:
-                    gap = abs(a[1] - c[1])
-                    lo, hi = sorted((a[0], b[0])), sorted((c[0], d[0]))
-                else:
-                    continue
-                if gap < DIMLINE_GAP and lo[0] < hi[1] + 1.0 and hi[0] < lo[1] + 1.0:
-                    return True
+                side = _parallel(a, b, c, d)
+                if side is not None:
+                    gap, lo, hi = side
+                    if gap < DIMLINE_GAP and lo[0] < hi[1] + 1.0 and hi[0] < lo[1] + 1.0:
+                        return True
         return self.ext_too_close(segs)
 
     def crosses_outline(self, a, b) -> bool:  # type: ignore[no-untyped-def]
@@ -173,19 +167,25 @@ class Obstacles:
         """Whether a new extension line runs parallel to an existing one closer than 0.7 mm (a line on the
         very same place, a shared extension line, is fine)."""
         for (a, b) in segs:
-            vertical = abs(a[0] - b[0]) < 1e-9
             for (c, d) in self.ext + self.dimlines:
-                if vertical and abs(c[0] - d[0]) < 1e-9:
-                    gap = abs(a[0] - c[0])
-                    lo, hi = sorted((a[1], b[1])), sorted((c[1], d[1]))
-                elif not vertical and abs(a[1] - b[1]) < 1e-9 and abs(c[1] - d[1]) < 1e-9:
-                    gap = abs(a[1] - c[1])
-                    lo, hi = sorted((a[0], b[0])), sorted((c[0], d[0]))
-                else:
-                    continue
-                if 1e-6 < gap < EXT_MIN_GAP and lo[0] < hi[1] and hi[0] < lo[1]:
-                    return True
+                side = _parallel(a, b, c, d)
+                if side is not None:
+                    gap, lo, hi = side
+                    if 1e-6 < gap < EXT_MIN_GAP and lo[0] < hi[1] and hi[0] < lo[1]:
+                        return True
         return False
+
+
+def _parallel(a: tuple[float, float], b: tuple[float, float], c: tuple[float, float], d: tuple[float, float]) -> tuple[float, list[float], list[float]] | None:
+    """For two axis-parallel segments ab and cd running the same way: their distance apart and each one's
+    span along that way (sorted); None when they do not run the same way."""
+    if abs(a[0] - b[0]) < 1e-9:
+        if abs(c[0] - d[0]) < 1e-9:
+            return abs(a[0] - c[0]), sorted((a[1], b[1])), sorted((c[1], d[1]))
+        return None
+    if abs(a[1] - b[1]) < 1e-9 and abs(c[1] - d[1]) < 1e-9:
+        return abs(a[1] - c[1]), sorted((a[0], b[0])), sorted((c[0], d[0]))
+    return None
 
 
 def _cells(box: Box) -> list[tuple[int, int]]:
