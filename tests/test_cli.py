@@ -131,7 +131,8 @@ def test_precision_class_and_coating_move_the_seat(tmp_path: Path) -> None:
 
 @pytest.mark.parametrize("argv", [["--version"], ["fit", "6 H7/g6"], ["keys"], ["templates"], ["check", "{template}"]])
 def test_quick_commands_load_only_what_they_need(argv: list[str]) -> None:
-    """`check` never loads ezdxf; `fit`, `keys`, `templates` and `--version` load neither numpy nor shapely."""
+    """`check` of a design in common units loads neither ezdxf nor pint; `fit`, `keys`, `templates` and
+    `--version` load neither numpy nor shapely."""
     import subprocess
     import sys
 
@@ -139,9 +140,9 @@ def test_quick_commands_load_only_what_they_need(argv: list[str]) -> None:
 
     args = [a.replace("{template}", str(TEMPLATES / "string-trick.toml")) for a in argv]
     probe = ("import sys\nfrom yodraft.cli import main\ntry:\n    main(sys.argv[1:])\nexcept SystemExit:\n    pass\n"
-             "print(' '.join(m for m in ('ezdxf', 'numpy', 'shapely') if m in sys.modules), file=sys.stderr)\n")
+             "print(' '.join(m for m in ('ezdxf', 'numpy', 'shapely', 'pint') if m in sys.modules), file=sys.stderr)\n")
     run = subprocess.run([sys.executable, "-c", probe, *args], capture_output=True, text=True, timeout=120)
     loaded = set(run.stderr.strip().splitlines()[-1].split()) if run.stderr.strip() else set()
-    assert "ezdxf" not in loaded
+    assert not loaded & {"ezdxf", "pint"}, loaded
     if argv[0] != "check":
         assert not loaded & {"numpy", "shapely"}, loaded

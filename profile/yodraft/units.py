@@ -21,7 +21,7 @@ from typing import TYPE_CHECKING
 if TYPE_CHECKING:  # pragma: no cover
     import pint
 
-__all__ = ["registry", "parse_quantity", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH", "UnitError"]
+__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH", "UnitError"]
 
 MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
 
@@ -93,6 +93,25 @@ class UnitError(ValueError):
     """A quantity text that is not a number followed by a unit of the right kind."""
 
 
+#: the units design files mostly use, per kind: unit text (spaces removed) → factor to the kind's base unit, so
+#: that reading a design of these alone does not import pint (about 0.1 s of every command's start). Every row is
+#: pint's own answer from units.txt: tests/test_units.py converts through the registry and asserts equality.
+#: Any other unit text goes to the registry; temperatures (offset scales) always do.
+COMMON_UNITS: dict[str, dict[str, float]] = {
+    "length": {"mm": 1.0, "cm": 10.0, "m": 1000.0, "um": 0.001, "in": 25.4, "inch": 25.4, "thou": 0.0254,
+               "mil": 0.0254},
+    "mass": {"g": 1.0, "kg": 1000.0, "mg": 0.001, "oz": 28.349523125, "lb": 453.59237},
+    "angle": {"deg": math.pi / 180, "rad": 1.0},
+    "torque": {"N*mm": 1.0, "N*m": 1000.0, "mN*m": 1.0},
+    "density": {"g/cm**3": 1.0, "g/mm**3": 1000.0},
+    "speed": {"rpm": 1.0, "rev/min": 1.0, "Hz": 60.0, "rev/s": 60.0},
+    "inertia": {"g*mm**2": 1.0, "g*cm**2": 100.0, "kg*mm**2": 1000.0, "kg*m**2": 1e9},
+    "roughness": {"um": 1.0},
+    "force": {"N": 1.0, "kN": 1000.0},
+    "temperature_difference": {"K": 1.0},
+}
+
+
 @functools.cache
 def registry() -> "pint.UnitRegistry":
     """The one unit registry, from our own small definitions file (created once, on first use: the commands
@@ -119,6 +138,12 @@ def parse_quantity(text: object, kind: str) -> float:
     if not math.isfinite(float(number)):
         raise UnitError(f"{text.strip()[:60]!r} is not a finite number")
     unit = unit.replace("^", "**").replace("μ", "u").replace("µ", "u").replace("°", "deg")
+    factor = COMMON_UNITS.get(kind, {}).get("".join(unit.split()))
+    if factor is not None:
+        value = float(number) * factor
+        if not math.isfinite(value):
+            raise UnitError(f"{text[:60]!r} is not a finite number")
+        return value
     ureg = registry()
     import pint
 
