@@ -24,7 +24,7 @@ def test_catch_zone_angle_follows_rim_width(string_trick_text: str) -> None:
 
 
 def test_angle_alone_derives_the_rim_width(string_trick_text: str) -> None:
-    text = string_trick_text.replace('width = "8 mm"\n', "", 1)
+    text = string_trick_text.replace('band_width = "8 mm"\n', "", 1)
     text = set_key(text, "features.catch_zone", "angle", "30 deg")
     r = build_text(text)
     assert r["catch_zone.angle"] == pytest.approx(math.radians(30), abs=1e-12)

@@ -51,6 +51,16 @@ def test_unknown_bearing_suggests() -> None:
 
 
 def test_given_keys_are_recorded() -> None:
-    d = yodraft.loads(yodraft.EXAMPLE + '[features.rim]\nwidth = "7 mm"\n')
-    assert d.is_given("features.rim.width") and not d.is_given("features.rim.thickness")
-    assert d.features["rim"]["width"] == 7.0
+    d = yodraft.loads(yodraft.EXAMPLE + '[features.rim]\nband_width = "7 mm"\n')
+    assert d.is_given("features.rim.band_width") and not d.is_given("features.rim.thickness")
+    assert d.features["rim"]["band_width"] == 7.0
+
+
+def test_rim_band_width_read_under_its_earlier_name() -> None:
+    """`features.rim.width` was the band's name before `band_width`: still read as it, never both at once."""
+    old = yodraft.loads(yodraft.EXAMPLE + '[features.rim]\nwidth = "7 mm"\n')
+    new = yodraft.loads(yodraft.EXAMPLE + '[features.rim]\nband_width = "7 mm"\n')
+    assert old.features == new.features and old.is_given("features.rim.band_width")
+    assert old.raw["features"]["rim"] == {"band_width": "7 mm"}
+    with pytest.raises(DesignInputError, match=r"features\.rim\.width: is the earlier name of band_width"):
+        yodraft.loads(yodraft.EXAMPLE + '[features.rim]\nwidth = "7 mm"\nband_width = "7 mm"\n')

@@ -48,11 +48,11 @@ def test_deeper_pad_groove_changes_mass_not_gap(tmp_path: Path, string_trick_tex
 
 def test_text_diff_reads_for_a_designer(tmp_path: Path, string_trick_text: str,
                                         capsys: pytest.CaptureFixture[str]) -> None:
-    pa, pb = _files(tmp_path, string_trick_text, set_in(string_trick_text, "features.rim", "width", "7 mm"))
+    pa, pb = _files(tmp_path, string_trick_text, set_in(string_trick_text, "features.rim", "band_width", "7 mm"))
     assert main(["diff", str(pa), str(pb)]) == 0
     out = capsys.readouterr().out
-    assert "features.rim.width: 8 mm → 7 mm" in out
-    assert "features.rim.dimensions.width_mm: 8 mm → 7 mm  (-1 mm)" in out
+    assert "features.rim.band_width: 8 mm → 7 mm" in out
+    assert "features.rim.dimensions.band_width_mm: 8 mm → 7 mm  (-1 mm)" in out
 
 
 def test_same_design_no_differences(capsys: pytest.CaptureFixture[str]) -> None:
@@ -63,7 +63,7 @@ def test_same_design_no_differences(capsys: pytest.CaptureFixture[str]) -> None:
 
 def test_unit_rewrite_is_not_a_change(string_trick_text: str) -> None:
     a = build(loads(string_trick_text))
-    b = build(loads(set_in(string_trick_text, "features.rim", "width", "0.8 cm")))
+    b = build(loads(set_in(string_trick_text, "features.rim", "band_width", "0.8 cm")))
     assert diff(a, b).same  # 0.8 cm is 8 mm; float noise sits inside the tolerance
 
 

@@ -119,7 +119,7 @@ def test_every_dimension_is_a_real_tagged_dimension_measuring_the_model(files, r
     expected = {
         "rim.diameter": v["rim.diameter"], "rim.hub_diameter": v["rim.hub_diameter"],
         # the cup floor and the hub face located from datum face B (ISO 129-1 chain from the datum face)
-        "rim.width": v["rim.width"], "rim.flat_z": zb - v["rim.flat_z"], "rim.hub_face_z": zb - v["rim.hub_face_z"],
+        "rim.band_width": v["rim.band_width"], "rim.flat_z": zb - v["rim.flat_z"], "rim.hub_face_z": zb - v["rim.hub_face_z"],
         "catch_zone.angle": math.degrees(v["catch_zone.angle"]),
         "bearing_seat.post_diameter": v["bearing_seat.post_diameter"],
         "bearing_seat.wall_bore": v["bearing_seat.wall_bore"],

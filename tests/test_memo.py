@@ -9,7 +9,7 @@ from yodraft.builder import BuildMemo
 
 #: one edit at a time, each reaching a different feature, the shop settings, the bearing or the material
 EDITS = [
-    ("features.rim", "width", "7 mm"),
+    ("features.rim", "band_width", "7 mm"),
     ("features.rim", "thickness", "4 mm"),
     ("features.pad_groove", "depth", "2 mm"),
     ("features.bearing_seat", "wall_offset", "0.3 mm"),
@@ -46,7 +46,7 @@ def test_memo_build_equals_fresh_build_after_each_edit(template: str) -> None:
 def test_memo_reuses_features_the_edit_does_not_reach(string_trick_text: str) -> None:
     memo = BuildMemo()
     first = build(loads(string_trick_text), memo)
-    second = build(loads(set_in(string_trick_text, "features.rim", "width", "7 mm")), memo)
+    second = build(loads(set_in(string_trick_text, "features.rim", "band_width", "7 mm")), memo)
     for name in ("bearing_seat", "vent_groove", "axle_bore", "pad_groove"):
         assert second.features[name] is first.features[name]  # upstream of the rim: kept
     assert second.features["rim"] is not first.features["rim"]

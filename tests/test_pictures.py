@@ -183,7 +183,7 @@ def _revised(tmp_path: Path) -> tuple[Path, Path]:
     a = tmp_path / "a.toml"
     a.write_text((TEMPLATES / "string-trick.toml").read_text(encoding="utf-8"), encoding="utf-8")
     text = set_in(a.read_text(encoding="utf-8"), "design", "revision", "B")
-    text = set_in(text, "features.rim", "width", "9 mm")
+    text = set_in(text, "features.rim", "band_width", "9 mm")
     b = tmp_path / "b.toml"
     b.write_text(set_in(text, "features.rim", "cup_depth", "9 mm"), encoding="utf-8")
     return a, b
@@ -261,7 +261,7 @@ def test_one_key_sweep_plot_marks_where_the_target_is_met(tmp_path: Path) -> Non
 def test_two_key_sweep_plot_is_a_heat_map_with_the_target_contour(tmp_path: Path) -> None:
     plot = tmp_path / "s.svg"
     assert main(["sweep", str(TEMPLATES / "string-trick.toml"), "--vary", "rim.thickness=3mm:4mm:5",
-                 "--vary", "rim.width=7mm:9mm:4", "-o", str(tmp_path / "s.csv"), "--plot", str(plot)]) == 0
+                 "--vary", "rim.band_width=7mm:9mm:4", "-o", str(tmp_path / "s.csv"), "--plot", str(plot)]) == 0
     root = parse(plot.read_bytes())
     cells = [r for r in root.iter(f"{SVG}rect") if (r.get("fill") or "").startswith("#") and r.get("stroke") is None
              and r.get("fill") != "#fff"]
@@ -271,7 +271,7 @@ def test_two_key_sweep_plot_is_a_heat_map_with_the_target_contour(tmp_path: Path
     assert "target 66 g" in _texts(root)
     again = tmp_path / "again.svg"
     assert main(["sweep", str(TEMPLATES / "string-trick.toml"), "--vary", "rim.thickness=3mm:4mm:5",
-                 "--vary", "rim.width=7mm:9mm:4", "-o", str(tmp_path / "s.csv"), "--plot", str(again)]) == 0
+                 "--vary", "rim.band_width=7mm:9mm:4", "-o", str(tmp_path / "s.csv"), "--plot", str(again)]) == 0
     assert again.read_bytes() == plot.read_bytes()
     rasterise(plot, tmp_path)
 
@@ -317,7 +317,7 @@ def test_report_links_the_pictures_build_wrote(tmp_path: Path) -> None:
         assert target.is_file() and parse(target.read_bytes()) is not None
     assert links["overlay with the previous revision"] == "larchmere-ls56-B-overlay-larchmere-ls56-A.svg"
     text = report.read_text(encoding="utf-8")
-    assert "features.rim.width: 8 mm → 9 mm" in text and "rev A" in text
+    assert "features.rim.band_width: 8 mm → 9 mm" in text and "rev A" in text
     # a report elsewhere links the same pictures by a path relative to itself
     elsewhere = tmp_path / "notes" / "b.md"
     elsewhere.parent.mkdir()

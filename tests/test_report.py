@@ -32,7 +32,7 @@ def test_markdown_report_sections(tmp_path: Path, capsys: pytest.CaptureFixture[
                     "## Mass budget", "## Spin metrics", "## Balance", "## Checks", "## Cautions"):
         assert heading in text
     assert "| A | 2026-11-20 | First issue for prototype |" in text
-    assert "| features.rim.width | 8 mm |" in text
+    assert "| features.rim.band_width | 8 mm |" in text
     # worst-case clearance of the post in the bearing bore, as a designer would add it up by hand:
     # smallest bore (nominal + lower deviation) minus largest post (nominal + tolerance)
     assert main(["check", str(TEMPLATES / "string-trick.toml"), "--json"]) == 0

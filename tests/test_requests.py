@@ -52,7 +52,7 @@ def _common(r, zb: float) -> dict[str, float]:
     v = r.values
     return {
         "rim.diameter": v["rim.diameter"], "rim.cup_diameter": v["rim.cup_diameter"],
-        "rim.hub_diameter": v["rim.hub_diameter"], "rim.width": v["rim.width"], "rim.hub_height": v["rim.hub_height"],
+        "rim.hub_diameter": v["rim.hub_diameter"], "rim.band_width": v["rim.band_width"], "rim.hub_height": v["rim.hub_height"],
         # the cup floor and the hub face from datum face B
         "rim.flat_z": zb - v["rim.flat_z"], "rim.hub_face_z": zb - v["rim.hub_face_z"],
         "rim.floor_angle": math.degrees(v["rim.floor_angle"]),

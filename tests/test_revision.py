@@ -52,7 +52,7 @@ def test_changed_geometry_same_revision_is_refused(design: Path, tmp_path: Path,
     out = tmp_path / "out"
     assert _build(capsys, design, out)[0] == 0
     before = {p.name: p.read_bytes() for p in out.iterdir()}
-    design.write_text(set_in(string_trick_text, "features.rim", "width", "7 mm"), encoding="utf-8")
+    design.write_text(set_in(string_trick_text, "features.rim", "band_width", "7 mm"), encoding="utf-8")
     code, err = _build(capsys, design, out)
     assert code == 1
     assert len(err.strip().splitlines()) == 1
@@ -66,7 +66,7 @@ def test_bumped_revision_builds_beside_the_old_one(design: Path, tmp_path: Path,
                                                    string_trick_text: str) -> None:
     out = tmp_path / "out"
     assert _build(capsys, design, out)[0] == 0
-    text = set_in(set_in(string_trick_text, "features.rim", "width", "7 mm"), "design", "revision", "B")
+    text = set_in(set_in(string_trick_text, "features.rim", "band_width", "7 mm"), "design", "revision", "B")
     design.write_text(text, encoding="utf-8")
     assert _build(capsys, design, out)[0] == 0
     assert (out / f"{STEM}.dxf").exists() and (out / "larchmere-ls56-B.dxf").exists()
@@ -83,8 +83,8 @@ def test_drawing_without_record_is_refused(design: Path, tmp_path: Path, capsys:
 def test_fingerprint_ignores_wording_and_units(string_trick_text: str) -> None:
     a = build(loads(string_trick_text))
     # 8 mm written as 0.8 cm: same part (pint converts; float noise is below the 1e-6 mm rounding)
-    b = build(loads(set_in(string_trick_text, "features.rim", "width", "0.8 cm")))
-    c = build(loads(set_in(string_trick_text, "features.rim", "width", "8.001 mm")))
+    b = build(loads(set_in(string_trick_text, "features.rim", "band_width", "0.8 cm")))
+    c = build(loads(set_in(string_trick_text, "features.rim", "band_width", "8.001 mm")))
     assert geometry_fingerprint(a) == geometry_fingerprint(b)
     assert geometry_fingerprint(a) != geometry_fingerprint(c)
     assert inputs_fingerprint(a) != inputs_fingerprint(b)
@@ -138,7 +138,7 @@ def test_concurrent_builds_leave_a_drawing_and_record_of_one_build(tmp_path: Pat
     designs = []
     for i, width in enumerate(("7 mm", "9 mm")):
         path = tmp_path / f"d{i}.toml"
-        path.write_text(set_in(string_trick_text, "features.rim", "width", width), encoding="utf-8")
+        path.write_text(set_in(string_trick_text, "features.rim", "band_width", width), encoding="utf-8")
         designs.append(path)
     runs = [subprocess.Popen([sys.executable, "-m", "yodraft", "build", str(p), "-o", str(out)],
                              stdout=subprocess.DEVNULL, stderr=subprocess.PIPE) for p in designs]

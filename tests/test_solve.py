@@ -23,7 +23,7 @@ def test_solve_command_writes_a_new_file_that_checks(tmp_path: Path, capsys: pyt
     source = tmp_path / "st.toml"
     source.write_text((TEMPLATES / "string-trick.toml").read_text())
     before = source.read_bytes()
-    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 0
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.band_width"]) == 0
     assert source.read_bytes() == before
     solved = tmp_path / "st-B.toml"
     design = yodraft.load(solved)
@@ -32,7 +32,18 @@ def test_solve_command_writes_a_new_file_that_checks(tmp_path: Path, capsys: pyt
     assert resolved.ok and analyse(resolved).assembly.total_g == pytest.approx(66.0, abs=0.01)
     # a second solve would overwrite the first: refused
     capsys.readouterr()
-    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 2
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.band_width"]) == 2
+
+
+def test_solve_of_a_key_under_its_earlier_name_rewrites_that_line(tmp_path: Path) -> None:
+    """A file giving the rim band as `width` (its earlier name) is solved into `band_width` on the same line."""
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text().replace('band_width = "8 mm"', 'width = "8 mm"'))
+    assert main(["solve", str(source), "--target", "mass=66g", "--vary", "features.rim.width"]) == 0
+    text = (tmp_path / "st-B.toml").read_text()
+    rim = text.split("[features.rim]", 1)[1].split("\n[", 1)[0]
+    assert rim.count("band_width = ") == 1 and "\nwidth = " not in rim
+    assert yodraft.build(yodraft.load(tmp_path / "st-B.toml")).ok
 
 
 def test_solve_out_of_reach_names_closest(capsys: pytest.CaptureFixture[str], tmp_path: Path) -> None:

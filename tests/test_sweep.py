@@ -17,16 +17,16 @@ DESIGN = str(TEMPLATES / "string-trick.toml")
 
 
 @pytest.mark.parametrize("vary, words", [
-    ("rim.width=6mm:3mm:0", "count 0 is out of range"),
-    ("rim.width=6mm:3mm:1", "count 1 is out of range"),
-    ("rim.width=6mm:3mm:x", "is not a whole number"),
+    ("rim.band_width=6mm:3mm:0", "count 0 is out of range"),
+    ("rim.band_width=6mm:3mm:1", "count 1 is out of range"),
+    ("rim.band_width=6mm:3mm:x", "is not a whole number"),
     ("rim.widht=6mm:3mm:4", "is not a design key"),
     ("features.nothing.width=6mm:3mm:4", "is not a design key"),
-    ("rim.width=6g:3g:4", "is not a unit of length"),
-    ("rim.width=6:3:4", "as a number followed by a unit"),
-    ("rim.width=6mm:3mm", "cannot be read"),
+    ("rim.band_width=6g:3g:4", "is not a unit of length"),
+    ("rim.band_width=6:3:4", "as a number followed by a unit"),
+    ("rim.band_width=6mm:3mm", "cannot be read"),
     ("design.name=1mm:2mm:3", "cannot be swept"),
-    ("rim.width=6mm:6mm:3", "START equals STOP"),
+    ("rim.band_width=6mm:6mm:3", "START equals STOP"),
 ])
 def test_bad_vary_one_line_exit_2(capsys: pytest.CaptureFixture[str], vary: str, words: str) -> None:
     assert main(["sweep", DESIGN, "--vary", vary]) == 2
@@ -60,9 +60,9 @@ def test_sweep_keeps_failed_variants(tmp_path: Path, capsys: pytest.CaptureFixtu
 def test_variant_equals_the_edited_file(string_trick_text: str) -> None:
     # the sweep's variant must be the same design as writing the value into the file by hand
     design = loads(string_trick_text)
-    result = sweep(design, [parse_vary("features.rim.width=6mm:9mm:4", design)], workers=1)
+    result = sweep(design, [parse_vary("features.rim.band_width=6mm:9mm:4", design)], workers=1)
     third = result.variants[2]
-    by_hand = summary(build(loads(set_in(string_trick_text, "features.rim", "width", "8 mm"))))
+    by_hand = summary(build(loads(set_in(string_trick_text, "features.rim", "band_width", "8 mm"))))
     assert third.inputs == (pytest.approx(8.0),)
     assert third.outputs["mass.total_g"] == pytest.approx(by_hand["mass"]["total_g"], rel=1e-12)
     assert third.outputs["mass.izz_g_mm2"] == pytest.approx(by_hand["mass"]["izz_g_mm2"], rel=1e-12)
@@ -71,7 +71,7 @@ def test_variant_equals_the_edited_file(string_trick_text: str) -> None:
 
 def test_two_axes_across_processes_match_one_process() -> None:
     design = load(DESIGN)
-    axes = [parse_vary("rim.width=6mm:10mm:9", design), parse_vary("features.rim.thickness=2mm:5mm:10", design)]
+    axes = [parse_vary("rim.band_width=6mm:10mm:9", design), parse_vary("features.rim.thickness=2mm:5mm:10", design)]
     serial = sweep(design, axes, workers=1)
     parallel = sweep(design, axes, workers=2)
     assert len(serial.variants) == 90
@@ -103,3 +103,11 @@ def test_outputs_carry_the_summary_values(template: str) -> None:
         assert variant.outputs == expected
         assert variant.ok is resolved.ok
         assert variant.failed == tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
+
+
+def test_a_key_under_its_earlier_name_sweeps_the_same_and_keeps_its_column(string_trick_text: str) -> None:
+    design = loads(string_trick_text)
+    old, new = parse_vary("features.rim.width=6mm:9mm:4", design), parse_vary("rim.band_width=6mm:9mm:4", design)
+    assert (old.column, new.column) == ("features.rim.width_mm", "features.rim.band_width_mm")
+    ran = [sweep(design, [axis], workers=1).variants for axis in (old, new)]
+    assert [v.outputs for v in ran[0]] == [v.outputs for v in ran[1]]

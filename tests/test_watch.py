@@ -37,11 +37,11 @@ def test_generator_rebuilds_and_keeps_last_good(tmp_path: Path, string_trick_tex
     assert [c.key for c in failed.changes.inputs] == ["features.rim.thickness"]
     assert any(c.key == "mass.total_g" for c in failed.changes.derived)
 
-    _save(design, set_in(string_trick_text, "features.rim", "width", "7 mm"))
+    _save(design, set_in(string_trick_text, "features.rim", "band_width", "7 mm"))
     rebuilt = next(events)
     # geometry changed under revision A, but the drawing was this session's own: rewritten
     assert rebuilt.kind == "built" and (out / DXF).read_bytes() != good
-    assert [c.key for c in rebuilt.changes.inputs] == ["features.rim.width"]
+    assert [c.key for c in rebuilt.changes.inputs] == ["features.rim.band_width"]
 
 
 def test_drawing_from_before_the_session_is_protected(tmp_path: Path, string_trick_text: str) -> None:
@@ -49,7 +49,7 @@ def test_drawing_from_before_the_session_is_protected(tmp_path: Path, string_tri
     _save(design, string_trick_text)
     assert next(watch(design, out, timeout=5)).kind == "built"
     issued = (out / DXF).read_bytes()
-    _save(design, set_in(string_trick_text, "features.rim", "width", "7 mm"))
+    _save(design, set_in(string_trick_text, "features.rim", "band_width", "7 mm"))
     event = next(watch(design, out, timeout=5))  # a new session
     assert event.kind == "error" and "bump design.revision" in event.message
     assert (out / DXF).read_bytes() == issued
@@ -103,7 +103,7 @@ def test_cli_watch_end_to_end(tmp_path: Path, string_trick_text: str) -> None:
         _wait_for(lines, seen, "changed since the last good build")
         _wait_for(lines, seen, "features.rim.thickness")
         assert (out / DXF).read_bytes() == good
-        _save(design, set_in(string_trick_text, "features.rim", "width", "7 mm"))
+        _save(design, set_in(string_trick_text, "features.rim", "band_width", "7 mm"))
         _wait_for(lines, seen, "built:")
         assert proc.wait(timeout=30) == 0  # stopped by --max-builds 3
     finally:

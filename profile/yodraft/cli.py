@@ -48,7 +48,7 @@ def _parser() -> argparse.ArgumentParser:
     p = sub.add_parser("solve", help="move one parameter until the design hits a target mass, Izz or gap")
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("--target", required=True, help='what to hit, e.g. mass=66g, izz=30000g*mm^2, gap=4.2mm')
-    p.add_argument("--vary", required=True, help="numeric parameter to move, e.g. features.rim.width")
+    p.add_argument("--vary", required=True, help="numeric parameter to move, e.g. features.rim.band_width")
     p.add_argument("-o", "--output", "--out", dest="out",
                    help="where to write the solved design (default: beside it, named by the new revision)")
     p.add_argument("--date", help="date of the new revision, YYYY-MM-DD (default: today)")
@@ -96,7 +96,7 @@ def _add_revising(sub: Any) -> None:
     p = sub.add_parser("sweep", help="resolve and check a grid of variants over one or two parameters")
     p.add_argument("design", help="design file (.toml)")
     p.add_argument("--vary", action="append", required=True, metavar="KEY=START:STOP:COUNT",
-                   help="e.g. features.rim.width=6mm:3mm:4; give once or twice")
+                   help="e.g. features.rim.band_width=6mm:3mm:4; give once or twice")
     p.add_argument("-o", "--output", "--csv", dest="csv", help="write the CSV here (default: print it)")
     p.add_argument("--plot", metavar="FILE.svg", help="write an SVG plot of the chosen outputs here")
     p.add_argument("--y", metavar="KEY[,KEY...]",

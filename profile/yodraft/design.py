@@ -14,7 +14,7 @@ from typing import Any
 from .catalog.finishes import FINISHES, check_finish
 from .errors import DesignInputError
 from .features import FEATURES
-from .params import ParamSpec, check_name, check_unknown, read_table
+from .params import ParamSpec, check_name, check_unknown, current_names, read_table
 from .units import MM_PER_INCH as IN
 
 __all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "with_values", "NAME_PATTERN",
@@ -24,7 +24,7 @@ NAME_PATTERN = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")
 DATE_PATTERN = re.compile(r"^\d{4}-\d{2}-\d{2}$")
 #: no design file comes near this; a larger one is the wrong file (or /dev/zero)
 MAX_DESIGN_BYTES = 2**20  # a design is a few kilobytes; a megabyte is already a mistake
-#: the deepest key path a design file needs (features.rim.width is three parts)
+#: the deepest key path a design file needs (features.rim.band_width is three parts)
 MAX_KEY_PARTS = 6
 #: words a build puts after ``<name>-<revision>`` in its file names: a revision may not be one of them,
 #: or design ``x-A`` at revision ``profile`` would write over the CAM profile of design ``x`` at revision ``A``
@@ -139,16 +139,17 @@ class Design:
         return self.sections["design"]["revision"]
 
     def is_given(self, key: str) -> bool:
-        """Whether ``key`` (e.g. "features.rim.width") was written in the file."""
+        """Whether ``key`` (e.g. "features.rim.band_width") was written in the file."""
         return key in self.given
 
 
 def find_param(key: str) -> tuple[list[str], ParamSpec] | None:
-    """The TOML path and spec of a design key such as "features.rim.width", "rim.width" (a feature's
-    key without "features.") or "shop.fit_clearance"; None when there is no such key.
+    """The TOML path and spec of a design key such as "features.rim.band_width", "rim.band_width" (a feature's
+    key without "features.") or "shop.fit_clearance"; None when there is no such key. A key's earlier name
+    finds its current path.
 
-    >>> find_param("rim.width")[0]
-    ['features', 'rim', 'width']
+    >>> find_param("rim.band_width")[0], find_param("features.rim.width")[0]
+    (['features', 'rim', 'band_width'], ['features', 'rim', 'band_width'])
     """
     parts = key.split(".")
     if parts[0] in FEATURES:
@@ -159,8 +160,8 @@ def find_param(key: str) -> tuple[list[str], ParamSpec] | None:
         specs = SECTIONS[parts[0]]
     else:
         return None
-    spec = next((s for s in specs if s.name == parts[-1]), None)
-    return None if spec is None else (parts, spec)
+    spec = next((s for s in specs if parts[-1] in (s.name, s.former)), None)
+    return None if spec is None else (parts[:-1] + [spec.name], spec)
 
 
 def load(path: str | Path) -> Design:
@@ -222,7 +223,7 @@ def _check_key_depth(text: str, source: str) -> None:
     >>> _check_key_depth('a' + '.a' * 9 + ' = 1', "x.toml")
     Traceback (most recent call last):
     ...
-    yodraft.errors.DesignInputError: x.toml: line 1: a key of 10 dotted parts (expected at most 6 parts, e.g. features.rim.width)
+    yodraft.errors.DesignInputError: x.toml: line 1: a key of 10 dotted parts (expected at most 6 parts, e.g. features.rim.band_width)
     """
     for number, line in enumerate(text.splitlines(), 1):
         head = line.lstrip().lstrip("[")
@@ -237,11 +238,11 @@ def _check_key_depth(text: str, source: str) -> None:
             pos += 1
         if parts > MAX_KEY_PARTS:
             raise DesignInputError(source, f"line {number}", f"a key of {parts} dotted parts",
-                                   f"at most {MAX_KEY_PARTS} parts, e.g. features.rim.width")
+                                   f"at most {MAX_KEY_PARTS} parts, e.g. features.rim.band_width")
 
 
 def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Design:
-    """A variant of ``base``: each key path (``features.rim.width``, ``shop.fit_clearance``) set to a value in
+    """A variant of ``base``: each key path (``features.rim.band_width``, ``shop.fit_clearance``) set to a value in
     base units (mm, g, rad …), its parsed TOML updated alike. The one way a sweep, a solve or a lot makes a variant.
 
     >>> d = with_values(loads(EXAMPLE_TEXT), [("features.rim.thickness", 5.0)])
@@ -256,7 +257,7 @@ def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Desig
         found = find_param(key)
         if found is None:
             raise DesignInputError(base.source, key, "is not a design key",
-                                   "a key path such as features.rim.width or shop.fit_clearance")
+                                   "a key path such as features.rim.band_width or shop.fit_clearance")
         parts, spec = found
         keys.append(".".join(parts))
         written = spec.written(value)
@@ -304,6 +305,11 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
     if not isinstance(feature_tables, Mapping):
         raise DesignInputError(source, "features", f"got {type(feature_tables).__name__}", "a table of feature tables")
     check_unknown(feature_tables, list(FEATURES), source, "features", "feature")
+    # a key written under its earlier name is read, and kept in ``raw``, under its current one
+    feature_tables = {fname: current_names(table, FEATURES[fname].PARAMS, source, f"features.{fname}")
+                      if isinstance(table, Mapping) else table for fname, table in feature_tables.items()}
+    if "features" in raw:
+        raw = {**raw, "features": feature_tables}
     features: dict[str, dict[str, Any]] = {}
     for fname, module in FEATURES.items():
         table = feature_tables.get(fname, {})

@@ -129,7 +129,7 @@ def _coating_band(resolved: Resolved) -> tuple[float, float, str]:
 
 def _free_angle(resolved: Resolved) -> bool:
     """Whether the catch-zone angle (not the rim band width) is the drawn dimension."""
-    return resolved.design.features["catch_zone"]["angle"] is not None and resolved.design.features["rim"]["width"] is None
+    return resolved.design.features["catch_zone"]["angle"] is not None and resolved.design.features["rim"]["band_width"] is None
 
 
 def _dimension_bands(resolved: Resolved) -> tuple[list[Band], list[str]]:
@@ -149,10 +149,10 @@ def _dimension_bands(resolved: Resolved) -> tuple[list[Band], list[str]]:
             short = f"{name}.{spec.name}"
             key = f"features.{short}"
             value = dims.get(spec.name)
-            if short == "rim.width" and not free_angle:
+            if short == "rim.band_width" and not free_angle:
                 value = v["catch_zone.rim_width"]
             if short == "catch_zone.land" or (short == "catch_zone.angle" and not free_angle) or (
-                    short == "rim.width" and free_angle):
+                    short == "rim.band_width" and free_angle):
                 continue  # follows from a dimension drawn instead (start diameter, rim band or angle)
             if not isinstance(value, float) or value == 0.0:
                 continue  # absent (no hub, no radius)

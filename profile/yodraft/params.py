@@ -16,7 +16,7 @@ from typing import Any
 from .errors import DesignInputError
 from .units import DISPLAY_UNITS, KINDS, UnitError, parse_quantity, written
 
-__all__ = ["ParamSpec", "read_table", "check_unknown", "check_name", "DISPLAY_UNITS"]
+__all__ = ["ParamSpec", "read_table", "current_names", "check_unknown", "check_name", "DISPLAY_UNITS"]
 
 _QUANTITY_KINDS = set(KINDS)
 _OTHER_KINDS = {"text", "bool", "number"}
@@ -42,6 +42,8 @@ class ParamSpec:
     lo_closed: bool = False
     choices: tuple[str, ...] = ()
     max_length: int = 120
+    #: the key's earlier name, still read as this one (a file may give one of the two, not both)
+    former: str = ""
 
     def __post_init__(self) -> None:
         if self.kind not in _QUANTITY_KINDS | _OTHER_KINDS:
@@ -171,6 +173,23 @@ def check_name(value: str, lookup: Callable[[str], Any], options: Sequence[str],
     except (KeyError, ValueError):
         raise DesignInputError(file, key, f"unknown {what} {value[:40]!r}{_suggest(value, options)}",
                                "one of " + ", ".join(options)) from None
+
+
+def current_names(table: Mapping[str, Any], specs: Sequence[ParamSpec], file: str, path: str) -> Mapping[str, Any]:
+    """``table`` with each key written under its earlier name (``ParamSpec.former``) moved to its current name.
+
+    >>> spec = ParamSpec("band_width", "length", "band", former="width")
+    >>> current_names({"width": "6 mm"}, [spec], "a.toml", "features.rim")
+    {'band_width': '6 mm'}
+    """
+    renames = {s.former: s.name for s in specs if s.former and s.former in table}
+    if not renames:
+        return table
+    for former, name in renames.items():
+        if name in table:
+            raise DesignInputError(file, f"{path}.{former}", f"is the earlier name of {name}, which is also given",
+                                   f"one of {former} and {name}")
+    return {renames.get(k, k): v for k, v in table.items()}
 
 
 def read_table(table: Any, specs: Sequence[ParamSpec], file: str, path: str) -> dict[str, Any]:

@@ -11,7 +11,6 @@ from .units import DISPLAY_UNITS
 __all__ = ["reference_rows", "reference_markdown", "catalog_markdown"]
 
 
-
 def _default(spec: ParamSpec, table: str) -> str:
     if spec.default is None:
         if spec.name in REQUIRED.get(table, ()) or table == "[revisions]" and spec.name in ("letter", "date"):
@@ -36,7 +35,8 @@ def reference_rows() -> Iterator[tuple[str, str, str, str, str]]:
         yield "[revisions]", s.name, s.expected(), _default(s, "[revisions]"), s.doc
     for name, module in FEATURES.items():
         for s in module.PARAMS:
-            yield f"features.{name}", s.name, s.expected(), _default(s, f"features.{name}"), s.doc
+            doc = s.doc + (f" (earlier name `{s.former}`, still read)" if s.former else "")
+            yield f"features.{name}", s.name, s.expected(), _default(s, f"features.{name}"), doc
         for array, specs in getattr(module, "TABLES", {}).items():
             table = f"[features.{name}.{array}]"
             for s in specs:

@@ -45,11 +45,11 @@ class SolveResult:
 
 
 def find_spec(key: str, source: str) -> tuple[list[str], ParamSpec]:
-    """The TOML path and spec of a numeric design key such as "features.rim.width" (or "rim.width")."""
+    """The TOML path and spec of a numeric design key such as "features.rim.band_width" (or "rim.band_width")."""
     found = find_param(key)
     if found is None or found[1].kind in ("text", "bool"):
         raise DesignInputError(source, key, "is not a numeric design parameter",
-                               "a key path such as features.rim.width or features.rim.thickness")
+                               "a key path such as features.rim.band_width or features.rim.thickness")
     return found
 
 
@@ -186,7 +186,7 @@ def solved_text(source_text: str, result: SolveResult, goal_text: str, revision:
     history line saying what was solved; it must read back as a design."""
     value_text = quantity_text(result.value, result.spec)
     table, _, key = result.key.rpartition(".")
-    text = set_key(source_text, table, key, value_text, f"solved for {result.target} {goal_text}")
+    text = set_key(source_text, table, key, value_text, f"solved for {result.target} {goal_text}", result.spec.former)
     text = set_key(text, "design", "revision", revision)
     text = add_revision(text, revision, date, f"{result.key} solved to {value_text} for {result.target} {goal_text}")
     loads(text, out)

@@ -8,9 +8,9 @@ each keeping a BuildMemo so the features a varied key does not reach are
 resolved once.
 
 >>> from yodraft import loads, EXAMPLE
->>> axis = parse_vary("rim.width=6mm:8mm:3", loads(EXAMPLE))
+>>> axis = parse_vary("rim.band_width=6mm:8mm:3", loads(EXAMPLE))
 >>> axis.key, [round(v, 3) for v in axis.values()]
-('features.rim.width', [6.0, 7.0, 8.0])
+('features.rim.band_width', [6.0, 7.0, 8.0])
 """
 from __future__ import annotations
 
@@ -65,7 +65,7 @@ class Axis:
 
     @property
     def column(self) -> str:
-        """CSV column name: the key with its unit suffix, e.g. ``features.rim.width_mm``."""
+        """CSV column name: the key with its unit suffix, e.g. ``features.rim.band_width_mm``."""
         return self.key + DISPLAY_UNITS[self.kind][2]
 
     def shown(self, value: float) -> float:
@@ -102,20 +102,21 @@ class SweepResult:
 
 
 def parse_vary(text: str, design: "Design") -> Axis:
-    """Read ``KEY=START:STOP:COUNT`` (e.g. ``features.rim.width=6mm:3mm:4``) against the design's key specs."""
+    """Read ``KEY=START:STOP:COUNT`` (e.g. ``features.rim.band_width=6mm:3mm:4``) against the design's key specs."""
     where = "--vary"
     m = _VARY.match(text)
     if not m:
-        raise DesignInputError(where, text[:60], "cannot be read", "KEY=START:STOP:COUNT, e.g. features.rim.width=6mm:3mm:4")
+        raise DesignInputError(where, text[:60], "cannot be read", "KEY=START:STOP:COUNT, e.g. features.rim.band_width=6mm:3mm:4")
     key, start_text, stop_text, count_text = m.groups()
     from .design import find_param
 
     found = find_param(key)
     if found is None:
         raise DesignInputError(where, key, "is not a design key",
-                               "a key path such as features.rim.width or shop.fit_clearance")
+                               "a key path such as features.rim.band_width or shop.fit_clearance")
     parts, spec = found
-    full = ".".join(parts)
+    # the column keeps the name the user wrote (a key's earlier name too); with_values finds its current path
+    full = ".".join(parts[:-1] + [key.rpartition(".")[2]])
     if spec.kind not in DISPLAY_UNITS:
         raise DesignInputError(where, full, f"is a {spec.kind} setting and cannot be swept",
                                "a quantity with units or a plain number")

@@ -21,8 +21,9 @@ def _table_span(lines: list[str], table: str) -> tuple[int, int] | None:
     return None
 
 
-def set_key(text: str, table: str, key: str, value: Any, comment: str = "") -> str:
-    """``text`` with ``key`` in ``[table]`` set to ``value`` (added, with the table, if missing).
+def set_key(text: str, table: str, key: str, value: Any, comment: str = "", former: str = "") -> str:
+    """``text`` with ``key`` in ``[table]`` set to ``value`` (added, with the table, if missing); a line that
+    gives the key under its earlier name ``former`` is the one replaced.
 
     >>> print(set_key('[design]\\nname = "a"  # x\\n', "design", "name", "b"))
     [design]
@@ -36,7 +37,8 @@ def set_key(text: str, table: str, key: str, value: Any, comment: str = "") -> s
         lines += ["", f"[{table}]", new]
     else:
         start, end = span
-        pattern = re.compile(rf"^\s*{re.escape(key)}\s*=")
+        names = "|".join(re.escape(k) for k in (key, former) if k)
+        pattern = re.compile(rf"^\s*(?:{names})\s*=")
         hit = next((j for j in range(start + 1, end) if pattern.match(lines[j])), None)
         if hit is None:
             lines.insert(start + 1, new)

@@ -22,7 +22,7 @@ from floor import timed  # noqa: E402
 ROOT = Path(__file__).resolve().parents[2]
 DESIGN = ROOT / "templates" / "string-trick.toml"
 # 40 × 50 = 2,000 variants over rim width and rim thickness, some of which fail a check
-VARY = ["--vary", "features.rim.width=6mm:10mm:40", "--vary", "features.rim.thickness=2.5mm:5mm:50"]
+VARY = ["--vary", "features.rim.band_width=6mm:10mm:40", "--vary", "features.rim.thickness=2.5mm:5mm:50"]
 
 
 def main() -> None:

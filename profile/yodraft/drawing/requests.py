@@ -4,7 +4,7 @@ This module decides WHICH dimensions the sheet carries and what their texts say;
 (``drawing/layout.py``) decides WHERE they go (lanes, text positions, flips) and never the reverse.
 Every point comes from the drawn profile (``locate``), so each dimension measures the geometry.
 
->>> r = DimensionRequest(("rim.width",), "linear", ((10.0, 28.0), (18.0, 28.0)), direction="axial")
+>>> r = DimensionRequest(("rim.band_width",), "linear", ((10.0, 28.0), (18.0, 28.0)), direction="axial")
 >>> measure(r), label(r, "8")
 (8.0, '8')
 >>> label(DimensionRequest(("rim.diameter",), "diameter", ((18.0, 28.0),), auxiliary=True), "56")
@@ -306,7 +306,7 @@ def _rim_requests(resolved: Resolved) -> list[DimensionRequest]:
     ) + ((("rim.hub_diameter",), on_radius(profile, v["rim.hub_diameter"] / 2)),) * has_hub:
         out.append(DimensionRequest(keys, "diameter", (at,), side="right"))
     band = corner(profile, (v["catch_zone.end_z"], R))
-    out.append(DimensionRequest(("rim.width",), "linear", (band, corner(profile, (v["rim.face_z"], R))),
+    out.append(DimensionRequest(("rim.band_width",), "linear", (band, corner(profile, (v["rim.face_z"], R))),
                                 direction="axial", side="above"))
     cup0 = corner(profile, (v["rim.floor_z"], v["rim.cup_diameter"] / 2))
     cup1 = corner(profile, (v["rim.face_z"], v["rim.cup_diameter"] / 2))

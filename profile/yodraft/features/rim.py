@@ -17,8 +17,8 @@ NAME = "rim"
 PARAMS = (
     ParamSpec("diameter", "length", "outer diameter; default the envelope diameter", None, 10.0, 150.0),
     ParamSpec("overall_width", "length", "assembled overall width; default the envelope width", None, 5.0, 150.0),
-    ParamSpec("width", "length", "axial length of the outer-diameter band; default 8 mm unless the catch-zone angle is given",
-              None, 0.0, 60.0),
+    ParamSpec("band_width", "length", "axial length of the outer-diameter band; default 8 mm unless the catch-zone angle is given",
+              None, 0.0, 60.0, former="width"),
     ParamSpec("thickness", "length", "radial thickness of the rim at the outer face (outer diameter to cup wall)", 4.0, 0.0, 60.0),
     ParamSpec("cup_depth", "length", "depth of the cup below the outer face; default leaves 2 mm behind the axle bore",
               None, 0.0, 60.0, lo_closed=True),
@@ -47,7 +47,7 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     flat_r = pick(p, "floor_diameter", ctx["pad_groove.outer_diameter"], derived) / 2
     flat_z = floor_z - max(0.0, cup_r - flat_r) * math.tan(p["floor_angle"])
     hub_r, hub_h = p["hub_diameter"] / 2, p["hub_height"]
-    dims = {"diameter": diameter, "overall_width": overall, "face_z": face_z, "width": p["width"],
+    dims = {"diameter": diameter, "overall_width": overall, "face_z": face_z, "band_width": p["band_width"],
             "thickness": p["thickness"], "cup_diameter": 2 * cup_r, "cup_depth": cup_depth, "floor_z": floor_z,
             "floor_angle": p["floor_angle"], "floor_diameter": 2 * flat_r, "flat_z": flat_z,
             "hub_diameter": 2 * hub_r, "hub_height": hub_h, "hub_face_z": flat_z + hub_h, "edge_radius": p["edge_radius"],
