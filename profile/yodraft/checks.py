@@ -188,42 +188,110 @@ def _faces(segs: Sequence[Any], i: int, p: Point, u: tuple[float, float]) -> boo
     return False
 
 
+@functools.lru_cache(maxsize=64)  # a sweep's loops keep their number of surfaces
+def _pairs(n: int) -> tuple["np.ndarray", "np.ndarray"]:
+    """Every pair (i, j) of a loop's ``n`` surfaces that are not neighbours, in row order (i < j)."""
+    import numpy as np  # imported where used: the quick commands never load it
+    i, j = np.triu_indices(n, 2)
+    keep = ~((i == 0) & (j == n - 1))
+    return i[keep], j[keep]
+
+
+def _ends(segs: Sequence[Any]) -> tuple["np.ndarray", "np.ndarray", list[int]]:
+    """The surfaces' start and end points as (n, 2) arrays, and which of them are arcs."""
+    import numpy as np  # imported where used: the quick commands never load it
+    starts = np.array([s.start for s in segs])
+    ends = np.array([s.end for s in segs])
+    arcs = [i for i, s in enumerate(segs) if hasattr(s, "center")]
+    return starts, ends, arcs
+
+
+def _boxes(segs: Sequence[Any], starts: "np.ndarray", ends: "np.ndarray", arcs: Sequence[int]) -> "np.ndarray":
+    """Each surface's box (z_min, r_min, z_max, r_max): a line's two ends, an arc's extent and end."""
+    import numpy as np  # imported where used: the quick commands never load it
+    box = np.hstack((np.minimum(starts, ends), np.maximum(starts, ends)))
+    for i in arcs:
+        (zl, rl, zh, rh), (z1, r1) = segs[i].extent, segs[i].end
+        box[i] = (min(zl, z1), min(rl, r1), max(zh, z1), max(rh, r1))
+    return box
+
+
+#: how far (mm) below a pair's box distance its true distance may fall by rounding
+_BOX_SLACK = 1e-9
+
+
 def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     """The thinnest metal between two surfaces of the loop that face each other across it:
     (thickness in mm, the point on each surface), or None when no two surfaces face each other.
 
     Surfaces meeting at a corner do not face each other there; a pair counts where the line of
     least distance between them runs through the metal, square to both (within FACING_DEG).
+    Pairs are judged from the closest up; the distance between two surfaces is measured only when
+    the gap between their boxes says it could be the next closest.
     """
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
-    n = len(segs)
     tol = LOOP_CHECK_TOLERANCE
-    lines = np.array([_polyline(tuple(s.flattened(tol)) + (s.end,)) if hasattr(s, "center")
-                      else _polyline((s.start, s.end)) for s in segs])
-    keep = np.array([not _on_axis(s) for s in segs])
-    i_all, j_all = np.triu_indices(n, 2)
-    use = keep[i_all] & keep[j_all] & ~((i_all == 0) & (j_all == n - 1))
-    idx = list(zip(i_all[use].tolist(), j_all[use].tolist()))
-    if not idx:
+    starts, ends, arcs = _ends(segs)
+    keep = (np.abs(starts[:, 1]) >= ON_AXIS) | (np.abs(ends[:, 1]) >= ON_AXIS)  # what _on_axis leaves
+    keep[arcs] = True
+    i_all, j_all = _pairs(len(segs))
+    use = keep[i_all] & keep[j_all]
+    i_use, j_use = i_all[use], j_all[use]
+    if not len(i_use):
         return None
-    a, b = lines[i_all[use]], lines[j_all[use]]
-    dist = shapely.distance(a, b)
-    poly = profile.polygon(tol)
-    for k in np.argsort(dist, kind="stable"):
-        i, j = idx[k]
-        d = float(dist[k])
+    box = _boxes(segs, starts, ends, arcs)
+    gap_z = np.maximum(box[j_use, 0] - box[i_use, 2], box[i_use, 0] - box[j_use, 2])
+    gap_r = np.maximum(box[j_use, 1] - box[i_use, 3], box[i_use, 1] - box[j_use, 3])
+    floor = np.hypot(np.maximum(gap_z, 0.0), np.maximum(gap_r, 0.0)) - _BOX_SLACK  # no pair is closer
+    by_floor = np.argsort(floor, kind="stable")
+    lines: dict[int, Any] = {}
+
+    def line(i: int) -> Any:
+        if i not in lines:
+            s = segs[i]
+            lines[i] = (_polyline(tuple(s.flattened(tol)) + (s.end,)) if hasattr(s, "center")
+                        else _polyline((s.start, s.end)))
+        return lines[i]
+
+    dist: dict[int, float] = {}  # pair (its place in row order) → distance, for the pairs measured so far
+    measured = 0  # the first ``measured`` pairs of by_floor are measured
+    judged: set[int] = set()
+    poly = None
+
+    def measure(upto: float) -> None:
+        """Measure every pair whose box gap is at most ``upto``, at least the next few."""
+        nonlocal measured
+        stop = max(int(np.searchsorted(floor[by_floor], upto, side="right")), min(measured + 8, len(by_floor)))
+        new = by_floor[measured:stop].tolist()
+        found = shapely.distance([line(i) for i in i_use[new].tolist()], [line(j) for j in j_use[new].tolist()])
+        dist.update(zip(new, found.tolist()))
+        measured = stop
+
+    measure(-math.inf)
+    while True:
+        nearest = min(((d, k) for k, d in dist.items() if k not in judged), default=None)
+        unmeasured = float(floor[by_floor[measured]]) if measured < len(by_floor) else math.inf
+        if nearest is None and measured == len(by_floor):
+            return None
+        if nearest is None or nearest[0] > unmeasured:
+            measure(-math.inf if nearest is None else nearest[0])  # a pair not yet measured may be closer
+            continue
+        d, k = nearest
+        judged.add(k)
         if d < 1e-9:
             continue  # touching surfaces: the loop check judges those
-        pq = shapely.shortest_line(lines[i], lines[j])
+        i, j = int(i_use[k]), int(j_use[k])
+        pq = shapely.shortest_line(line(i), line(j))
         (pz, pr), (qz, qr) = pq.coords
         u = ((qz - pz) / d, (qr - pr) / d)
-        if not poly.contains(shapely.points((pz + qz) / 2, (pr + qr) / 2)):
+        if poly is None:
+            poly = profile.polygon(tol)
+        if not shapely.contains_xy(poly, (pz + qz) / 2, (pr + qr) / 2):
             continue  # across air, not metal
         if _faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1])):
             return d, (pz, pr), (qz, qr)
-    return None
 
 
 def surface_walls(profile: "Profile", min_wall: float) -> list[Check]:
@@ -282,35 +350,43 @@ def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
-    starts, owners = [], []
-    for i, seg in enumerate(segs):
-        if _on_axis(seg):
-            continue
-        for t in _SAMPLES:
-            p = _sample(seg, t)
-            n = _inward_normal(seg, p)
-            starts.append((p[0] - _OFFSET * n[0], p[1] - _OFFSET * n[1]))
-            owners.append(i)
-    if not starts:
+    starts, ends, arcs = _ends(segs)
+    lines = [i for i in range(len(segs)) if not hasattr(segs[i], "center")
+             and (abs(segs[i].start[1]) >= ON_AXIS or abs(segs[i].end[1]) >= ON_AXIS)]  # what _on_axis leaves
+    if not lines and not arcs:
         return ()
-    s = np.asarray(starts)
+    # on a line: the sample points along it, stepped off by the offset against its (one) inward normal
+    a, step = starts[lines], ends[lines] - starts[lines]
+    length = np.array([math.hypot(dz, dr) or 1.0 for dz, dr in step.tolist()])
+    normal = np.stack((-step[:, 1] / length, step[:, 0] / length), axis=1)
+    t = np.array(_SAMPLES)[None, :, None]
+    s_lines = (a[:, None, :] + t * step[:, None, :]) - _OFFSET * normal[:, None, :]
+    # on an arc each sample point has its own normal
+    s_arcs = []
+    for i in arcs:
+        for frac in _SAMPLES:
+            p = _sample(segs[i], frac)
+            n = _inward_normal(segs[i], p)
+            s_arcs.append((p[0] - _OFFSET * n[0], p[1] - _OFFSET * n[1]))
+    s = np.concatenate((s_lines.reshape(-1, 2), np.array(s_arcs).reshape(-1, 2)))
+    owners = [i for i in lines for _ in _SAMPLES] + [i for i in arcs for _ in _SAMPLES]
     flat = np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE))
-    a, b = flat, np.roll(flat, -1, axis=0)
-    blocked = np.ones(len(s), dtype=bool)
+    a, b = flat, np.concatenate((flat[1:], flat[:1]))
+    m = len(s)
+    blocked = np.ones(m, dtype=bool)
     # straight rays: out along +r, and along -z and +z; a ray is blocked when it crosses an edge of the loop
     for along, across in ((1, 0), (0, 1)):
-        lo = np.minimum(a[:, across], b[:, across])[None, :]
-        hi = np.maximum(a[:, across], b[:, across])[None, :]
-        at = s[:, across][:, None]
-        spans = (lo <= at) & (at < hi)
-        with np.errstate(divide="ignore", invalid="ignore"):
-            share = (at - a[:, across][None, :]) / (b[:, across] - a[:, across])[None, :]
-        hit = a[:, along][None, :] + share * (b[:, along] - a[:, along])[None, :]
-        start = s[:, along][:, None]
+        lo = np.minimum(a[:, across], b[:, across])
+        hi = np.maximum(a[:, across], b[:, across])
+        at = s[:, across]
+        ray, edge = np.nonzero((lo <= at[:, None]) & (at[:, None] < hi))  # the edges each ray's line crosses
+        share = (at[ray] - a[edge, across]) / (b[edge, across] - a[edge, across])
+        hit = a[edge, along] + share * (b[edge, along] - a[edge, along])
+        start = s[ray, along]
         if along == 1:  # radially outward
-            blocked &= (spans & (hit > start)).any(axis=1)
+            blocked &= np.bincount(ray[hit > start], minlength=m) > 0
         else:  # axially, toward either face
-            blocked &= (spans & (hit < start)).any(axis=1) & (spans & (hit > start)).any(axis=1)
+            blocked &= (np.bincount(ray[hit < start], minlength=m) > 0) & (np.bincount(ray[hit > start], minlength=m) > 0)
     hidden = sorted({owners[k] for k in np.flatnonzero(blocked)})
     if not hidden:
         return ()

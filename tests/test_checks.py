@@ -1,0 +1,134 @@
+"""The rules over any outer shape: the quick searches give exactly what the plain definitions give.
+
+``least_wall`` measures only the pairs of surfaces that could be the closest, and ``reentrant_regions``
+works on arrays; each is compared here with the definition written out straight (every pair measured,
+every sample point walked one by one) on every template, the valid corpus and grids of variants that
+pass and fail.
+"""
+from __future__ import annotations
+
+from functools import lru_cache
+
+import numpy as np
+import pytest
+import shapely
+
+import yodraft
+from conftest import ROOT, TEMPLATES
+from yodraft.builder import build
+from yodraft.checks import (BACK_TURNING_TOOL, GROOVING_TOOL, LOOP_CHECK_TOLERANCE, Reentrant, _faces,
+                            _inward_normal, _on_axis, _sample, least_wall, reentrant_regions)
+from yodraft.design import with_values
+from yodraft.geometry import Profile
+
+DESIGNS = sorted(TEMPLATES.glob("*.toml")) + sorted((ROOT / "tests" / "corpus" / "valid").glob("*.toml"))
+#: (design, key, values): grids that reach thin walls, crossing loops and deep undercuts
+GRIDS = [
+    ("string-trick.toml", "features.rim.width", np.linspace(2.0, 12.0, 9)),
+    ("string-trick.toml", "features.rim.thickness", np.linspace(0.8, 6.0, 9)),
+    ("string-trick.toml", "features.bearing_seat.spacing", np.linspace(0.5, 8.0, 7)),
+    ("undercut-rim.toml", "features.rim.width", np.linspace(3.0, 12.0, 7)),
+    ("arc-organic.toml", "features.rim.thickness", np.linspace(0.8, 6.0, 7)),
+    ("sketched.toml", "features.bearing_seat.spacing", np.linspace(0.5, 6.0, 7)),
+    ("bimetal-ring.toml", "features.rim.thickness", np.linspace(1.0, 8.0, 7)),
+]
+
+
+@lru_cache(maxsize=None)
+def _loops() -> tuple[tuple[str, Profile], ...]:
+    out = [(path.name, build(yodraft.load(path)).profile) for path in DESIGNS]
+    for name, key, values in GRIDS:
+        base = yodraft.load(TEMPLATES / name)
+        for v in values:
+            try:
+                profile = build(with_values(base, [(key, float(v))])).profile
+            except ValueError:
+                continue
+            out.append((f"{name} {key}={v:.3f}", profile))
+    return tuple((name, p) for name, p in out if p is not None)
+
+
+def _least_wall_by_definition(profile: Profile) -> tuple[float, tuple[float, float], tuple[float, float]] | None:
+    """Every pair of surfaces that are not neighbours measured, judged from the closest up."""
+    segs = profile.segments
+    n = len(segs)
+    tol = LOOP_CHECK_TOLERANCE
+    lines = [shapely.linestrings(np.asarray(tuple(s.flattened(tol)) + (s.end,))) if hasattr(s, "center")
+             else shapely.linestrings(np.asarray((s.start, s.end))) for s in segs]
+    pairs = [(i, j) for i in range(n) for j in range(i + 2, n)
+             if not (i == 0 and j == n - 1) and not _on_axis(segs[i]) and not _on_axis(segs[j])]
+    dist = [float(shapely.distance(lines[i], lines[j])) for i, j in pairs]
+    poly = profile.polygon(tol)
+    for k in sorted(range(len(pairs)), key=lambda k: dist[k]):
+        (i, j), d = pairs[k], dist[k]
+        if d < 1e-9:
+            continue
+        (pz, pr), (qz, qr) = shapely.shortest_line(lines[i], lines[j]).coords
+        u = ((qz - pz) / d, (qr - pr) / d)
+        if not poly.contains(shapely.points((pz + qz) / 2, (pr + qr) / 2)):
+            continue
+        if _faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1])):
+            return d, (pz, pr), (qz, qr)
+    return None
+
+
+def _reentrant_by_definition(profile: Profile) -> tuple[Reentrant, ...]:
+    """Each sample point walked one by one: a straight ray out along +r and both ways along z, each blocked
+    when it crosses an edge of the flattened loop."""
+    segs = profile.segments
+    flat = profile.flatten(LOOP_CHECK_TOLERANCE)
+    edges = list(zip(flat, flat[1:] + flat[:1]))
+
+    def crossings(start: tuple[float, float], along: int) -> list[float]:
+        across = 1 - along
+        out = []
+        for a, b in edges:
+            if min(a[across], b[across]) <= start[across] < max(a[across], b[across]):
+                share = (start[across] - a[across]) / (b[across] - a[across])
+                out.append(a[along] + share * (b[along] - a[along]))
+        return out
+
+    hidden = []
+    for i, seg in enumerate(segs):
+        if _on_axis(seg):
+            continue
+        for t in (0.15, 0.5, 0.85):
+            p = _sample(seg, t)
+            n = _inward_normal(seg, p)
+            s = (p[0] - 0.05 * n[0], p[1] - 0.05 * n[1])
+            radial = any(h > s[1] for h in crossings(s, 1))
+            axial = crossings(s, 0)
+            if radial and any(h < s[0] for h in axial) and any(h > s[0] for h in axial):
+                hidden.append(i)
+    runs: list[list[int]] = []
+    for i in sorted(set(hidden)):
+        if runs and i == runs[-1][-1] + 1:
+            runs[-1].append(i)
+        else:
+            runs.append([i])
+    if len(runs) > 1 and runs[0][0] == 0 and runs[-1][-1] == len(segs) - 1:
+        runs[0] = runs.pop() + runs[0]
+    out = []
+    for run in runs:
+        pts = [q for i in run for q in (segs[i].start, segs[i].end, _sample(segs[i], 0.5))]
+        zs, rs = [q[0] for q in pts], [q[1] for q in pts]
+        tool = GROOVING_TOOL if (max(rs) - min(rs)) >= (max(zs) - min(zs)) else BACK_TURNING_TOOL
+        out.append(Reentrant(min(zs), max(zs), min(rs), max(rs), tool))
+    return tuple(out)
+
+
+def test_the_grids_reach_thin_walls_and_undercuts() -> None:
+    walls = [least_wall(p) for _, p in _loops()]
+    assert len(_loops()) > 50
+    assert min(w[0] for w in walls if w) < 0.5 < max(w[0] for w in walls if w)
+    assert any(reentrant_regions(p) for _, p in _loops())
+
+
+def test_least_wall_is_the_closest_facing_pair_of_all() -> None:
+    wrong = [name for name, p in _loops() if least_wall(p) != _least_wall_by_definition(p)]
+    assert not wrong
+
+
+def test_reentrant_regions_are_those_of_every_sample_walked() -> None:
+    wrong = [name for name, p in _loops() if reentrant_regions(p) != _reentrant_by_definition(p)]
+    assert not wrong
