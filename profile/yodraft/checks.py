@@ -3,7 +3,6 @@ from __future__ import annotations
 
 import functools
 import math
-from itertools import chain
 from collections.abc import Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
@@ -122,12 +121,10 @@ LOOP_CHECK_TOLERANCE = 0.02
 
 def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str]) -> list[Check]:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
-    import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    flat = profile.flatten(LOOP_CHECK_TOLERANCE)
-    ring = shapely.linearrings(np.fromiter(chain.from_iterable(flat), float, 2 * len(flat)).reshape(-1, 2))
+    ring = shapely.linearrings(profile.flat_array(LOOP_CHECK_TOLERANCE))
     simple = ring.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, r_min, z_max, r_max = profile.bounds()
     out = [
@@ -197,13 +194,15 @@ def _pairs(n: int) -> tuple["np.ndarray", "np.ndarray"]:
     return i[keep], j[keep]
 
 
-def _ends(segs: Sequence[Any]) -> tuple["np.ndarray", "np.ndarray", list[int]]:
-    """The surfaces' start and end points as (n, 2) arrays, and which of them are arcs."""
+def _ends(profile: "Profile") -> tuple["np.ndarray", "np.ndarray", list[int], "np.ndarray"]:
+    """The surfaces' start and end points as (n, 2) arrays, which of them are arcs, and which are
+    off the spin axis (what ``_on_axis`` leaves)."""
     import numpy as np  # imported where used: the quick commands never load it
-    starts = np.array([s.start for s in segs])
-    ends = np.array([s.end for s in segs])
-    arcs = [i for i, s in enumerate(segs) if hasattr(s, "center")]
-    return starts, ends, arcs
+    starts, ends = profile.end_points
+    arcs = [i for i, s in enumerate(profile.segments) if hasattr(s, "center")]
+    off_axis = (np.abs(starts[:, 1]) >= ON_AXIS) | (np.abs(ends[:, 1]) >= ON_AXIS)
+    off_axis[arcs] = True
+    return starts, ends, arcs, off_axis
 
 
 def _boxes(segs: Sequence[Any], starts: "np.ndarray", ends: "np.ndarray", arcs: Sequence[int]) -> "np.ndarray":
@@ -233,9 +232,7 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
     tol = LOOP_CHECK_TOLERANCE
-    starts, ends, arcs = _ends(segs)
-    keep = (np.abs(starts[:, 1]) >= ON_AXIS) | (np.abs(ends[:, 1]) >= ON_AXIS)  # what _on_axis leaves
-    keep[arcs] = True
+    starts, ends, arcs, keep = _ends(profile)
     i_all, j_all = _pairs(len(segs))
     use = keep[i_all] & keep[j_all]
     i_use, j_use = i_all[use], j_all[use]
@@ -350,9 +347,9 @@ def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
-    starts, ends, arcs = _ends(segs)
-    lines = [i for i in range(len(segs)) if not hasattr(segs[i], "center")
-             and (abs(segs[i].start[1]) >= ON_AXIS or abs(segs[i].end[1]) >= ON_AXIS)]  # what _on_axis leaves
+    starts, ends, arcs, off_axis = _ends(profile)
+    off_axis[arcs] = False
+    lines = np.flatnonzero(off_axis).tolist()
     if not lines and not arcs:
         return ()
     # on a line: the sample points along it, stepped off by the offset against its (one) inward normal
@@ -370,7 +367,7 @@ def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
             s_arcs.append((p[0] - _OFFSET * n[0], p[1] - _OFFSET * n[1]))
     s = np.concatenate((s_lines.reshape(-1, 2), np.array(s_arcs).reshape(-1, 2)))
     owners = [i for i in lines for _ in _SAMPLES] + [i for i in arcs for _ in _SAMPLES]
-    flat = np.asarray(profile.flatten(LOOP_CHECK_TOLERANCE))
+    flat = profile.flat_array(LOOP_CHECK_TOLERANCE)
     a, b = flat, np.concatenate((flat[1:], flat[:1]))
     m = len(s)
     blocked = np.ones(m, dtype=bool)

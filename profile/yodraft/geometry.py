@@ -12,8 +12,13 @@ from __future__ import annotations
 
 import functools
 import math
+from itertools import chain
 from dataclasses import dataclass, field
-from typing import NamedTuple, Union
+from typing import TYPE_CHECKING, NamedTuple, Union
+
+if TYPE_CHECKING:  # pragma: no cover
+    import numpy as np
+    import shapely
 
 
 __all__ = ["Point", "Line", "Arc", "Segment", "Profile", "FilletVertex", "fillet_loop", "arc_through", "GeometryError"]
@@ -159,11 +164,34 @@ class Profile:
                 out.extend(seg.flattened(tol))
         return out
 
+    def flat_array(self, tol: float = 0.01) -> "np.ndarray":
+        """``flatten(tol)`` as a read-only (n, 2) array, kept for the last ``tol`` asked (the loop checks
+        ask three times about the same loop)."""
+        kept = self.__dict__.get("_flat_array")
+        if kept is not None and kept[0] == tol:
+            return kept[1]
+        import numpy as np  # imported where used: the quick commands never load it
+        points = self.flatten(tol)
+        flat = np.fromiter(chain.from_iterable(points), float, 2 * len(points)).reshape(-1, 2)
+        flat.flags.writeable = False
+        self.__dict__["_flat_array"] = (tol, flat)  # a cache, not a field: equality and hashing ignore it
+        return flat
+
+    @functools.cached_property
+    def end_points(self) -> tuple["np.ndarray", "np.ndarray"]:
+        """Every segment's start and end point as two read-only (n, 2) arrays, in loop order."""
+        import numpy as np  # imported where used: the quick commands never load it
+        n = len(self.segments)
+        starts = np.fromiter(chain.from_iterable(s.start for s in self.segments), float, 2 * n).reshape(-1, 2)
+        # an arc's end may stray a rounding from the next segment's start
+        ends = np.fromiter(chain.from_iterable(s.end for s in self.segments), float, 2 * n).reshape(-1, 2)
+        starts.flags.writeable = ends.flags.writeable = False
+        return starts, ends
+
     def polygon(self, tol: float = 0.005) -> "shapely.Polygon":
         """A shapely polygon of the flattened loop."""
-        import numpy as np  # imported where used: the quick commands never load it
         import shapely  # imported where used: the quick commands never load it
-        return shapely.polygons(np.asarray(self.flatten(tol)))
+        return shapely.polygons(self.flat_array(tol))
 
     def signed_area(self) -> float:
         """Exact signed area (positive for a counter-clockwise loop), by Green's theorem."""
