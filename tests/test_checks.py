@@ -24,10 +24,10 @@ from yodraft.geometry import Profile
 DESIGNS = sorted(TEMPLATES.glob("*.toml")) + sorted((ROOT / "tests" / "corpus" / "valid").glob("*.toml"))
 #: (design, key, values): grids that reach thin walls, crossing loops and deep undercuts
 GRIDS = [
-    ("string-trick.toml", "features.rim.width", np.linspace(2.0, 12.0, 9)),
+    ("string-trick.toml", "features.rim.band_width", np.linspace(2.0, 12.0, 9)),
     ("string-trick.toml", "features.rim.thickness", np.linspace(0.8, 6.0, 9)),
     ("string-trick.toml", "features.bearing_seat.spacing", np.linspace(0.5, 8.0, 7)),
-    ("undercut-rim.toml", "features.rim.width", np.linspace(3.0, 12.0, 7)),
+    ("undercut-rim.toml", "features.rim.band_width", np.linspace(3.0, 12.0, 7)),
     ("arc-organic.toml", "features.rim.thickness", np.linspace(0.8, 6.0, 7)),
     ("sketched.toml", "features.bearing_seat.spacing", np.linspace(0.5, 6.0, 7)),
     ("bimetal-ring.toml", "features.rim.thickness", np.linspace(1.0, 8.0, 7)),
