@@ -222,11 +222,17 @@ def test_two_builds_give_identical_bytes(resolved, files):
 
 
 # ------------------------------------------------------------------ the sheet as ezdxf sees it
+def _detail_insert(doc):  # type: ignore[no-untyped-def]
+    """The one enlarged detail on the sheet: the block inserted in paper space (the half's seat, the ring's section)."""
+    (ins,) = doc.paperspace("sheet").query("INSERT")
+    assert ins.dxf.name in ("seat-detail", "ring-detail")
+    return ins
+
+
 def _scales(doc) -> tuple[float, float]:  # type: ignore[no-untyped-def]
     psp = doc.paperspace("sheet")
     (vp,) = [v for v in psp.query("VIEWPORT") if v.dxf.id != 1]
-    (ins,) = psp.query("INSERT[name=='seat-detail']")
-    return vp.dxf.height / vp.dxf.view_height, ins.dxf.xscale
+    return vp.dxf.height / vp.dxf.view_height, _detail_insert(doc).dxf.xscale
 
 
 def _views(doc):  # type: ignore[no-untyped-def]
@@ -236,9 +242,9 @@ def _views(doc):  # type: ignore[no-untyped-def]
     s = vp.dxf.height / vp.dxf.view_height
     c, mc = vp.dxf.center, vp.dxf.view_center_point
     to_paper = Matrix44.scale(s) @ Matrix44.translate(c.x - mc.x * s, c.y - mc.y * s, 0)
-    (ins,) = psp.query("INSERT[name=='seat-detail']")
+    ins = _detail_insert(doc)
     return [(list(psp.query("*")), Matrix44()), (list(doc.modelspace()), to_paper),
-            (list(doc.blocks.get("seat-detail")), ins.matrix44())]
+            (list(doc.blocks.get(ins.dxf.name)), ins.matrix44())]
 
 
 def _expand(entities, m):  # type: ignore[no-untyped-def]

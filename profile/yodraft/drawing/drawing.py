@@ -31,7 +31,8 @@ def compose_sheet(resolved: Resolved, data: SheetData | None = None) -> Sheet:
 
 def render_files(resolved: Resolved, stem: str, data: SheetData | None = None) -> dict[str, bytes]:
     """``{file name: bytes}`` for ``<stem>.dxf``, ``<stem>-profile.dxf``, ``<stem>.svg`` and ``<stem>.pdf``; and
-    for a half with a ring, ``<stem>-ring.dxf`` (its own sheet), ``<stem>-ring-profile.dxf`` and ``<stem>-ring.svg``."""
+    for a half with a ring, ``<stem>-ring.dxf`` (its own sheet), ``<stem>-ring-profile.dxf``, ``<stem>-ring.svg``
+    and ``<stem>-ring.pdf``."""
     data = data or sheet_data(resolved)
     sheet = compose_sheet(resolved, data)
     d = resolved.design["design"]
@@ -49,4 +50,6 @@ def render_files(resolved: Resolved, stem: str, data: SheetData | None = None) -
         files[f"{stem}-{part.name}.dxf"] = dxf_bytes(sheet_document(ring_sheet, resolved))
         files[f"{stem}-{part.name}-profile.dxf"] = dxf_bytes(part_profile_document(resolved, part.name))
         files[f"{stem}-{part.name}.svg"] = sheet_svg(ring_sheet)
+        files[f"{stem}-{part.name}.pdf"] = sheet_pdf(ring_sheet, title=f"{d['title'] or resolved.design.name}: {part.name}",
+                                                     author=d["owner"], date=d["date"])
     return files

@@ -163,8 +163,9 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
     doc.header["$PSLTSCALE"] = 1  # line type patterns in paper millimetres in every viewport
     msp = doc.modelspace()
     main = sheet.view("main")
-    detail = next((v for v in sheet.views if v.name == "detail"), None)  # a ring's sheet has no detail
-    block = doc.blocks.new(DETAIL_BLOCK) if detail is not None else None
+    detail = next((v for v in sheet.views if v.name == "detail"), None)
+    block_name = sheet.notes.get("detail_block", DETAIL_BLOCK)  # the ring's sheet names its own
+    block = doc.blocks.new(block_name) if detail is not None else None
     # the one paper layout: ezdxf's default "Layout1" renamed, set up as the sheet
     psp = doc.layouts.get("Layout1")
     doc.layouts.rename("Layout1", LAYOUT_NAME)
@@ -189,7 +190,7 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
                           view_height=(y1 - y0) / main.scale, dxfattribs={"layer": "viewport"})
     vp.dxf.flags = vp.dxf.flags | 16384  # locked display
     if detail is not None:
-        psp.add_blockref(DETAIL_BLOCK, detail.origin, dxfattribs={"xscale": detail.scale, "yscale": detail.scale,
+        psp.add_blockref(block_name, detail.origin, dxfattribs={"xscale": detail.scale, "yscale": detail.scale,
                                                                    "layer": "detail"})
     _extents(doc, sheet)
     return doc

@@ -89,6 +89,11 @@ def fit_lines(resolved: Resolved) -> list[str]:
     out.append(f"Gap {size_text(v['bearing_seat.gap'])} ±{size_text(v['bearing_seat.gap_tolerance'])} from the halves; "
                f"with bearing width {size_text(gap.worst_min_mm)}…{size_text(gap.worst_max_mm)} "
                f"(RSS {size_text(gap.rss_min_mm)}…{size_text(gap.rss_max_mm)})")
+    ring = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
+    if ring is not None and len(resolved.parts) > 1:
+        lo, hi = ring.interference_um
+        out.append(f"Ring: see ring sheet; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
+                   f"{ring.heated_or_cooled()} by ΔT {ring.assembly_delta_t_k:.0f} K")
     return out
 
 

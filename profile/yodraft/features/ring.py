@@ -24,7 +24,7 @@ from ..errors import DesignInputError
 from ..params import ParamSpec, check_name
 from ..pressfit import (REFERENCE_TEMPERATURE_C, FitStresses, Member, assembly_delta_t_k, contact_pressure,
                         fit_stresses, holding_force_n, holding_torque_n_mm, thermal_change_mm)
-from ..tolerances.iso286 import Fit, FitCodeError, parse_fit
+from ..tolerances.iso286 import Fit, FitCodeError, Limits, hole_basis_split, parse_fit
 from .base import Context, FeatureResult, PartOutline, SeatCut, V, pick
 
 NAME = "ring"
@@ -81,6 +81,7 @@ class RingFit:
     body_material: Material
     fit: Fit | None
     fit_text: str
+    limits: Fit
     interface_mm: float
     ring_diameters_mm: tuple[float, float]
     body_diameters_mm: tuple[float, float]
@@ -110,6 +111,16 @@ class RingFit:
     @property
     def safety_factor(self) -> float:
         return min(self.safety_factor_body, self.safety_factor_ring)
+
+    @property
+    def seat_limits(self) -> Limits:
+        """Deviations (µm) of the body's fit surface from the interface diameter, as turned."""
+        return self.limits.hole if self.ring_is_inner else self.limits.shaft  # type: ignore[return-value]
+
+    @property
+    def ring_limits(self) -> Limits:
+        """Deviations (µm) of the ring's fit surface from the interface diameter, as turned."""
+        return self.limits.shaft if self.ring_is_inner else self.limits.hole  # type: ignore[return-value]
 
     def heated_or_cooled(self) -> str:
         """Which part is heated or cooled to assemble."""
@@ -213,12 +224,13 @@ def _press_fit(ctx: Context, p: Mapping[str, Any], seat: str, material: Material
                ring_is_inner: bool) -> tuple[RingFit, list[Check]]:
     shop = ctx.shop
     if p["interference_min"] is not None and p["interference_max"] is not None:
+        # the explicit limits become the two parts' deviations on the hole basis, so the sheets carry them
         fit, fit_text = None, "explicit"
-        lo_um, hi_um = 1000 * p["interference_min"], 1000 * p["interference_max"]
+        limits = hole_basis_split(d, 1000 * p["interference_min"], 1000 * p["interference_max"])
     else:
-        fit = parse_fit(f"{d:.6g} {p['fit']}")
+        fit = limits = parse_fit(f"{d:.6g} {p['fit']}")
         fit_text = fit.code
-        lo_um, hi_um = -fit.clearance_max_um, -fit.clearance_min_um
+    lo_um, hi_um = -limits.clearance_max_um, -limits.clearance_min_um  # type: ignore[operator]
     # a coating on either face of the fit stands proud of the turned size and adds to the interference
     growth = 0.0
     if shop["coating"] != "none" and not p["mask_seat"]:
@@ -245,7 +257,7 @@ def _press_fit(ctx: Context, p: Mapping[str, Any], seat: str, material: Material
     heated = outer if p["assembly"] == "heat" else inner
     delta_t = assembly_delta_t_k(max(hi_um, 0.0) / 1000, p["assembly_clearance"], d, heated)
     result = RingFit(
-        seat=seat, material=material, body_material=body, fit=fit, fit_text=fit_text, interface_mm=d,
+        seat=seat, material=material, body_material=body, fit=fit, fit_text=fit_text, limits=limits, interface_mm=d,
         ring_diameters_mm=ring_d, body_diameters_mm=body_d, ring_is_inner=ring_is_inner, length_mm=p["width"],
         interference_um=(lo_um, hi_um), coating_growth_um=1000 * growth,
         interference_hot_um=(lo_um + hot, hi_um + hot), interference_cold_um=(lo_um + cold, hi_um + cold),
@@ -295,6 +307,8 @@ def ring_summary(fit: RingFit) -> dict[str, Any]:
         "seat": fit.seat, "material": fit.material.name, "fit": fit.fit_text,
         "interface_diameter_mm": fit.interface_mm, "ring_diameters_mm": list(fit.ring_diameters_mm),
         "body_diameters_mm": list(fit.body_diameters_mm), "length_mm": fit.length_mm,
+        "seat_deviation_um": [fit.seat_limits.upper_um, fit.seat_limits.lower_um],
+        "ring_deviation_um": [fit.ring_limits.upper_um, fit.ring_limits.lower_um],
         "interference_um": list(fit.interference_um), "coating_growth_um": fit.coating_growth_um,
         "interference_hot_um": list(fit.interference_hot_um), "interference_cold_um": list(fit.interference_cold_um),
         "hot_c": fit.hot_c, "cold_c": fit.cold_c,

@@ -25,6 +25,7 @@ Limits(upper_um=-4.0, lower_um=-12.0)
 """
 from __future__ import annotations
 
+import math
 import re
 from dataclasses import dataclass
 
@@ -44,6 +45,7 @@ __all__ = [
     "parse_fit",
     "fit_summary",
     "fit_kind",
+    "hole_basis_split",
 ]
 
 #: size steps (over, up to and including), mm  # ISO 286-1, Table 1
@@ -337,6 +339,30 @@ def parse_fit(code: str) -> Fit:
         cmin = _round(hole.lower_um - shaft.upper_um)
         cmax = _round(hole.upper_um - shaft.lower_um)
     return Fit(size, hole, shaft, hole_code, shaft_code, cmin, cmax)
+
+
+def hole_basis_split(size_mm: float, least_um: float, greatest_um: float) -> Fit:
+    """An interference given by its limits (least and greatest diametral interference, µm) as the two
+    parts' limit deviations, to whole µm, on the hole-basis system (ISO 286-1: the hole's lower
+    deviation is zero). The hole takes the larger share of the band, IT7 : IT6 at the size (ISO 286-1,
+    Table 1), as in the preferred fit H7/s6 where the hole is a grade coarser than the shaft (a bore is
+    the harder size to hold); the shaft takes the rest, so hole and shaft together give exactly the
+    interference limits (rounded inward to the µm when they are not whole µm). No class code: the
+    deviations are the design's own.
+
+    >>> f = hole_basis_split(52.0, 50.0, 80.0)
+    >>> f.hole, f.shaft, (f.clearance_min_um, f.clearance_max_um)
+    (Limits(upper_um=18.0, lower_um=0.0), Limits(upper_um=80.0, lower_um=68.0), (-80.0, -50.0))
+    """
+    lo, hi = math.ceil(least_um - 1e-6), math.floor(greatest_um + 1e-6)
+    band = max(0, hi - lo)
+    step = min(size_mm, MAX_SIZE_MM)
+    share = it_um(7, step) / (it_um(6, step) + it_um(7, step))
+    hole_band = math.floor(band * share + 1e-9)
+    hole = Limits(float(hole_band), 0.0)
+    shaft = Limits(float(max(hi, lo)), float(lo + hole_band))
+    return Fit(size_mm, hole, shaft, None, None, _round(hole.lower_um - shaft.upper_um),
+               _round(hole.upper_um - shaft.lower_um))
 
 
 def fit_kind(fit: Fit) -> str | None:
