@@ -1,5 +1,6 @@
 """The sheet a turner reads without a call: every corner of the half located by a dimension chain from datum
-face B or the axis, no closed chain, a tolerance on every dimension that sets the gap.
+face B or the axis, no closed chain, a tolerance on every dimension that sets the gap; and the same for a
+ring's own sheet, its corners located from its outer face (flush with face B) and the axis.
 
 This test reads the built DXF with ezdxf alone: the half's corners come from the outline polyline in model space
 (fillets tangent to two lines stand for the sharp corner their lines meet at, the point ISO 129-1 dimensions
@@ -14,7 +15,7 @@ Rules checked (ISO 129-1 dimensioning; common practice for turned parts, no publ
   because the corners it would locate stay undetermined);
 - every arc of the outline has its radius dimensioned (or shares a dimension marked "n×"), or the sheet carries
   an "unspecified radii" note;
-- every dimension tagged with a key that sets the gap carries its own tolerance;
+- every dimension tagged with a key that sets the gap, and the ring's fit diameter, carries its own tolerance;
 - no outline runs along the axis (the half and its mirror draw one section, not two outlines on the axis).
 """
 from __future__ import annotations
@@ -34,6 +35,8 @@ VALID = ROOT / "tests" / "corpus" / "valid"
 DESIGNS = sorted(TEMPLATES.glob("*.toml")) + sorted(VALID.glob("*.toml"))
 #: keys whose dimensions set the gap between the two bearing walls (the axial stack)
 GAP_KEYS = ("bearing_seat.wall_offset", "bearing_seat.post_length")
+#: keys whose dimensions carry their own tolerance: the gap's stack and the ring's press fit (on both sheets)
+TOLERANCED_KEYS = GAP_KEYS + ("ring.diameter",)
 APPID = "YODRAFT"
 
 
@@ -258,7 +261,7 @@ def analyse(sheet: dict) -> dict:
         keys = _tags(dim)
         text = _text(dim)
         auxiliary = text.strip().startswith("(")
-        if any(k in GAP_KEYS for k in keys) and not re.search(r"±|[+-]\d*\.?\d+\s*/\s*[+-]?\d", text):
+        if any(k in TOLERANCED_KEYS for k in keys) and not re.search(r"±|[+-]\d*\.?\d+\s*/\s*[+-]?\d", text):
             untoleranced.append(",".join(keys))
         kind = dim.dimtype & 7
         if kind == 4:  # radius: centre and a point on the arc
@@ -372,3 +375,47 @@ def test_every_radius_is_given(sheets: dict[str, dict], name: str) -> None:
 @pytest.mark.parametrize("name", [d.name for d in DESIGNS])
 def test_no_outline_on_the_axis(sheets: dict[str, dict], name: str) -> None:
     assert sheets[name]["on_axis"] == []
+
+
+# ----------------------------------------------------------------------------- the ring's own sheet
+
+def _ring_designs() -> list[tuple[str, str]]:
+    """(name, design text) of every design with a ring, and the bimetal template on each of the three seats."""
+    out = [(d.name, d.read_text(encoding="utf-8")) for d in DESIGNS
+           if "[features.ring]" in d.read_text(encoding="utf-8") and 'seat = "none"' not in d.read_text(encoding="utf-8")]
+    base = (TEMPLATES / "bimetal-ring.toml").read_text(encoding="utf-8")
+    for seat in ("outer diameter", "face"):
+        out.append((f"bimetal-ring on the {seat}",
+                    base.replace('seat = "cup wall"', f'seat = "{seat}"\nhold_force = "100 N"')))
+    return out
+
+
+RING_DESIGNS = _ring_designs()
+
+
+@pytest.fixture(scope="module")
+def ring_sheets(tmp_path_factory: pytest.TempPathFactory) -> dict[str, dict]:
+    out: dict[str, dict] = {}
+    for name, text in RING_DESIGNS:
+        folder = tmp_path_factory.mktemp("ring")
+        design = folder / "design.toml"
+        design.write_text(text, encoding="utf-8")
+        assert main(["build", str(design), "-o", str(folder / "out")]) == 0, name
+        (dxf,) = (folder / "out").glob("*-ring.dxf")
+        out[name] = analyse(read_sheet(dxf))
+    return out
+
+
+def test_the_ring_designs_are_found() -> None:
+    assert "bimetal-ring.toml" in [n for n, _ in RING_DESIGNS] and len(RING_DESIGNS) >= 3
+
+
+@pytest.mark.parametrize("name", [n for n, _ in RING_DESIGNS])
+def test_ring_sheet_chain(ring_sheets: dict[str, dict], name: str) -> None:
+    found = ring_sheets[name]
+    assert len(found["corners"]) == 4  # the ring's section: two faces, two cylinders
+    assert found["undetermined"] == [], f"{name}: ring corners with no chain to its outer face and the axis"
+    assert found["closed"] == [], f"{name}: dimensions that close a loop"
+    assert found["untoleranced"] == [], f"{name}: the fit diameter without its limits"
+    assert found["unsized"] == [], f"{name}: an edge radius neither dimensioned nor in a note"
+    assert found["on_axis"] == []

@@ -101,6 +101,10 @@ def test_sheet_recovers_without_audit_errors(files):
 
 def test_one_paper_layout_finite_extents_and_zoom_variables(files):
     doc, _ = _read(files[f"{STEM}.dxf"])
+    _one_layout_finite_extents(doc)
+
+
+def _one_layout_finite_extents(doc) -> None:  # type: ignore[no-untyped-def]
     assert doc.layouts.names() == ["Model", "sheet"]  # no empty "Layout1"
     for var in ("$EXTMIN", "$EXTMAX", "$PEXTMIN", "$PEXTMAX"):
         assert all(math.isfinite(c) and abs(c) < 1e6 for c in doc.header[var]), var
@@ -357,6 +361,40 @@ def test_no_text_collides_on_any_template(path):
     files = render_files(build(load(path)), "x")
     _check_sheet(files["x.dxf"])
     assert len(ezdxf.read(io.StringIO(files["x.dxf"].decode())).paperspace("sheet").query("TEXT")) > 50
+    if "x-ring.dxf" in files:  # a ring's own sheet passes the same tests
+        _check_sheet(files["x-ring.dxf"])
+
+
+RING = ROOT / "templates" / "bimetal-ring.toml"
+
+
+@pytest.mark.parametrize("seat", ["cup wall", "outer diameter", "face"])
+def test_ring_sheet_is_clean_for_every_seat(seat, tmp_path):
+    """The ring's sheet on each seat: audit-clean, one layout with finite extents, no text collision, ISO
+    5455 scales, its dimensions real DIMENSION entities measuring the ring's drawn outline."""
+    text = RING.read_text(encoding="utf-8").replace('seat = "cup wall"', f'seat = "{seat}"\nhold_force = "100 N"')
+    path = tmp_path / "ring.toml"
+    path.write_text(text, encoding="utf-8")
+    resolved = build(load(path))
+    assert resolved.ok, resolved.failed
+    files = render_files(resolved, "x")
+    _check_sheet(files["x-ring.dxf"])
+    _check_sheet(files["x.dxf"])
+    doc, _ = _read(files["x-ring.dxf"])
+    _one_layout_finite_extents(doc)
+    ring = resolved.parts[1].profile
+    z0, r0, z1, r1 = ring.bounds()
+    measured = {}
+    for layout in (doc.modelspace(), doc.blocks.get("ring-detail")):
+        for dim in layout.query("DIMENSION"):
+            for key in _tags(dim):
+                measured[key] = dim.dxf.actual_measurement
+    assert measured["ring.width"] == pytest.approx(z1 - z0, abs=1e-9)
+    assert measured["ring.thickness"] == pytest.approx(r1 - r0, abs=1e-9)
+    assert measured["ring.diameter"] == pytest.approx(resolved["ring.diameter"], abs=1e-9)
+    assert ({"ring.ring_inner_diameter", "ring.ring_outer_diameter"} & set(measured))
+    if resolved["ring.edge_radius"] > 0:
+        assert measured["ring.edge_radius"] == pytest.approx(resolved["ring.edge_radius"], abs=1e-9)
 
 
 @pytest.mark.parametrize("case", sorted(EDGES), ids=str)

@@ -14,6 +14,7 @@ from yodraft.tolerances.iso286 import (
     Limits,
     delta_um,
     fit_summary,
+    hole_basis_split,
     hole_limits,
     it_um,
     parse_fit,
@@ -274,3 +275,32 @@ def test_limits_are_frozen_and_validated() -> None:
 def test_k_and_m_above_it8(code: str, upper: float, lower: float) -> None:
     fit = parse_fit(code)
     assert (fit.hole.upper_um, fit.hole.lower_um) == (upper, lower)
+
+
+# --- explicit interference limits on the hole basis -------------------------------------------
+
+@pytest.mark.parametrize(
+    ("size", "least", "greatest", "hole", "shaft"),
+    [
+        # 50–80 mm step: IT6 = 19, IT7 = 30 µm (ISO 286-1 Table 1); 30 µm band × 30/49 = 18.4 → 18
+        (52.0, 50.0, 80.0, Limits(18.0, 0.0), Limits(80.0, 68.0)),
+        # 18–30 mm step: IT6 = 13, IT7 = 21 µm (ISO 286-1 Table 1); 40 µm band × 21/34 = 24.7 → 24
+        (20.0, 20.0, 60.0, Limits(24.0, 0.0), Limits(60.0, 44.0)),
+        # limits off the µm are rounded inward: 51…79, a 28 µm band at 52 mm × 30/49 = 17.1 → 17
+        (52.0, 50.4, 79.6, Limits(17.0, 0.0), Limits(79.0, 68.0)),
+    ],
+)
+def test_hole_basis_split(size: float, least: float, greatest: float, hole: Limits, shaft: Limits) -> None:
+    f = hole_basis_split(size, least, greatest)
+    assert f.hole == hole and f.shaft == shaft
+    assert f.hole.lower_um == 0.0  # hole-basis fit system (ISO 286-1): the hole's lower deviation is zero
+    # interference = shaft − hole: least at the smallest shaft in the largest hole, greatest the other way
+    assert -f.clearance_max_um == shaft.lower_um - hole.upper_um and -f.clearance_min_um == shaft.upper_um
+    assert f.hole.band_um >= f.shaft.band_um  # the bore is the coarser part, as in H7/s6
+
+
+@given(st.floats(1.0, 120.0), st.integers(0, 200), st.integers(0, 200))
+def test_hole_basis_split_keeps_the_limits(size: float, a: int, b: int) -> None:
+    lo, hi = min(a, b), max(a, b)
+    f = hole_basis_split(size, float(lo), float(hi))
+    assert (-f.clearance_max_um, -f.clearance_min_um) == (lo, hi)  # whole µm limits come back exactly

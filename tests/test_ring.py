@@ -3,6 +3,7 @@ from __future__ import annotations
 
 import io
 import math
+import re
 
 import ezdxf
 import numpy as np
@@ -194,3 +195,104 @@ def test_unknown_ring_material_names_its_key() -> None:
     with pytest.raises(DesignInputError) as err:
         yodraft.loads(_with(BIMETAL, material="C3600"), "t.toml")
     assert err.value.key == "features.ring.material"
+
+
+# ---------------------------------------------------------------- the two sheets, read back with ezdxf alone
+
+_LIMITS = re.compile(r"Ø(\d+(?:\.\d+)?)\s+(?:[a-zA-Z]+\d+\s+\()?([+-]\d\.\d{3}|0)/([+-]\d\.\d{3}|0)")
+
+
+def _fit_limits(data: bytes) -> tuple[float, float, float]:
+    """(size, upper, lower deviation) in mm of the one dimension tagged ``ring.diameter`` in a sheet's DXF."""
+    doc = ezdxf.read(io.StringIO(data.decode("utf-8")))
+    layouts = [doc.modelspace()] + [b for b in doc.blocks if not b.name.startswith("*")]
+    found = []
+    for layout in layouts:
+        for dim in layout.query("DIMENSION"):
+            tags = [v for c, v in dim.get_xdata("YODRAFT") if c == 1000] if dim.has_xdata("YODRAFT") else []
+            if "ring.diameter" in tags:
+                text = " ".join(t.plain_text() for t in dim.get_geometry_block().query("TEXT"))
+                m = _LIMITS.search(text)
+                assert m, text
+                found.append(tuple(float(x) for x in m.groups()))
+    (one,) = found
+    return one  # type: ignore[return-value]
+
+
+def _interference_on_paper(files: dict[str, bytes]) -> tuple[float, float]:
+    """Least and greatest interference (µm) of the ring's size on its sheet over the seat's on the half's sheet."""
+    size, r_up, r_lo = _fit_limits(files["t-ring.dxf"])
+    size_b, s_up, s_lo = _fit_limits(files["t.dxf"])
+    assert size == size_b
+    return round((r_lo - s_up) * 1000, 6), round((r_up - s_lo) * 1000, 6)  # ring inside the seat's bore
+
+
+def test_the_two_sheets_give_the_interference_the_check_reports() -> None:
+    resolved = _build(BIMETAL)
+    files = render_files(resolved, "t")
+    g = yodraft.summary(resolved)["ring"]
+    # the explicit limits 0.050…0.080 split on the hole basis: the seat's bore takes IT7/(IT6 + IT7) of the
+    # 30 µm band at Ø52 (ISO 286-1 Table 1, 50–80 mm step: IT6 = 19, IT7 = 30): ⌊18.4⌋ = 18 µm
+    assert _fit_limits(files["t.dxf"]) == (52.0, 0.018, 0.0)
+    assert _fit_limits(files["t-ring.dxf"]) == (52.0, 0.080, 0.068)
+    assert _interference_on_paper(files) == pytest.approx(tuple(g["interference_um"])) == (50.0, 80.0)
+    assert g["seat_deviation_um"] == [18.0, 0.0] and g["ring_deviation_um"] == [80.0, 68.0]
+
+
+def test_iso_classes_on_the_two_sheets() -> None:
+    text = BIMETAL.replace('interference_min = "0.05 mm"\n', "").replace('interference_max = "0.08 mm"\n', "")
+    resolved = _build(_with(text, fit="H7/s6", diameter="50 mm"))
+    files = render_files(resolved, "t")
+    # ISO 286-2, 30–50 mm step: hole H7 +0.025/0, shaft s6 +0.059/+0.043
+    assert _fit_limits(files["t.dxf"]) == (50.0, 0.025, 0.0)
+    assert _fit_limits(files["t-ring.dxf"]) == (50.0, 0.059, 0.043)
+    doc = ezdxf.read(io.StringIO(files["t-ring.dxf"].decode("utf-8")))
+    assert any("s6 (+0.059/+0.043)" in t.dxf.text for b in doc.blocks for t in b.query("TEXT"))
+    assert _interference_on_paper(files) == pytest.approx(tuple(yodraft.summary(resolved)["ring"]["interference_um"]))
+
+
+def test_ring_on_the_outer_diameter_is_the_hole() -> None:
+    resolved = _build(_with(BIMETAL, seat="outer diameter", hold_force="100 N"))
+    files = render_files(resolved, "t")
+    # the ring's bore is the hole (hole basis, ISO 286-1): the ring takes the 18 µm band from zero, the
+    # body's step the shaft's +0.068…+0.080
+    assert _fit_limits(files["t-ring.dxf"]) == (52.0, 0.018, 0.0)
+    assert _fit_limits(files["t.dxf"]) == (52.0, 0.080, 0.068)
+
+
+def _sheet_words(data: bytes) -> str:
+    doc = ezdxf.read(io.StringIO(data.decode("utf-8")))
+    return " ".join(t.dxf.text for t in doc.paperspace("sheet").query("TEXT"))
+
+
+def test_ring_sheet_names_material_assembly_and_caution() -> None:
+    resolved = _build(BIMETAL)
+    files = render_files(resolved, "t")
+    words = _sheet_words(files["t-ring.dxf"])
+    g = yodraft.summary(resolved)["ring"]
+    assert "C36000 = CuZn36Pb3 (CW603N)" in words  # EN 12164 designation beside the trade name
+    assert f"heat the body by ΔT {g['assembly_delta_t_k']:.0f} K" in words
+    assert "qualified practice" in words and "press a trial ring first" in words
+    assert "interference 0.050…0.080 at 20 °C" in words
+    assert "Ring: see ring sheet; interference 0.050…0.080" in _sheet_words(files["t.dxf"])
+
+
+def test_ring_pdf_is_one_vector_page() -> None:
+    files = render_files(_build(BIMETAL), "t")
+    pdf = files["t-ring.pdf"]
+    assert pdf.startswith(b"%PDF-") and len(re.findall(rb"/Type /Page\b", pdf)) == 1
+    assert b"/FontFile2" in pdf and b"/Subtype /Image" not in pdf  # embedded TrueType (ISO 32000-1, 9.9)
+
+
+def test_check_text_shows_the_ring() -> None:
+    from yodraft.textout import check_text
+
+    resolved = _build(BIMETAL)
+    g = yodraft.summary(resolved)["ring"]
+    text = check_text(resolved)
+    assert "ring C36000 in the cup wall of the 6061-T6 body" in text
+    assert "ring +80/+68 µm, seat +18/0 µm" in text
+    assert "interference 50.0 to 80.0 µm at 20 °C" in text
+    assert f"safety factor {g['safety_factor']:.2f}" in text
+    assert f"heat the body by ΔT {g['assembly_delta_t_k']:.0f} K" in text
+    assert "safety factor" not in check_text(_build(_with(BIMETAL, seat="none")))

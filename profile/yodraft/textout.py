@@ -6,7 +6,7 @@ import math
 from .builder import Resolved
 from .units import MM_PER_INCH
 
-__all__ = ["check_text", "mass_lines", "failed_lines", "fit_text"]
+__all__ = ["check_text", "mass_lines", "failed_lines", "fit_text", "ring_lines"]
 
 
 def _fmt(key: str, value: object) -> str:
@@ -34,6 +34,28 @@ def mass_lines(resolved: Resolved) -> list[str]:
     return [f"mass: assembled {m.assembly.total_g:.2f} g{aim}, one half {m.half.mass_g:.2f} g; "
             f"Izz {m.assembly.izz_g_mm2:.0f} g·mm², Ixx {m.assembly.ixx_g_mm2:.0f} g·mm²; "
             f"rim share {m.spin.rim_share:.1%}", ""]
+
+
+def ring_lines(resolved: Resolved) -> list[str]:
+    """The press-fit ring's figures (when the half has one): the two fit sizes, interference over the service
+    temperatures, contact pressure, safety factor, hold and the assembly temperature difference."""
+    fit = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
+    if fit is None:
+        return []
+    def dev(lim) -> str:  # type: ignore[no-untyped-def]
+        return "/".join("0" if abs(x) < 1e-9 else f"{x:+g}" for x in (lim.upper_um, lim.lower_um)) + " µm"
+    lo, hi = fit.interference_um
+    sf = f"{fit.safety_factor:.2f}" if math.isfinite(fit.safety_factor) else "no stress"
+    return [f"ring {fit.material.name} in the {fit.seat} of the {fit.body_material.name} body, fit "
+            f"{fit.fit_text if fit.fit is not None else 'explicit limits'} at Ø{fit.interface_mm:.3f}: ring "
+            f"{dev(fit.ring_limits)}, seat {dev(fit.seat_limits)}",
+            f"  interference {lo:.1f} to {hi:.1f} µm at 20 °C, {fit.interference_hot_um[0]:.1f} to "
+            f"{fit.interference_hot_um[1]:.1f} µm at {fit.hot_c:g} °C, {fit.interference_cold_um[0]:.1f} to "
+            f"{fit.interference_cold_um[1]:.1f} µm at {fit.cold_c:g} °C; contact pressure "
+            f"{fit.contact_pressure_mpa[0]:.1f} to {fit.contact_pressure_mpa[1]:.1f} MPa",
+            f"  safety factor {sf} (yield over von Mises, Lamé); holds {fit.hold_force_n:.0f} N and "
+            f"{fit.hold_torque_n_mm / 1000:.2f} N·m; assembly: {fit.heated_or_cooled()} by ΔT "
+            f"{fit.assembly_delta_t_k:.0f} K"]
 
 
 def check_text(resolved: Resolved) -> str:
@@ -65,6 +87,7 @@ def check_text(resolved: Resolved) -> str:
         lines.append(f"seat face {v['axial.seat_depth']:.3f} ± {v['axial.seat_depth_tolerance']:.3f} mm below outer face B; "
                      f"assembled width {width.worst_min_mm:.3f} to {width.worst_max_mm:.3f} mm worst case, "
                      f"{width.rss_min_mm:.3f} to {width.rss_max_mm:.3f} mm RSS")
+    lines += ring_lines(resolved)
     lines.append("")
     lines += mass_lines(resolved)
     lines.append("resolved dimensions (* derived)")
