@@ -345,7 +345,6 @@ def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
     back-turning tool that reaches in behind the shoulder.
     """
     import numpy as np  # imported where used: the quick commands never load it
-    import shapely  # imported where used: the quick commands never load it
     segs = profile.segments
     starts, ends, arcs, off_axis = _ends(profile)
     off_axis[arcs] = False
@@ -369,22 +368,25 @@ def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
     owners = [i for i in lines for _ in _SAMPLES] + [i for i in arcs for _ in _SAMPLES]
     flat = profile.flat_array(LOOP_CHECK_TOLERANCE)
     a, b = flat, np.concatenate((flat[1:], flat[:1]))
-    m = len(s)
-    blocked = np.ones(m, dtype=bool)
-    # straight rays: out along +r, and along -z and +z; a ray is blocked when it crosses an edge of the loop
-    for along, across in ((1, 0), (0, 1)):
+    # straight rays: along -z and +z (toward either face), then out along +r; a ray is blocked when it
+    # crosses an edge of the loop. Few points are shut in axially, so only theirs are cast radially.
+    shut_in = np.arange(len(s))
+    for along, across in ((0, 1), (1, 0)):
+        q = s[shut_in]
         lo = np.minimum(a[:, across], b[:, across])
         hi = np.maximum(a[:, across], b[:, across])
-        at = s[:, across]
+        at = q[:, across]
         ray, edge = np.nonzero((lo <= at[:, None]) & (at[:, None] < hi))  # the edges each ray's line crosses
         share = (at[ray] - a[edge, across]) / (b[edge, across] - a[edge, across])
         hit = a[edge, along] + share * (b[edge, along] - a[edge, along])
-        start = s[ray, along]
-        if along == 1:  # radially outward
-            blocked &= np.bincount(ray[hit > start], minlength=m) > 0
-        else:  # axially, toward either face
-            blocked &= (np.bincount(ray[hit < start], minlength=m) > 0) & (np.bincount(ray[hit > start], minlength=m) > 0)
-    hidden = sorted({owners[k] for k in np.flatnonzero(blocked)})
+        start = q[ray, along]
+        beyond = np.bincount(ray[hit > start], minlength=len(q)) > 0
+        if along == 0:  # axially, toward either face
+            beyond &= np.bincount(ray[hit < start], minlength=len(q)) > 0
+        shut_in = shut_in[beyond]
+        if not len(shut_in):
+            return ()
+    hidden = sorted({owners[k] for k in shut_in.tolist()})
     if not hidden:
         return ()
     # consecutive hidden surfaces round the loop make one region
