@@ -239,9 +239,9 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     if not len(i_use):
         return None
     box = _boxes(segs, starts, ends, arcs)
-    gap_z = np.maximum(box[j_use, 0] - box[i_use, 2], box[i_use, 0] - box[j_use, 2])
-    gap_r = np.maximum(box[j_use, 1] - box[i_use, 3], box[i_use, 1] - box[j_use, 3])
-    floor = np.hypot(np.maximum(gap_z, 0.0), np.maximum(gap_r, 0.0)) - _BOX_SLACK  # no pair is closer
+    box_i, box_j = box[i_use], box[j_use]
+    gap = np.maximum(np.maximum(box_j[:, :2] - box_i[:, 2:], box_i[:, :2] - box_j[:, 2:]), 0.0)  # along z and r
+    floor = np.hypot(gap[:, 0], gap[:, 1]) - _BOX_SLACK  # no pair is closer
     by_floor = np.argsort(floor, kind="stable")
     lines: dict[int, Any] = {}
 

@@ -12,6 +12,7 @@ from __future__ import annotations
 
 import argparse
 import os
+import resource
 import sys
 import tempfile
 from pathlib import Path
@@ -27,12 +28,22 @@ VARY = ["--vary", "features.rim.band_width=6mm:10mm:40", "--vary", "features.rim
 VARY_LARGE = ["--vary", "features.rim.band_width=6mm:10mm:250", "--vary", "features.rim.thickness=2.5mm:5mm:400"]
 
 
+def _cpu_timed(argv: list[str], cpu: list[float]) -> float:
+    """``timed(argv)``, adding the CPU seconds the command's processes used (user and system) to ``cpu``."""
+    before = resource.getrusage(resource.RUSAGE_CHILDREN)
+    elapsed = timed(argv)
+    after = resource.getrusage(resource.RUSAGE_CHILDREN)
+    cpu.append(after.ru_utime - before.ru_utime + after.ru_stime - before.ru_stime)
+    return elapsed
+
+
 def _compare(label: str, vary: list[str], runs: int, jobs: list[str], target: float) -> None:
     """Time ``runs`` pairs of (check, sweep) and print the sweep's time per variant and its ratio to a check."""
     with tempfile.TemporaryDirectory() as tmp:
         csv = str(Path(tmp) / "sweep.csv")
-        pairs = [(timed(["check", str(DESIGN)]), timed(["sweep", str(DESIGN), *vary, "--csv", csv, *jobs]))
-                 for _ in range(runs)]
+        pairs, cpu = [], []
+        for _ in range(runs):
+            pairs.append((timed(["check", str(DESIGN)]), _cpu_timed(["sweep", str(DESIGN), *vary, "--csv", csv, *jobs], cpu)))
         with open(csv, encoding="utf-8") as rows_file:
             rows = sum(1 for _ in rows_file) - 1
     check = min(c for c, _ in pairs)
@@ -42,6 +53,8 @@ def _compare(label: str, vary: list[str], runs: int, jobs: list[str], target: fl
     print(f"  one check:               {check:.3f} s")
     print(f"  sweep of {rows} variants: {sweep:.3f} s ({(sweep - check) / rows * 1e6:.0f} µs per variant beyond "
           f"start-up, wall clock on {os.cpu_count()} cores)")
+    print(f"  CPU per variant:         {min(cpu) / rows * 1e6:.0f} µs (all processes, start-up included; load from others "
+          f"inflates it less than the wall clock)")
     print(f"  ratio sweep / check:     {sweep / check:.2f} (target <= {target:g})")
     print(f"  pair ratios:             median {pair_ratios[len(pair_ratios) // 2]:.2f}, "
           f"range {pair_ratios[0]:.2f}-{pair_ratios[-1]:.2f}")
