@@ -241,7 +241,7 @@ def _obstacles(items: list[Item], outline: list[Item]) -> Obstacles:
     for it in items:
         ob.add_item(it)
     for it in outline:
-        ob.outline.extend(segments_of(it))
+        ob.add_outline(segments_of(it))
     return ob
 
 

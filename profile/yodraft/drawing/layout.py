@@ -10,6 +10,7 @@ stand horizontal on a leader shoulder or beside the arc.
 """
 from __future__ import annotations
 
+import bisect
 import itertools
 import math
 from dataclasses import dataclass, field
@@ -77,17 +78,66 @@ def _cross(a, b, c, d) -> bool:  # type: ignore[no-untyped-def]
     return ((d1 > eps and d2 < -eps) or (d1 < -eps and d2 > eps)) and ((d3 > eps and d4 < -eps) or (d3 < -eps and d4 > eps))
 
 
+class _Parallels:
+    """Axis-parallel lines kept sorted by where they stand (x of a vertical line, y of a horizontal one), so
+    the lines near a new one are found by bisection instead of by walking them all. A line that is a point
+    stands in both lists (it pairs with a line of either way)."""
+
+    def __init__(self) -> None:
+        # per way: the sorted positions and, in the same order, (position, span low, span high)
+        self._at: dict[bool, list[float]] = {True: [], False: []}
+        self._lines: dict[bool, list[tuple[float, float, float]]] = {True: [], False: []}
+
+    def add(self, s: Seg) -> None:
+        (c, d) = s
+        if abs(c[0] - d[0]) < 1e-9:
+            self._insert(True, c[0], c[1], d[1])
+        if abs(c[1] - d[1]) < 1e-9:
+            self._insert(False, c[1], c[0], d[0])
+
+    def _insert(self, vertical: bool, at: float, s0: float, s1: float) -> None:
+        k = bisect.bisect_right(self._at[vertical], at)
+        self._at[vertical].insert(k, at)
+        self._lines[vertical].insert(k, (at, s0, s1) if s0 <= s1 else (at, s1, s0))
+
+    def close(self, a: tuple[float, float], b: tuple[float, float], above: float, below: float,
+              slack: float = 0.0) -> bool:
+        """Whether a line running the same way as ab (vertical when ab's ends share x, else horizontal when
+        they share y) stands more than ``above`` and less than ``below`` from it, the two spans along that
+        way overlapping (or within ``slack`` of each other)."""
+        if abs(a[0] - b[0]) < 1e-9:
+            vertical, at = True, a[0]
+            s0, s1 = (a[1], b[1]) if a[1] <= b[1] else (b[1], a[1])
+        elif abs(a[1] - b[1]) < 1e-9:
+            vertical, at = False, a[1]
+            s0, s1 = (a[0], b[0]) if a[0] <= b[0] else (b[0], a[0])
+        else:
+            return False
+        keys = self._at[vertical]
+        lines = self._lines[vertical]
+        margin = below + 1e-6  # wider than the test, so no line the exact test takes is missed
+        for k in range(bisect.bisect_left(keys, at - margin), bisect.bisect_right(keys, at + margin)):
+            c_at, lo, hi = lines[k]
+            gap = abs(at - c_at)
+            if above < gap < below and s0 < hi + slack and lo < s1 + slack:
+                return True
+        return False
+
+
 @dataclass
 class Obstacles:
-    """Lines and text boxes already on the sheet, in a coarse grid for quick look-ups."""
+    """Lines and text boxes already on the sheet, kept for quick look-ups: lines and texts in a coarse grid of
+    ``CELL`` mm squares, extension and dimension lines sorted by where they stand (``_Parallels``). Every
+    look-up first narrows the candidates, then runs the same exact test on each."""
 
     segs: list[Seg] = field(default_factory=list)
     grid: dict[tuple[int, int], list[int]] = field(default_factory=dict)
     boxes: list[Box] = field(default_factory=list)
-    outline: list[Seg] = field(default_factory=list)
-    ext: list[Seg] = field(default_factory=list)
-    dimlines: list[Seg] = field(default_factory=list)
+    outline: list[Seg] = field(default_factory=list)  # the section's outline: add with add_outline
+    outline_boxes: list[Box] = field(default_factory=list)  # each outline segment's extent
     box_grid: dict[tuple[int, int], list[int]] = field(default_factory=dict)
+    ext: _Parallels = field(default_factory=_Parallels)  # extension lines and leaders
+    dimlines: _Parallels = field(default_factory=_Parallels)
 
     def add_box(self, box: Box) -> None:
         i = len(self.boxes)
@@ -95,10 +145,19 @@ class Obstacles:
         for key in _cells(inflate(box, 0.3)):
             self.box_grid.setdefault(key, []).append(i)
 
-    def _near_boxes(self, box: Box) -> set[int]:
+    def _near_boxes(self, box: Box) -> Iterable[int]:
+        """Indexes of the text boxes that may touch ``box`` (every box within 0.3 mm of it among them)."""
+        x0, x1 = int(math.floor(box[0] / CELL)), int(math.floor(box[2] / CELL))
+        y0, y1 = int(math.floor(box[1] / CELL)), int(math.floor(box[3] / CELL))
+        if (x1 - x0 + 1) * (y1 - y0 + 1) > len(self.boxes):  # a long line: walking the boxes is quicker
+            return range(len(self.boxes))
+        grid = self.box_grid
         out: set[int] = set()
-        for key in _cells(box):
-            out.update(self.box_grid.get(key, ()))
+        for gx in range(x0, x1 + 1):
+            for gy in range(y0, y1 + 1):
+                found = grid.get((gx, gy))
+                if found:
+                    out.update(found)
         return out
 
     def add_segments(self, segs: Iterable[Seg]) -> None:
@@ -114,6 +173,14 @@ class Obstacles:
         self.add_segments(segments_of(item))
         for t in _texts(item):
             self.add_box(text_box(t))
+
+    def add_ext(self, segs: Iterable[Seg]) -> None:
+        for s in segs:
+            self.ext.add(s)
+
+    def add_dimlines(self, segs: Iterable[Seg]) -> None:
+        for s in segs:
+            self.dimlines.add(s)
 
     def line_hits(self, box: Box) -> bool:
         x0, y0, x1, y1 = box
@@ -133,16 +200,20 @@ class Obstacles:
 
     def text_hits(self, box: Box) -> bool:
         x0, y0, x1, y1 = box
-        for b in self.boxes:
+        boxes = self.boxes
+        for i in self._near_boxes(box):
+            b = boxes[i]
             if b[0] < x1 and x0 < b[2] and b[1] < y1 and y0 < b[3]:
                 return True
         return False
 
     def crosses_text(self, segs: Iterable[Seg]) -> bool:
+        boxes = self.boxes
         for a, b in segs:
             sx0, sx1 = (a[0], b[0]) if a[0] <= b[0] else (b[0], a[0])
             sy0, sy1 = (a[1], b[1]) if a[1] <= b[1] else (b[1], a[1])
-            for box in self.boxes:
+            for i in self._near_boxes((sx0, sy0, sx1, sy1)):
+                box = boxes[i]
                 if box[0] - 0.2 > sx1 or box[2] + 0.2 < sx0 or box[1] - 0.2 > sy1 or box[3] + 0.2 < sy0:
                     continue
                 if segment_hits_box(a, b, inflate(box, 0.2)):
@@ -151,41 +222,34 @@ class Obstacles:
 
     def dimline_too_close(self, segs: Iterable[Seg]) -> bool:
         """Whether a new dimension line runs on or beside another one (closer than a text's depth)."""
-        for (a, b) in segs:
-            for (c, d) in self.dimlines:
-                side = _parallel(a, b, c, d)
-                if side is not None:
-                    gap, lo, hi = side
-                    if gap < DIMLINE_GAP and lo[0] < hi[1] + 1.0 and hi[0] < lo[1] + 1.0:
-                        return True
+        segs = list(segs)
+        if any(self.dimlines.close(a, b, -1.0, DIMLINE_GAP, slack=1.0) for a, b in segs):
+            return True
         return self.ext_too_close(segs)
 
+    def add_outline(self, segs: Iterable[Seg]) -> None:
+        for c, d in segs:
+            self.outline.append((c, d))
+            self.outline_boxes.append((min(c[0], d[0]), min(c[1], d[1]), max(c[0], d[0]), max(c[1], d[1])))
+
     def crosses_outline(self, a, b) -> bool:  # type: ignore[no-untyped-def]
-        return any(_cross(a, b, c, d) for c, d in self.outline)
+        """Whether a–b crosses an outline segment at a point inside both (segments whose extents stand
+        apart are passed over: they cannot cross)."""
+        x0, x1 = (a[0], b[0]) if a[0] <= b[0] else (b[0], a[0])
+        y0, y1 = (a[1], b[1]) if a[1] <= b[1] else (b[1], a[1])
+        x0, y0, x1, y1 = x0 - 1e-6, y0 - 1e-6, x1 + 1e-6, y1 + 1e-6
+        for (c, d), box in zip(self.outline, self.outline_boxes):
+            if box[0] > x1 or box[2] < x0 or box[1] > y1 or box[3] < y0:
+                continue
+            if _cross(a, b, c, d):
+                return True
+        return False
 
     def ext_too_close(self, segs: Iterable[Seg]) -> bool:
         """Whether a new extension line runs parallel to an existing one closer than 0.7 mm (a line on the
         very same place, a shared extension line, is fine)."""
-        for (a, b) in segs:
-            for (c, d) in self.ext + self.dimlines:
-                side = _parallel(a, b, c, d)
-                if side is not None:
-                    gap, lo, hi = side
-                    if 1e-6 < gap < EXT_MIN_GAP and lo[0] < hi[1] and hi[0] < lo[1]:
-                        return True
-        return False
-
-
-def _parallel(a: tuple[float, float], b: tuple[float, float], c: tuple[float, float], d: tuple[float, float]) -> tuple[float, list[float], list[float]] | None:
-    """For two axis-parallel segments ab and cd running the same way: their distance apart and each one's
-    span along that way (sorted); None when they do not run the same way."""
-    if abs(a[0] - b[0]) < 1e-9:
-        if abs(c[0] - d[0]) < 1e-9:
-            return abs(a[0] - c[0]), sorted((a[1], b[1])), sorted((c[1], d[1]))
-        return None
-    if abs(a[1] - b[1]) < 1e-9 and abs(c[1] - d[1]) < 1e-9:
-        return abs(a[1] - c[1]), sorted((a[0], b[0])), sorted((c[0], d[0]))
-    return None
+        return any(self.ext.close(a, b, 1e-6, EXT_MIN_GAP) or self.dimlines.close(a, b, 1e-6, EXT_MIN_GAP)
+                   for a, b in segs)
 
 
 def _cells(box: Box) -> list[tuple[int, int]]:
@@ -270,17 +334,18 @@ class Placer:
         return w, h * (1 + self.font.descender) + (len(lines) - 1) * h * PITCH
 
     def _ok(self, texts: list[Text], lines: list[Seg], ext: list[Seg], along: list[Seg],
-            along_dim: list[Seg] = ()) -> bool:  # type: ignore[assignment]
+            along_dim: list[Seg] = (), cleared: bool = False) -> bool:  # type: ignore[assignment]
         """Texts clear of every line and text (and of their own dimension's lines); the new lines cross
-        no placed text; extension lines not too close; dimension lines do not cut the outline."""
+        no placed text; extension lines not too close; dimension lines do not cut the outline.
+        ``cleared``: ``_clear`` already passed these texts (nothing was placed since)."""
         ob = self.obstacles
         boxes = [inflate(text_box(t), CLEAR) for t in texts]
         for b in boxes:
-            if ob.line_hits(b) or ob.text_hits(b):
+            if not cleared and (ob.line_hits(b) or ob.text_hits(b)):
                 return False
             if any(segment_hits_box(a, c, b) for a, c in lines):
                 return False
-            if not self._inside(b):
+            if not cleared and not self._inside(b):
                 return False
         if ob.crosses_text(lines):
             return False
@@ -301,26 +366,28 @@ class Placer:
 
     def _commit(self, dim: Dimension, ext: list[Seg], dimline: list[Seg] = ()) -> Dimension:  # type: ignore[assignment]
         self.obstacles.add_item(dim)
-        self.obstacles.ext.extend(ext)
-        self.obstacles.dimlines.extend(dimline)
+        self.obstacles.add_ext(ext)
+        self.obstacles.add_dimlines(dimline)
         self.placed.append(dim)
         return dim
 
     # ---------------------------------------------------------------- linear and diameter
-    def _linear_candidates(self, req: DimensionRequest, fr: _Frame, p1, p2, c: float, half: bool,  # type: ignore[no-untyped-def]
-                           mode: int = 0):
-        """Every arrangement of a linear (or half-shown diameter) dimension with its line at v = c."""
-        lines_txt = self._lines(req)
-        w, depth = self._block(lines_txt)
-        (u1, v1), (u2, v2) = fr.uv(p1), fr.uv(p2)
-        layer, view = "dimension", self.view.name
+    @staticmethod
+    def _extension_lines(fr: _Frame, p1, p2, c: float, half: bool) -> list[Seg]:  # type: ignore[no-untyped-def]
+        """The extension lines of a linear dimension (or half-shown diameter) with its line at v = c."""
         ext: list[Seg] = []
-        for (u, v) in ((u1, v1), (u2, v2)) if not half else ((u2, v2),):
+        for (u, v) in (fr.uv(p1), fr.uv(p2)) if not half else (fr.uv(p2),):
             if abs(v - c) > 1e-9:
                 sign = 1.0 if c > v else -1.0
                 ext.append((fr.xy(u, v), fr.xy(u, c + sign * EXT_OVER)))
-        if self.obstacles.ext_too_close(ext) or self.obstacles.crosses_text(ext):
-            return  # the extension lines do not depend on where the text goes
+        return ext
+
+    def _linear_candidates(self, fr: _Frame, p1, p2, c: float, half: bool, mode: int,  # type: ignore[no-untyped-def]
+                           lines_txt: list[str], w: float, ext: list[Seg]):
+        """Every arrangement of a linear (or half-shown diameter) dimension with its line at v = c, its text
+        ``lines_txt`` ``w`` long and its extension lines ``ext`` (which do not depend on where the text goes)."""
+        (u1, v1), (u2, v2) = fr.uv(p1), fr.uv(p2)
+        layer, view = "dimension", self.view.name
         lo, hi = (u1, u2) if u1 <= u2 else (u2, u1)
         span = hi - lo
         inside = span >= 2 * ARROW + 1.0 or half
@@ -379,7 +446,6 @@ class Placer:
                 dline = (fr.xy(d_lo, c), fr.xy(d_hi, c))
                 lines = [dline] + ext
                 yield texts, lines, ext, arrows, dline
-        del depth
 
     def linear(self, req: DimensionRequest) -> Dimension | None:
         """A linear dimension or a half-shown diameter."""
@@ -388,19 +454,38 @@ class Placer:
         vertical = half or req.direction == "radial"
         fr = _Frame(vertical)
         lanes = list(self._lanes(req, vertical))
-        for mode, (c, lower) in itertools.product((0, 1, 2), lanes):
+        lines_txt = self._lines(req)
+        w, _ = self._block(lines_txt)
+        ob = self.obstacles
+        points = {}
+        for lower in (False, True):
             if half:
                 z, r = req.points[0]
                 sign = -1.0 if lower else 1.0
-                pts = [v.to_paper((z, 0.0)), v.to_paper((z, sign * abs(r)))]
+                points[lower] = [v.to_paper((z, 0.0)), v.to_paper((z, sign * abs(r)))]
             else:
-                pts = [v.to_paper((p[0], -p[1] if lower else p[1])) for p in req.points]
-            # a lane on or beside another dimension line is out whatever the text does: test that first
-            (u1, _), (u2, _) = fr.uv(pts[0]), fr.uv(pts[1])
-            if self.obstacles.dimline_too_close([(fr.xy(min(u1, u2), c), fr.xy(max(u1, u2), c))]):
+                points[lower] = [v.to_paper((p[0], -p[1] if lower else p[1])) for p in req.points]
+        # what a lane allows does not depend on the text's place or the mode (nothing is placed meanwhile):
+        # each lane is judged once, its extension lines kept, None when the lane is out
+        lane_ext: dict[tuple[float, bool], list[Seg] | None] = {}
+        for mode, (c, lower) in itertools.product((0, 1, 2), lanes):
+            pts = points[lower]
+            if (c, lower) not in lane_ext:
+                # a lane on or beside another dimension line is out whatever the text does; so is one whose
+                # extension lines stand too close to others or cross a text
+                (u1, _), (u2, _) = fr.uv(pts[0]), fr.uv(pts[1])
+                judged: list[Seg] | None = None
+                if not ob.dimline_too_close([(fr.xy(min(u1, u2), c), fr.xy(max(u1, u2), c))]):
+                    judged = self._extension_lines(fr, pts[0], pts[1], c, half)
+                    if ob.ext_too_close(judged) or ob.crosses_text(judged):
+                        judged = None
+                lane_ext[c, lower] = judged
+            lane = lane_ext[c, lower]
+            if lane is None:
                 continue
-            for texts, lines, ext, arrows, dline in self._linear_candidates(req, fr, pts[0], pts[1], c, half, mode):
-                if self._ok(texts, lines, [], [dline] if not half else [], [dline]):
+            for texts, lines, ext, arrows, dline in self._linear_candidates(fr, pts[0], pts[1], c, half, mode,
+                                                                            lines_txt, w, lane):
+                if self._ok(texts, lines, [], [dline] if not half else [], [dline], cleared=True):
                     strokes = [Stroke(s, "dimension", v.name) for s in lines]
                     text = " / ".join(t.text for t in texts)
                     dim = Dimension(req, tuple(strokes + arrows + texts), dline[0], texts[0].at, text, v.name,
