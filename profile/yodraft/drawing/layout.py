@@ -382,15 +382,14 @@ class Placer:
                 ext.append((fr.xy(u, v), fr.xy(u, c + sign * EXT_OVER)))
         return ext
 
-    def _linear_candidates(self, fr: _Frame, p1, p2, c: float, half: bool, mode: int,  # type: ignore[no-untyped-def]
-                           lines_txt: list[str], w: float, ext: list[Seg]):
-        """Every arrangement of a linear (or half-shown diameter) dimension with its line at v = c, its text
-        ``lines_txt`` ``w`` long and its extension lines ``ext`` (which do not depend on where the text goes)."""
-        (u1, v1), (u2, v2) = fr.uv(p1), fr.uv(p2)
-        layer, view = "dimension", self.view.name
+    @staticmethod
+    def _text_spots(fr: _Frame, p1, p2, half: bool, mode: int, w: float) -> list[float]:  # type: ignore[no-untyped-def]
+        """Where along the line (u of its left end) a text ``w`` long may start, in order of preference:
+        mode 0 between the arrows (a half-shown diameter: between the axis and its arrow), 1 beyond the
+        upper end, 2 beyond the lower end. The same in every lane."""
+        (u1, _), (u2, _) = fr.uv(p1), fr.uv(p2)
         lo, hi = (u1, u2) if u1 <= u2 else (u2, u1)
         span = hi - lo
-        inside = span >= 2 * ARROW + 1.0 or half
         base_u: list[float] = []
         room = span - (2 * ARROW + 2.0 if not half else ARROW + 2.0)
         mid = (lo + hi) / 2 - w / 2
@@ -417,35 +416,59 @@ class Placer:
                 base_u += [hi + ARROW + 1.5 + k for k in shifts]
             elif mode == 2:
                 base_u += [lo - ARROW - 1.5 - w - k for k in shifts]
-        for tu in base_u:
-            for v_base in ((c + GAP + self.font.descender * TEXT_HEIGHT,) if not half else
-                           (c + GAP + self.font.descender * TEXT_HEIGHT,)):
-                texts = self._text_items(lines_txt, fr, tu, v_base, view)
-                if not self._clear(texts):  # the cheap test first: most positions fail here
-                    continue
-                t_lo, t_hi = tu, tu + w
-                # the dimension line: between the extension lines, out to the text when it stands outside
-                if half:
-                    d_lo, d_hi = (u1 - 3.0, u2) if u1 < u2 else (u2, u1 + 3.0)
-                    d_lo, d_hi = min(d_lo, t_lo - 1.0), max(d_hi, t_hi + 1.0)
-                    arrows = [_arrow(fr.xy(u2, c), fr.xy(u2 + (-1 if u1 < u2 else 1), c), layer, view)]
-                elif inside and t_lo >= lo and t_hi <= hi:
-                    d_lo, d_hi = lo, hi
+        return base_u
+
+    def _linear_candidates(self, fr: _Frame, p1, p2, c: float, half: bool,  # type: ignore[no-untyped-def]
+                           lines_txt: list[str], w: float, ext: list[Seg], spots: list[float]):
+        """Every arrangement of a linear (or half-shown diameter) dimension with its line at v = c, its text
+        ``lines_txt`` ``w`` long starting at one of ``spots``, and its extension lines ``ext`` (which do not
+        depend on where the text goes), whose texts touch nothing on the sheet."""
+        (u1, v1), (u2, v2) = fr.uv(p1), fr.uv(p2)
+        layer, view = "dimension", self.view.name
+        lo, hi = (u1, u2) if u1 <= u2 else (u2, u1)
+        span = hi - lo
+        inside = span >= 2 * ARROW + 1.0 or half
+        v_base = c + GAP + self.font.descender * TEXT_HEIGHT
+        for tu in spots:
+            texts = self._text_items(lines_txt, fr, tu, v_base, view)
+            if not self._clear(texts):  # the cheap test first: most positions fail here
+                continue
+            t_lo, t_hi = tu, tu + w
+            # the dimension line: between the extension lines, out to the text when it stands outside
+            if half:
+                d_lo, d_hi = (u1 - 3.0, u2) if u1 < u2 else (u2, u1 + 3.0)
+                d_lo, d_hi = min(d_lo, t_lo - 1.0), max(d_hi, t_hi + 1.0)
+                arrows = [_arrow(fr.xy(u2, c), fr.xy(u2 + (-1 if u1 < u2 else 1), c), layer, view)]
+            elif inside and t_lo >= lo and t_hi <= hi:
+                d_lo, d_hi = lo, hi
+                arrows = [_arrow(fr.xy(lo, c), fr.xy(hi, c), layer, view),
+                          _arrow(fr.xy(hi, c), fr.xy(lo, c), layer, view)]
+            else:
+                # arrows from outside pointing in, the line carried out to the text
+                d_lo = min(lo - ARROW - 2.0, t_lo - 1.0)
+                d_hi = max(hi + ARROW + 2.0, t_hi + 1.0)
+                if inside:
                     arrows = [_arrow(fr.xy(lo, c), fr.xy(hi, c), layer, view),
                               _arrow(fr.xy(hi, c), fr.xy(lo, c), layer, view)]
                 else:
-                    # arrows from outside pointing in, the line carried out to the text
-                    d_lo = min(lo - ARROW - 2.0, t_lo - 1.0)
-                    d_hi = max(hi + ARROW + 2.0, t_hi + 1.0)
-                    if inside:
-                        arrows = [_arrow(fr.xy(lo, c), fr.xy(hi, c), layer, view),
-                                  _arrow(fr.xy(hi, c), fr.xy(lo, c), layer, view)]
-                    else:
-                        arrows = [_arrow(fr.xy(lo, c), fr.xy(lo - 1, c), layer, view),
-                                  _arrow(fr.xy(hi, c), fr.xy(hi + 1, c), layer, view)]
-                dline = (fr.xy(d_lo, c), fr.xy(d_hi, c))
-                lines = [dline] + ext
-                yield texts, lines, ext, arrows, dline
+                    arrows = [_arrow(fr.xy(lo, c), fr.xy(lo - 1, c), layer, view),
+                              _arrow(fr.xy(hi, c), fr.xy(hi + 1, c), layer, view)]
+            dline = (fr.xy(d_lo, c), fr.xy(d_hi, c))
+            lines = [dline] + ext
+            yield texts, lines, ext, arrows, dline
+
+    def _linear_ok(self, texts: list[Text], lines: list[Seg], dline: Seg, half: bool) -> bool:
+        """``_ok`` for a linear dimension whose texts passed ``_clear`` in a lane whose extension lines
+        passed (nothing placed since): its own lines clear of its texts, its dimension line crossing no
+        text, clear of other dimension and extension lines, and (a full dimension's) not cutting the outline."""
+        ob = self.obstacles
+        for t in texts:
+            b = inflate(text_box(t), CLEAR)
+            if any(segment_hits_box(a, c, b) for a, c in lines):
+                return False
+        if ob.crosses_text([dline]) or ob.dimline_too_close([dline]):
+            return False
+        return half or not ob.crosses_outline(*dline)
 
     def linear(self, req: DimensionRequest) -> Dimension | None:
         """A linear dimension or a half-shown diameter."""
@@ -465,10 +488,15 @@ class Placer:
                 points[lower] = [v.to_paper((z, 0.0)), v.to_paper((z, sign * abs(r)))]
             else:
                 points[lower] = [v.to_paper((p[0], -p[1] if lower else p[1])) for p in req.points]
-        # what a lane allows does not depend on the text's place or the mode (nothing is placed meanwhile):
-        # each lane is judged once, its extension lines kept, None when the lane is out
+        # what a lane allows, and where a mode puts the text along the line, do not depend on each other
+        # (nothing is placed meanwhile): each lane is judged once (its extension lines kept, None when the
+        # lane is out), each mode's text spots listed once per half
         lane_ext: dict[tuple[float, bool], list[Seg] | None] = {}
+        spots = {(lower, mode): self._text_spots(fr, pts[0], pts[1], half, mode, w)
+                 for lower, pts in points.items() for mode in (0, 1, 2)}
         for mode, (c, lower) in itertools.product((0, 1, 2), lanes):
+            if not spots[lower, mode]:
+                continue
             pts = points[lower]
             if (c, lower) not in lane_ext:
                 # a lane on or beside another dimension line is out whatever the text does; so is one whose
@@ -483,9 +511,9 @@ class Placer:
             lane = lane_ext[c, lower]
             if lane is None:
                 continue
-            for texts, lines, ext, arrows, dline in self._linear_candidates(fr, pts[0], pts[1], c, half, mode,
-                                                                            lines_txt, w, lane):
-                if self._ok(texts, lines, [], [dline] if not half else [], [dline], cleared=True):
+            for texts, lines, ext, arrows, dline in self._linear_candidates(fr, pts[0], pts[1], c, half, lines_txt,
+                                                                            w, lane, spots[lower, mode]):
+                if self._linear_ok(texts, lines, dline, half):
                     strokes = [Stroke(s, "dimension", v.name) for s in lines]
                     text = " / ".join(t.text for t in texts)
                     dim = Dimension(req, tuple(strokes + arrows + texts), dline[0], texts[0].at, text, v.name,

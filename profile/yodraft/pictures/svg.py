@@ -16,7 +16,7 @@ from __future__ import annotations
 import math
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass, field
-from xml.sax.saxutils import escape, quoteattr
+from html import escape as _html_escape
 
 from ..geometry import Arc, Line, Segment
 
@@ -185,14 +185,14 @@ class Page:
         attrs += f' font-style="{style}"' if style else ""
         attrs += f' text-anchor="{anchor}"' if anchor != "start" else ""
         attrs += f' fill="{fill}"' if fill != "#000" else ""
-        self.body.append(f'<text x="{num(x)}" y="{num(y)}" font-size="{num(size)}"{attrs}>{escape(text)}</text>')
+        self.body.append(f'<text x="{num(x)}" y="{num(y)}" font-size="{num(size)}"{attrs}>{_html_escape(text, quote=False)}</text>')
 
     def render(self) -> bytes:
         w, h = num(self.width), num(self.height)
         head = [f'<svg xmlns="http://www.w3.org/2000/svg" width="{w}mm" height="{h}mm" viewBox="0 0 {w} {h}" '
-                f'font-family={quoteattr(FONT)}>']
+                f'font-family="{_html_escape(FONT)}">']
         if self.title:
-            head.append(f"<title>{escape(self.title)}</title>")
+            head.append(f"<title>{_html_escape(self.title, quote=False)}</title>")
         if self.defs:
             head.append("<defs>" + "".join(self.defs) + "</defs>")
         head.append(f'<rect width="{w}" height="{h}" fill="#fff"/>')
