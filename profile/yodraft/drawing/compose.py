@@ -232,7 +232,7 @@ def _solid_test(profile: Profile, view: View, others: tuple[Profile, ...] = ()):
 
     def solid(p: tuple[float, float]) -> bool:
         z, r = view.to_model(p)
-        return bool(both.contains(shapely.Point(z, r)))
+        return bool(shapely.contains_xy(both, z, r))
     return solid
 
 

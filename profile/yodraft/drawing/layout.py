@@ -32,7 +32,8 @@ EXT_OVER = 2.0  # extension line beyond the dimension line (ISO 129-1: about 2 m
 EXT_MIN_GAP = 0.7  # ISO 128-2: parallel lines at least 0.7 mm apart
 FIRST = 8.0  # outline to the first dimension line
 DIMLINE_GAP = 5.0  # parallel dimension lines side by side at least this far apart
-CELL = 5.0
+CELL = 5.0  # grid of the lines on the sheet (mm)
+BOX_CELL = 10.0  # grid of the text boxes (mm): a text's box spans few of them
 
 Box = tuple[float, float, float, float]
 Seg = tuple[tuple[float, float], tuple[float, float]]
@@ -142,23 +143,18 @@ class Obstacles:
     def add_box(self, box: Box) -> None:
         i = len(self.boxes)
         self.boxes.append(box)
-        for key in _cells(inflate(box, 0.3)):
+        for key in _cells(inflate(box, 0.3), BOX_CELL):
             self.box_grid.setdefault(key, []).append(i)
 
     def _near_boxes(self, box: Box) -> Iterable[int]:
-        """Indexes of the text boxes that may touch ``box`` (every box within 0.3 mm of it among them)."""
-        x0, x1 = int(math.floor(box[0] / CELL)), int(math.floor(box[2] / CELL))
-        y0, y1 = int(math.floor(box[1] / CELL)), int(math.floor(box[3] / CELL))
-        if (x1 - x0 + 1) * (y1 - y0 + 1) > len(self.boxes):  # a long line: walking the boxes is quicker
+        """Indexes of the text boxes that may touch ``box`` (every box within 0.3 mm of it among them; a box
+        may come more than once)."""
+        x0, x1 = int(math.floor(box[0] / BOX_CELL)), int(math.floor(box[2] / BOX_CELL))
+        y0, y1 = int(math.floor(box[1] / BOX_CELL)), int(math.floor(box[3] / BOX_CELL))
+        if (x1 - x0 + 1) * (y1 - y0 + 1) > 8:  # a long line: walking the boxes is quicker
             return range(len(self.boxes))
         grid = self.box_grid
-        out: set[int] = set()
-        for gx in range(x0, x1 + 1):
-            for gy in range(y0, y1 + 1):
-                found = grid.get((gx, gy))
-                if found:
-                    out.update(found)
-        return out
+        return [i for gx in range(x0, x1 + 1) for gy in range(y0, y1 + 1) for i in grid.get((gx, gy), ())]
 
     def add_segments(self, segs: Iterable[Seg]) -> None:
         for s in segs:
@@ -252,9 +248,9 @@ class Obstacles:
                    for a, b in segs)
 
 
-def _cells(box: Box) -> list[tuple[int, int]]:
-    return [(gx, gy) for gx in range(int(math.floor(box[0] / CELL)), int(math.floor(box[2] / CELL)) + 1)
-            for gy in range(int(math.floor(box[1] / CELL)), int(math.floor(box[3] / CELL)) + 1)]
+def _cells(box: Box, cell: float = CELL) -> list[tuple[int, int]]:
+    return [(gx, gy) for gx in range(int(math.floor(box[0] / cell)), int(math.floor(box[2] / cell)) + 1)
+            for gy in range(int(math.floor(box[1] / cell)), int(math.floor(box[3] / cell)) + 1)]
 
 
 def _texts(item: Item) -> list[Text]:
