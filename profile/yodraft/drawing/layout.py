@@ -18,7 +18,7 @@ from typing import Callable, Iterable
 
 from .lettering import PITCH, Lettering
 from .requests import DimensionRequest, format_value, label, measure
-from .sheetdata import Dimension, Fill, Item, Stroke, Text, View, segments_of, text_box
+from .sheetdata import P, Dimension, Fill, Item, Stroke, Text, View, box_of, segments_of, text_box
 
 __all__ = ["Obstacles", "Placer", "TEXT_HEIGHT", "CLEAR", "ARROW", "EXT_MIN_GAP", "inflate", "boxes_overlap",
            "segment_hits_box"]
@@ -32,8 +32,7 @@ EXT_OVER = 2.0  # extension line beyond the dimension line (ISO 129-1: about 2 m
 EXT_MIN_GAP = 0.7  # ISO 128-2: parallel lines at least 0.7 mm apart
 FIRST = 8.0  # outline to the first dimension line
 DIMLINE_GAP = 5.0  # parallel dimension lines side by side at least this far apart
-CELL = 5.0  # grid of the lines on the sheet (mm)
-BOX_CELL = 10.0  # grid of the text boxes (mm): a text's box spans few of them
+CELL = 10.0  # side of the grid squares that lines and text boxes are filed in (mm; measured best of 3.5–15)
 
 Box = tuple[float, float, float, float]
 Seg = tuple[tuple[float, float], tuple[float, float]]
@@ -143,27 +142,37 @@ class Obstacles:
     def add_box(self, box: Box) -> None:
         i = len(self.boxes)
         self.boxes.append(box)
-        for key in _cells(inflate(box, 0.3), BOX_CELL):
+        for key in _cells(inflate(box, 0.3)):
             self.box_grid.setdefault(key, []).append(i)
 
     def _near_boxes(self, box: Box) -> Iterable[int]:
         """Indexes of the text boxes that may touch ``box`` (every box within 0.3 mm of it among them; a box
         may come more than once)."""
-        x0, x1 = int(math.floor(box[0] / BOX_CELL)), int(math.floor(box[2] / BOX_CELL))
-        y0, y1 = int(math.floor(box[1] / BOX_CELL)), int(math.floor(box[3] / BOX_CELL))
+        x0, x1 = int(math.floor(box[0] / CELL)), int(math.floor(box[2] / CELL))
+        y0, y1 = int(math.floor(box[1] / CELL)), int(math.floor(box[3] / CELL))
         if (x1 - x0 + 1) * (y1 - y0 + 1) > 8:  # a long line: walking the boxes is quicker
             return range(len(self.boxes))
         grid = self.box_grid
         return [i for gx in range(x0, x1 + 1) for gy in range(y0, y1 + 1) for i in grid.get((gx, gy), ())]
 
     def add_segments(self, segs: Iterable[Seg]) -> None:
+        grid = self.grid
         for s in segs:
             i = len(self.segs)
             self.segs.append(s)
-            (x0, y0), (x1, y1) = s
-            for gx in range(int(math.floor(min(x0, x1) / CELL)), int(math.floor(max(x0, x1) / CELL)) + 1):
-                for gy in range(int(math.floor(min(y0, y1) / CELL)), int(math.floor(max(y0, y1) / CELL)) + 1):
-                    self.grid.setdefault((gx, gy), []).append(i)
+            (x0, y0), (x1, y1) = s if s[0][0] <= s[1][0] else (s[1], s[0])
+            # the squares the segment runs through, column by column (a slanted line, such as section
+            # lining, passes through few of the squares its extent covers); a hair wider, never narrower
+            slope = (y1 - y0) / (x1 - x0) if x1 - x0 > 1e-12 else None
+            for gx in range(int(math.floor(x0 / CELL)), int(math.floor(x1 / CELL)) + 1):
+                if slope is None:
+                    ya, yb = y0, y1
+                else:
+                    xa, xb = max(x0, gx * CELL), min(x1, (gx + 1) * CELL)
+                    ya, yb = y0 + slope * (xa - x0), y0 + slope * (xb - x0)
+                lo, hi = (ya, yb) if ya <= yb else (yb, ya)
+                for gy in range(int(math.floor((lo - 1e-6) / CELL)), int(math.floor((hi + 1e-6) / CELL)) + 1):
+                    grid.setdefault((gx, gy), []).append(i)
 
     def add_item(self, item: Item) -> None:
         self.add_segments(segments_of(item))
@@ -248,9 +257,9 @@ class Obstacles:
                    for a, b in segs)
 
 
-def _cells(box: Box, cell: float = CELL) -> list[tuple[int, int]]:
-    return [(gx, gy) for gx in range(int(math.floor(box[0] / cell)), int(math.floor(box[2] / cell)) + 1)
-            for gy in range(int(math.floor(box[1] / cell)), int(math.floor(box[3] / cell)) + 1)]
+def _cells(box: Box) -> list[tuple[int, int]]:
+    return [(gx, gy) for gx in range(int(math.floor(box[0] / CELL)), int(math.floor(box[2] / CELL)) + 1)
+            for gy in range(int(math.floor(box[1] / CELL)), int(math.floor(box[3] / CELL)) + 1)]
 
 
 def _texts(item: Item) -> list[Text]:
@@ -310,18 +319,20 @@ class Placer:
         rest = req.tolerance.split("\n")[1:]
         return [first] + [f"({r})" if req.auxiliary else r for r in rest]
 
-    def _text_items(self, lines: list[str], fr: _Frame, u0: float, v_base: float, view: str) -> list[Text]:
-        """Lines stacked away from the dimension line, the first at ``v_base``; left ends at u0
-        (each line centred on the widest)."""
+    def _text_places(self, lines: list[str], fr: _Frame, u0: float, v_base: float) -> list[tuple[str, P, float]]:
+        """(line, left end of its baseline, width) of lines stacked away from the dimension line, the first
+        at ``v_base``; left ends at u0 (each line centred on the widest)."""
         h = TEXT_HEIGHT
         widths = [self.font.width(s, h) for s in lines]
         wmax = max(widths)
-        out = []
-        for i, (s, w) in enumerate(zip(lines, widths)):
-            u = u0 + (wmax - w) / 2
-            v = v_base + i * h * PITCH
-            out.append(Text(s, fr.xy(u, v), h, w, fr.rotation, "dimension", view))
-        return out
+        return [(s, fr.xy(u0 + (wmax - w) / 2, v_base + i * h * PITCH), w)
+                for i, (s, w) in enumerate(zip(lines, widths))]
+
+    def _text_items(self, lines: list[str], fr: _Frame, u0: float, v_base: float, view: str,
+                    places: list[tuple[str, P, float]] | None = None) -> list[Text]:
+        """The texts of ``_text_places`` (or of ``places`` already worked out)."""
+        places = self._text_places(lines, fr, u0, v_base) if places is None else places
+        return [Text(s, at, TEXT_HEIGHT, w, fr.rotation, "dimension", view) for s, at, w in places]
 
     def _block(self, lines: list[str]) -> tuple[float, float]:
         """(length along the line, depth across it from the first baseline's descender) of a text block."""
@@ -350,9 +361,13 @@ class Placer:
         return not any(ob.crosses_outline(a, b) for a, b in along)
 
     def _clear(self, texts: list[Text]) -> bool:
-        for t in texts:
-            b = inflate(text_box(t), CLEAR)
-            if not self._inside(b) or self.obstacles.text_hits(b) or self.obstacles.line_hits(b):
+        return self._clear_boxes([text_box(t) for t in texts])
+
+    def _clear_boxes(self, boxes: list[Box]) -> bool:
+        """Whether texts with these boxes stand on the view, clear of every line and text."""
+        for box in boxes:
+            b = inflate(box, CLEAR)
+            if not self._inside(b) or self.obstacles.line_hits(b) or self.obstacles.text_hits(b):
                 return False
         return True
 
@@ -426,9 +441,11 @@ class Placer:
         inside = span >= 2 * ARROW + 1.0 or half
         v_base = c + GAP + self.font.descender * TEXT_HEIGHT
         for tu in spots:
-            texts = self._text_items(lines_txt, fr, tu, v_base, view)
-            if not self._clear(texts):  # the cheap test first: most positions fail here
+            places = self._text_places(lines_txt, fr, tu, v_base)
+            # the cheap test first, before any text is made: most positions fail here
+            if not self._clear_boxes([box_of(at, TEXT_HEIGHT, tw, fr.rotation) for _, at, tw in places]):
                 continue
+            texts = self._text_items(lines_txt, fr, tu, v_base, view, places)
             t_lo, t_hi = tu, tu + w
             # the dimension line: between the extension lines, out to the text when it stands outside
             if half:

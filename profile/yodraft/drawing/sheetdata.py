@@ -14,9 +14,10 @@ from typing import Union
 from .requests import DimensionRequest
 
 __all__ = ["Stroke", "Circle", "Fill", "Text", "Hatch", "Dimension", "View", "Sheet", "Item", "segments_of",
-           "translate", "text_box", "flatten"]
+           "translate", "text_box", "box_of", "flatten", "DESCENDER"]
 
 P = tuple[float, float]
+DESCENDER = 0.2853  # a text's depth below its baseline per cap height, unless it says otherwise
 
 
 @dataclass(frozen=True)
@@ -63,7 +64,7 @@ class Text:
     rotation: float = 0.0
     layer: str = "text"
     view: str = "paper"
-    descender: float = 0.2853  # below the baseline per cap height
+    descender: float = DESCENDER
 
 
 @dataclass(frozen=True)
@@ -179,18 +180,24 @@ def segments_of(item: Item) -> list[tuple[P, P]]:
 def text_box(t: Text, width: float | None = None) -> tuple[float, float, float, float]:
     """(x0, y0, x1, y1) of a text on paper (texts are set at 0° or 90°): baseline-left at ``at``,
     from the descender to the cap height."""
-    w = t.width if width is None else width
-    lo, hi = -t.descender * t.height, t.height
-    x, y = t.at
-    if abs(t.rotation % 180) < 1e-9:
-        if abs(t.rotation % 360) < 1e-9:
+    return box_of(t.at, t.height, t.width if width is None else width, t.rotation, t.descender)
+
+
+def box_of(at: P, height: float, width: float, rotation: float = 0.0,
+           descender: float = DESCENDER) -> tuple[float, float, float, float]:
+    """``text_box`` of a text not yet made: its baseline's left end, cap height, width, rotation, descender."""
+    w = width
+    lo, hi = -descender * height, height
+    x, y = at
+    if abs(rotation % 180) < 1e-9:
+        if abs(rotation % 360) < 1e-9:
             return (x, y + lo, x + w, y + hi)
         return (x - w, y - hi, x, y - lo)
-    if abs((t.rotation - 90) % 360) < 1e-9:
+    if abs((rotation - 90) % 360) < 1e-9:
         return (x - hi, y, x - lo, y + w)
-    if abs((t.rotation - 270) % 360) < 1e-9:
+    if abs((rotation - 270) % 360) < 1e-9:
         return (x + lo, y - w, x + hi, y)
-    raise ValueError(f"text at {t.rotation}°: only 0/90/180/270 are laid out")
+    raise ValueError(f"text at {rotation}°: only 0/90/180/270 are laid out")
 
 
 def _shift(p: P, dx: float, dy: float) -> P:
