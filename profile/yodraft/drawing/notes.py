@@ -120,7 +120,7 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     brk = shop["break_edges"]
     passing = seat_corner_passing_mm(resolved)
     out.append(f"Edges ISO 13715: external -{brk:g}, internal -{brk:g}; post/seat-face corner "
-               f"+{passing:g}/-{brk:g} (ring chamfer {size_text(resolved['bearing.chamfer'])})")
+               f"+{passing:g}/-{brk:g} (bearing bore chamfer {size_text(resolved['bearing.chamfer'])})")
     d = resolved.features["axle_bore"].dims
     out.append(f"{thread_designation(resolved)}, tap drill Ø{d['tap_drill']:g} ↧{d['drill_depth']:g}, 118° point, from post face; "
                f"{back_wall_mm(resolved):.2f} left to hub face (min {shop['min_wall']:g})")
