@@ -6,7 +6,7 @@ narrow; wide : narrow = 2 : 1 (0.5 mm : 0.25 mm).
 """
 from __future__ import annotations
 
-from dataclasses import dataclass
+from typing import NamedTuple
 
 from ezdxf.document import Drawing
 
@@ -25,8 +25,7 @@ LONG_DASH_DOT = "long-dash-dot"
 APPID = "YODRAFT"  # tags each dimension with the feature.parameter it shows
 
 
-@dataclass(frozen=True)
-class Layer:
+class Layer(NamedTuple):
     """One layer: its name, what goes on it, its ISO 128-2 line type and width (1/100 mm)."""
 
     name: str

@@ -14,7 +14,7 @@ import bisect
 import itertools
 import math
 from dataclasses import dataclass, field
-from typing import Callable, Iterable
+from typing import Callable, Iterable, NamedTuple
 
 from .lettering import PITCH, Lettering
 from .requests import DimensionRequest, format_value, label, measure
@@ -271,8 +271,7 @@ def _texts(item: Item) -> list[Text]:
 
 
 # ------------------------------------------------------------------ building blocks in (u, v)
-@dataclass(frozen=True)
-class _Frame:
+class _Frame(NamedTuple):
     """A dimension's own axes: u along its dimension line, v across (text on the +v side).
     Horizontal lines: (u, v) = (x, y); vertical lines: (u, v) = (y, −x), text left of the line."""
 

@@ -277,6 +277,6 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
                           (frame[2] - TITLE_WIDTH, frame[1]), overrides)
     items += _frame(paper, frame)
     vb = _bbox([i for i in items if getattr(i, "view", "paper") == "main"])
-    sview = replace(sview, box=(vb[0] - 1.0, vb[1] - 1.0, vb[2] + 1.0, vb[3] + 1.0))  # what the viewport shows
+    sview = sview._replace(box=(vb[0] - 1.0, vb[1] - 1.0, vb[2] + 1.0, vb[3] + 1.0))  # what the viewport shows
     return Sheet(paper, frame, tuple(items), (sview, dview), name=f"{name}-sheet",
                  notes={"paper": "A3", "scale": scale, "detail_scale": dscale, "detail_block": f"{name}-detail"})

@@ -1,5 +1,6 @@
 """The composed sheet as plain data: what is drawn where, in paper millimetres (x right, y up from the
 sheet's lower-left corner). Composed once (``compose``), written by each backend (DXF, SVG, PDF).
+The items and views are NamedTuples (the layout makes and tests them by the thousand); the sheet a dataclass.
 
 Every item names its ``layer`` (line type and width come from it, ``layers.LAYERS``) and its ``view``:
 ``paper`` for the sheet itself, or the name of a view (``main``, ``detail``) whose model geometry it shows;
@@ -8,8 +9,8 @@ the DXF backend maps a view's items back to model coordinates, the others draw t
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field, replace
-from typing import Union
+from dataclasses import dataclass, field
+from typing import NamedTuple, Union
 
 from .requests import DimensionRequest
 
@@ -20,8 +21,7 @@ P = tuple[float, float]
 DESCENDER = 0.2853  # a text's depth below its baseline per cap height, unless it says otherwise
 
 
-@dataclass(frozen=True)
-class Stroke:
+class Stroke(NamedTuple):
     """An open or closed line through ``points``; ``bulges[i]`` makes the piece after point i an arc
     (tan of a quarter of its sweep, DXF convention). ``weight`` (mm) and ``linetype`` override the layer's."""
 
@@ -34,8 +34,7 @@ class Stroke:
     linetype: str | None = None
 
 
-@dataclass(frozen=True)
-class Circle:
+class Circle(NamedTuple):
     center: P
     radius: float
     layer: str
@@ -43,8 +42,7 @@ class Circle:
     weight: float | None = None
 
 
-@dataclass(frozen=True)
-class Fill:
+class Fill(NamedTuple):
     """A filled polygon (arrowheads, datum triangles)."""
 
     points: tuple[P, ...]
@@ -52,8 +50,7 @@ class Fill:
     view: str = "paper"
 
 
-@dataclass(frozen=True)
-class Text:
+class Text(NamedTuple):
     """One line of text: ``at`` is the left end of its baseline, ``height`` the cap height (mm),
     ``rotation`` in degrees counter-clockwise, ``width`` the room the layout kept for it (mm)."""
 
@@ -67,8 +64,7 @@ class Text:
     descender: float = DESCENDER
 
 
-@dataclass(frozen=True)
-class Hatch:
+class Hatch(NamedTuple):
     """Section lining: ``loops`` (closed strokes) filled with lines at ``angle`` degrees, ``spacing``
     apart on paper, one of them through ``origin``; ``lines`` are those lines cut to the loops."""
 
@@ -81,8 +77,7 @@ class Hatch:
     view: str = "paper"
 
 
-@dataclass(frozen=True)
-class Dimension:
+class Dimension(NamedTuple):
     """A placed dimension: the request it answers, where its line runs (``base``: a point on the
     dimension line, or the arc's point for a radius/angle), where its text sits, and what it draws."""
 
@@ -98,8 +93,7 @@ class Dimension:
 Item = Union[Stroke, Circle, Fill, Text, Hatch, Dimension]
 
 
-@dataclass(frozen=True)
-class View:
+class View(NamedTuple):
     """How a view maps model (z, r) to paper: ``paper = origin + scale · (z, r)``; ``box`` is its
     (x0, y0, x1, y1) on paper (a viewport in the DXF)."""
 
@@ -207,16 +201,16 @@ def _shift(p: P, dx: float, dy: float) -> P:
 def translate(item: Item, dx: float, dy: float) -> Item:
     """The item moved by (dx, dy) on paper."""
     if isinstance(item, (Stroke, Fill)):
-        return replace(item, points=tuple(_shift(p, dx, dy) for p in item.points))
+        return item._replace(points=tuple(_shift(p, dx, dy) for p in item.points))
     if isinstance(item, Circle):
-        return replace(item, center=_shift(item.center, dx, dy))
+        return item._replace(center=_shift(item.center, dx, dy))
     if isinstance(item, Text):
-        return replace(item, at=_shift(item.at, dx, dy))
+        return item._replace(at=_shift(item.at, dx, dy))
     if isinstance(item, Hatch):
-        return replace(item, loops=tuple(translate(s, dx, dy) for s in item.loops),  # type: ignore[misc]
+        return item._replace(loops=tuple(translate(s, dx, dy) for s in item.loops),  # type: ignore[misc]
                        origin=_shift(item.origin, dx, dy),
                        lines=tuple((_shift(a, dx, dy), _shift(b, dx, dy)) for a, b in item.lines))
     if isinstance(item, Dimension):
-        return replace(item, items=tuple(translate(s, dx, dy) for s in item.items),
+        return item._replace(items=tuple(translate(s, dx, dy) for s in item.items),
                        base=_shift(item.base, dx, dy), text_at=_shift(item.text_at, dx, dy))
     raise TypeError(item)

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
-from dataclasses import dataclass
+from typing import NamedTuple
 
 from ..analysis import MassAndSpin, mass_and_spin, small_parts
 from ..builder import Resolved
@@ -72,8 +72,7 @@ def material_colour(name: str) -> str:
     return "#d9d9d9"
 
 
-@dataclass(frozen=True)
-class PartSection:
+class PartSection(NamedTuple):
     """One part's section in the (z, r ≥ 0) half-plane: closed loops, its colour and how it is shown."""
 
     name: str

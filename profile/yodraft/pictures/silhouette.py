@@ -15,7 +15,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Iterable, Sequence
-from dataclasses import dataclass
+from typing import NamedTuple
 
 from ..geometry import Arc, Line, Segment
 
@@ -24,8 +24,7 @@ __all__ = ["outline_chains", "outline_runs", "creases"]
 _EPS = 1e-9
 
 
-@dataclass(frozen=True)
-class _Piece:
+class _Piece(NamedTuple):
     """Part of a segment over which z only grows or only falls: ``z_lo`` to ``z_hi``."""
 
     owner: int

@@ -17,6 +17,7 @@ import math
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass, field
 from html import escape as _html_escape
+from typing import NamedTuple
 
 from ..geometry import Arc, Line, Segment
 
@@ -43,8 +44,7 @@ def text_width(text: str, size: float) -> float:
     return len(text) * CHAR_WIDTH * size
 
 
-@dataclass(frozen=True)
-class View:
+class View(NamedTuple):
     """Where the (z, r) plane lands on the page: page = (x0 + kz·s·z, y0 − kr·s·r).
 
     ``kz = -1`` draws the mirror about the gap plane (the other half), ``kr = -1`` the mirror
