@@ -318,14 +318,20 @@ class Placer:
         rest = req.tolerance.split("\n")[1:]
         return [first] + [f"({r})" if req.auxiliary else r for r in rest]
 
-    def _text_places(self, lines: list[str], fr: _Frame, u0: float, v_base: float) -> list[tuple[str, P, float]]:
-        """(line, left end of its baseline, width) of lines stacked away from the dimension line, the first
-        at ``v_base``; left ends at u0 (each line centred on the widest)."""
+    def _stack(self, lines: list[str]) -> list[tuple[str, float, float, float]]:
+        """(line, its offset along the dimension line, across it, its width) of lines stacked away from the
+        dimension line, each centred on the widest."""
         h = TEXT_HEIGHT
         widths = [self.font.width(s, h) for s in lines]
         wmax = max(widths)
-        return [(s, fr.xy(u0 + (wmax - w) / 2, v_base + i * h * PITCH), w)
-                for i, (s, w) in enumerate(zip(lines, widths))]
+        return [(s, (wmax - w) / 2, i * h * PITCH, w) for i, (s, w) in enumerate(zip(lines, widths))]
+
+    def _text_places(self, lines: list[str], fr: _Frame, u0: float, v_base: float,
+                     stack: list[tuple[str, float, float, float]] | None = None) -> list[tuple[str, P, float]]:
+        """(line, left end of its baseline, width) of lines stacked away from the dimension line, the first
+        at ``v_base``; left ends at u0 (each line centred on the widest). ``stack``: ``_stack(lines)``."""
+        stack = self._stack(lines) if stack is None else stack
+        return [(s, fr.xy(u0 + du, v_base + dv), w) for s, du, dv, w in stack]
 
     def _text_items(self, lines: list[str], fr: _Frame, u0: float, v_base: float, view: str,
                     places: list[tuple[str, P, float]] | None = None) -> list[Text]:
@@ -439,8 +445,9 @@ class Placer:
         span = hi - lo
         inside = span >= 2 * ARROW + 1.0 or half
         v_base = c + GAP + self.font.descender * TEXT_HEIGHT
+        stack = self._stack(lines_txt)
         for tu in spots:
-            places = self._text_places(lines_txt, fr, tu, v_base)
+            places = self._text_places(lines_txt, fr, tu, v_base, stack)
             # the cheap test first, before any text is made: most positions fail here
             if not self._clear_boxes([box_of(at, TEXT_HEIGHT, tw, fr.rotation) for _, at, tw in places]):
                 continue
