@@ -334,7 +334,8 @@ def _datum_face(font: Lettering, ob: Obstacles, view: View, profile: Profile, z:
 
 def _place_if_free(ob: Obstacles, parts: list[Item], box: Box) -> bool:
     """Put a datum callout (``parts``, its frame ``box``) on the sheet when it touches nothing there."""
-    if _free(ob, parts) and not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR)):
+    # the frame's box first: the cheapest test, and the one that fails most
+    if not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR)) and _free(ob, parts):
         for p in parts:
             ob.add_item(p)
         ob.add_box(box)
@@ -410,14 +411,16 @@ def _runout(font: Lettering, ob: Obstacles, target: tuple[float, float], value: 
         for dx in (-40.0, -30.0, -50.0, -20.0, -60.0, 10.0, 20.0, -70.0, -80.0):
             x = target[0] + dx
             y = target[1] + sign * dy
-            parts = _runout_frame(font, (x, y), target, value)
             box = (x, y, x + width, y + RUNOUT_H)
             if within is not None and not (box[0] >= within[0] and box[1] >= within[1] and box[2] <= within[2]
                                            and box[3] <= within[3]):
                 continue
+            # the frame's box first, before the frame is drawn: the cheapest test, and the one that fails most
+            if ob.line_hits(inflate(box, 0.3)) or ob.text_hits(inflate(box, CLEAR)):
+                continue
+            parts = _runout_frame(font, (x, y), target, value)
             leader = [s for p in parts[-3:-1] for s in segments_of(p)]
-            if (_free(ob, parts) and not ob.line_hits(inflate(box, 0.3)) and not ob.text_hits(inflate(box, CLEAR))
-                    and not any(ob.crosses_outline(a, b) for a, b in leader[:-1])):
+            if _free(ob, parts) and not any(ob.crosses_outline(a, b) for a, b in leader[:-1]):
                 for p in parts:
                     ob.add_item(p)
                 ob.add_box(box)
