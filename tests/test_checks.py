@@ -16,8 +16,8 @@ import shapely
 import yodraft
 from conftest import ROOT, TEMPLATES
 from yodraft.builder import build
-from yodraft.checks import (BACK_TURNING_TOOL, GROOVING_TOOL, LOOP_CHECK_TOLERANCE, Reentrant, _faces,
-                            _inward_normal, _on_axis, _sample, least_wall, reentrant_regions)
+from yodraft.checks import (LOOP_CHECK_TOLERANCE, Reentrant, _faces,
+                            _inward_normal, _on_axis, _sample, hidden_regions, least_wall, reentrant_regions)
 from yodraft.design import with_values
 from yodraft.geometry import Profile
 
@@ -100,21 +100,7 @@ def _reentrant_by_definition(profile: Profile) -> tuple[Reentrant, ...]:
             axial = crossings(s, 0)
             if radial and any(h < s[0] for h in axial) and any(h > s[0] for h in axial):
                 hidden.append(i)
-    runs: list[list[int]] = []
-    for i in sorted(set(hidden)):
-        if runs and i == runs[-1][-1] + 1:
-            runs[-1].append(i)
-        else:
-            runs.append([i])
-    if len(runs) > 1 and runs[0][0] == 0 and runs[-1][-1] == len(segs) - 1:
-        runs[0] = runs.pop() + runs[0]
-    out = []
-    for run in runs:
-        pts = [q for i in run for q in (segs[i].start, segs[i].end, _sample(segs[i], 0.5))]
-        zs, rs = [q[0] for q in pts], [q[1] for q in pts]
-        tool = GROOVING_TOOL if (max(rs) - min(rs)) >= (max(zs) - min(zs)) else BACK_TURNING_TOOL
-        out.append(Reentrant(min(zs), max(zs), min(rs), max(rs), tool))
-    return tuple(out)
+    return hidden_regions(segs, hidden)
 
 
 def test_the_grids_reach_thin_walls_and_undercuts() -> None:

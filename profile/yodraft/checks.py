@@ -3,7 +3,7 @@ from __future__ import annotations
 
 import functools
 import math
-from collections.abc import Mapping, Sequence
+from collections.abc import Iterable, Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
 
@@ -386,12 +386,14 @@ def _reentrant_regions(profile: "Profile") -> tuple[Reentrant, ...]:
         shut_in = shut_in[beyond]
         if not len(shut_in):
             return ()
-    hidden = sorted({owners[k] for k in shut_in.tolist()})
-    if not hidden:
-        return ()
-    # consecutive hidden surfaces round the loop make one region
+    return hidden_regions(segs, {owners[k] for k in shut_in.tolist()})
+
+
+def hidden_regions(segs: Sequence[Any], hidden: Iterable[int]) -> tuple[Reentrant, ...]:
+    """The re-entrant regions made of the hidden surfaces ``hidden`` (indices into the loop's ``segs``):
+    consecutive ones round the loop make one region, reached by the tool its shape asks for."""
     runs: list[list[int]] = []
-    for i in hidden:
+    for i in sorted(set(hidden)):
         if runs and i == runs[-1][-1] + 1:
             runs[-1].append(i)
         else:
