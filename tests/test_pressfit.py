@@ -6,7 +6,7 @@ import math
 
 import pytest
 
-from yodraft.pressfit import (Member, assembly_delta_t_k, contact_pressure, fit_stresses, holding_force_n,
+from yodraft.pressfit import (Member, assembly_delta_t_k, bore_change_mm, contact_pressure, fit_stresses, holding_force_n,
                               holding_torque_n_mm, thermal_change_mm, von_mises)
 
 STEEL_E = 207e3  # MPa, the steel modulus the textbook example uses
@@ -102,3 +102,17 @@ def test_holding_force_and_torque_by_hand() -> None:
 def test_members_must_meet() -> None:
     with pytest.raises(ValueError):
         contact_pressure(0.05, Member(40, 45, 1e5, 0.3, 1e-5, 1), Member(46, 50, 1e5, 0.3, 1e-5, 1))
+
+
+def test_bore_of_a_thick_ring_under_external_pressure_by_hand() -> None:
+    # Lamé's thick-walled cylinder under uniform external pressure q, inner radius a, outer b, free ends:
+    # the bore moves Δa = −2 q b² a / (E (b² − a²)) (Roark's Formulas for Stress and Strain, thick-walled
+    # cylinder table, uniform external pressure; from memory). Hand arithmetic for a = 25, b = 27 mm,
+    # q = 3 MPa, E = 100 GPa: Δa = −2·3·729·25 / (100000·104) = −0.0105144 mm, so Δd = −0.0210288 mm
+    ring = Member(50.0, 54.0, 100e3, 0.3, 20e-6, 300.0)
+    assert bore_change_mm(3.0, ring) == pytest.approx(-2 * 3 * 729 * 25 / (100000 * 104) * 2, rel=1e-12)
+    assert bore_change_mm(3.0, ring) == pytest.approx(-0.0210288, abs=1e-7)
+    # and it is Hooke's law at the free bore (σ_r = σ_z = 0): Δd = d_i σ_t / E with Lamé's hoop stress there
+    hoop = fit_stresses(3.0, ring, Member(54.0, 56.0, 70e3, 0.33, 23e-6, 276.0)).inner_bore.hoop_mpa
+    assert bore_change_mm(3.0, ring) == pytest.approx(50.0 * hoop / 100e3, rel=1e-12)
+    assert bore_change_mm(3.0, Member(0.0, 54.0, 100e3, 0.3, 20e-6, 300.0)) == 0.0  # a solid member has no bore

@@ -172,6 +172,45 @@ def test_too_little_interference_when_hot_fails() -> None:
     assert any(c.name == "ring holds when hot" and c.parameter == "fit" for c in resolved.failed)
 
 
+def test_face_ring_bore_clears_the_groove_wall_when_pressed() -> None:
+    resolved = _build(_with(BIMETAL, seat="face", hold_force="100 N"))
+    g = yodraft.summary(resolved)["ring"]
+    d_i, d = g["ring_diameters_mm"]
+    e = g["ring_material"]["e_gpa"] * 1000
+    p = g["worst_pressure_mpa"]
+    # Lamé, thick ring under external pressure (Roark's thick-walled cylinder table; from memory):
+    # Δd_i = −2 p d² d_i / (E (d² − d_i²)); brass ring Ø50/Ø54 at about 3 MPa shrinks about 22 µm
+    shrink_um = -2 * p * d * d * d_i / (e * (d * d - d_i * d_i)) * 1000
+    assert g["bore_change_um"] == pytest.approx(shrink_um, rel=1e-12)
+    assert -23.0 < shrink_um < -21.0
+    groove = resolved["ring.groove_inner_diameter"]
+    assert groove == pytest.approx(d_i - 2 * 0.1)  # the default radial clearance of a tenth
+    (c,) = [c for c in resolved.checks if c.name == "ring bore clears the groove's inner wall"]
+    assert c.ok and c.feature == "ring" and c.parameter == "groove_clearance"
+    # the bore at its lower limit (+0.1/0) shrunk, over the wall at its upper limit (0/−0.1): 0.2 mm − 22 µm
+    assert f"least clearance {200 + shrink_um:.1f} µm" in c.message
+    tight = _build(_with(BIMETAL, seat="face", hold_force="100 N", groove_clearance="0.005 mm"))
+    assert any(c.name == "ring bore clears the groove's inner wall" and c.parameter == "groove_clearance"
+               for c in tight.failed)  # 10 µm on the diameter is less than the shrink
+
+
+def test_face_seat_sheets_hold_the_groove_wall_clear() -> None:
+    resolved = _build(_with(BIMETAL, seat="face", hold_force="100 N"))
+    files = render_files(resolved, "t")
+    # one-sided limits away from each other: the ring's bore +0.1/0, the groove's inner wall 0/−0.1
+    assert "Ø50 +0.100/0" in _dim_texts(files["t-ring.dxf"])
+    assert "Ø49.8 0/-0.100" in _dim_texts(files["t.dxf"])
+    plain = render_files(_build(BIMETAL), "t")  # a cup-wall ring's bore is the cup's, free: no such limits
+    assert "+0.100/0" not in _dim_texts(plain["t-ring.dxf"]) and "0/-0.100" not in _dim_texts(plain["t.dxf"])
+
+
+def _dim_texts(data: bytes) -> str:
+    doc = ezdxf.read(io.StringIO(data.decode("utf-8")))
+    layouts = [doc.modelspace()] + [b for b in doc.blocks if not b.name.startswith("*")]
+    return " ".join(t.plain_text() for layout in layouts for dim in layout.query("DIMENSION")
+                    for t in dim.get_geometry_block().query("TEXT"))
+
+
 # ---------------------------------------------------------------- finishes and input
 
 

@@ -14,6 +14,11 @@ surfaces; hoop stress 2 p d²/(d_o² − d²) at the outer member's outside and 
 the inner member's bore (−p throughout a solid inner member). The ends are free (σ_z = 0), so the
 von Mises stress is √(σ_t² − σ_t σ_r + σ_r²).
 
+The pressure shrinks the inner member's bore: there σ_r = 0 and σ_z = 0, so Hooke's law gives the
+radial displacement u = a σ_t / E, and on the diameter Δd_i = −2 p d² d_i / (E_i (d² − d_i²))
+(Lamé's thick cylinder under external pressure, e.g. Roark's Formulas for Stress and Strain, the
+thick-walled cylinder table, Δa = −2 q b² a / (E (b² − a²))).
+
 The fit holds an axial force F = μ p π d L and a torque T = F d / 2 (ibid., sec. 3-16). A
 temperature T changes the diametral interference by d (α_i − α_o)(T − T_ref); heating the outer
 member by ΔT = (δ_max + c) / (α_o d), or cooling the inner member by (δ_max + c) / (α_i d), opens a
@@ -32,7 +37,7 @@ import math
 from dataclasses import dataclass
 
 __all__ = ["Member", "SurfaceStress", "FitStresses", "contact_pressure", "fit_stresses", "von_mises",
-           "thermal_change_mm", "assembly_delta_t_k", "holding_force_n", "holding_torque_n_mm", "REFERENCE_TEMPERATURE_C"]
+           "thermal_change_mm", "assembly_delta_t_k", "bore_change_mm", "holding_force_n", "holding_torque_n_mm", "REFERENCE_TEMPERATURE_C"]
 
 #: sizes and fits are stated at 20 °C  # ISO 1, standard reference temperature for geometrical product specification
 REFERENCE_TEMPERATURE_C = 20.0
@@ -123,6 +128,15 @@ def fit_stresses(pressure_mpa: float, inner: Member, outer: Member) -> FitStress
         outer_interface=SurfaceStress(p * (do2 + d2) / (do2 - d2), -p),
         outer_outside=SurfaceStress(2 * p * d2 / (do2 - d2), 0.0),
     )
+
+
+def bore_change_mm(pressure_mpa: float, inner: Member) -> float:
+    """Change of the inner member's bore diameter (mm, a shrink is negative) under a contact pressure at
+    its outside (Lamé, free ends); 0 for a solid member, which has no bore."""
+    if inner.inner_mm <= 0:
+        return 0.0
+    d2, di = inner.outer_mm**2, inner.inner_mm
+    return -2 * pressure_mpa * d2 * di / (inner.e_mpa * (d2 - di * di))
 
 
 def thermal_change_mm(interface_mm: float, inner: Member, outer: Member, temperature_c: float) -> float:

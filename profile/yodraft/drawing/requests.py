@@ -188,14 +188,20 @@ def ring_seat_requests(resolved: Resolved) -> list[DimensionRequest]:
     fit = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
     if fit is None or len(resolved.parts) < 2:
         return []
-    from .ring_sheet import seat_fit_text
+    from ..features.ring import GROOVE_WALL_LIMITS
+    from .ring_sheet import deviations, seat_fit_text
 
     v = resolved.values
     d, z0, face = fit.interface_mm, v["ring.seat_z"], v["rim.face_z"]
-    return [DimensionRequest(("ring.diameter",), "diameter", ((face, d / 2),), side="right", decimals=3,
-                             tolerance=seat_fit_text(fit)),
-            DimensionRequest(("ring.width",), "linear", ((z0, d / 2), (face, d / 2)), direction="axial",
-                             side="above")]
+    out = [DimensionRequest(("ring.diameter",), "diameter", ((face, d / 2),), side="right", decimals=3,
+                            tolerance=seat_fit_text(fit)),
+           DimensionRequest(("ring.width",), "linear", ((z0, d / 2), (face, d / 2)), direction="axial",
+                            side="above")]
+    if fit.seat == "face":  # the groove's inner wall stands clear of the ring's bore, which the press shrinks
+        g = v["ring.groove_inner_diameter"]
+        out.append(DimensionRequest(("ring.groove_inner_diameter",), "diameter", ((face, g / 2),), side="left",
+                                    decimals=3, tolerance=deviations(GROOVE_WALL_LIMITS)))
+    return out
 
 
 def _seat_requests(resolved: Resolved) -> list[DimensionRequest]:

@@ -10,6 +10,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from ..builder import Resolved
+from ..features.ring import BORE_LIMITS
 from ..geometry import Arc, Profile
 from ..tolerances.iso286 import Limits
 from .chain import settle
@@ -108,7 +109,8 @@ def ring_requests(profile: Profile, fit) -> list[DimensionRequest]:  # type: ign
         DimensionRequest(("ring.diameter",), "diameter", (on_radius(profile, fit_r),), decimals=3,
                          side="right", tolerance=ring_fit_text(fit)),
         DimensionRequest(("ring.ring_inner_diameter" if other_r == r_in else "ring.ring_outer_diameter",),
-                         "diameter", (on_radius(profile, other_r, prefer="min"),), side="left", decimals=3),
+                         "diameter", (on_radius(profile, other_r, prefer="min"),), side="left", decimals=3,
+                         tolerance=deviations(BORE_LIMITS) if fit.seat == "face" else ""),
         DimensionRequest(("ring.width",), "linear", (corner(profile, (z0, fit_r)), corner(profile, (z1, fit_r))),
                          view="detail", direction="axial", side="above"),
         DimensionRequest(("ring.thickness",), "linear", (corner(profile, (z1, r_in)), corner(profile, (z1, r_out))),

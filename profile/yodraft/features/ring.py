@@ -22,8 +22,8 @@ from ..catalog.materials import MATERIALS, Material, lookup_material
 from ..checks import Check, check
 from ..errors import DesignInputError
 from ..params import ParamSpec, check_name
-from ..pressfit import (REFERENCE_TEMPERATURE_C, FitStresses, Member, assembly_delta_t_k, contact_pressure,
-                        fit_stresses, holding_force_n, holding_torque_n_mm, thermal_change_mm)
+from ..pressfit import (REFERENCE_TEMPERATURE_C, FitStresses, Member, assembly_delta_t_k, bore_change_mm,
+                        contact_pressure, fit_stresses, holding_force_n, holding_torque_n_mm, thermal_change_mm)
 from ..tolerances.iso286 import Fit, FitCodeError, Limits, hole_basis_split, parse_fit
 from .base import Context, FeatureResult, PartOutline, SeatCut, V, pick
 
@@ -42,6 +42,9 @@ PARAMS = (
     ParamSpec("width", "length", "axial length of the ring, the depth of its seat", 3.0, 0.0, 60.0),
     ParamSpec("edge_radius", "length", "radius of the ring's exposed edge at the face; default the rim's radius there "
               "(the cup lip's for a cup-wall seat, the outer edge's on the outer diameter)", None, 0.0, 20.0, lo_closed=True),
+    # a free groove wall a tenth clear of the ring  # common practice, no published source
+    ParamSpec("groove_clearance", "length", "radial clearance between the ring's bore and the groove's inner wall "
+              "(face seat)", 0.1, 0.0, 5.0, lo_closed=True),
     ParamSpec("fit", "text", 'ISO 286 hole/shaft classes of the fit at the interface diameter, e.g. "H7/s6"',
               "H7/s6", max_length=12),
     ParamSpec("interference_min", "length", "explicit least diametral interference (with interference_max, "
@@ -72,6 +75,13 @@ PARAMS = (
 )
 
 
+#: The face seat's two free diameters carry one-sided limits (µm) away from each other on the sheets, so the
+#: groove's inner wall never stands over the ring's bore, which the press shrinks; a tenth is an easy band
+#: for a turned diameter  # common practice, no published source
+BORE_LIMITS = Limits(100.0, 0.0)  # the ring's bore, on the ring's sheet
+GROOVE_WALL_LIMITS = Limits(0.0, -100.0)  # the groove's inner wall, on the half's sheet
+
+
 @dataclass(frozen=True)
 class RingFit:
     """The ring's press fit, worked out: geometry, interference, pressure, stresses, hold and assembly."""
@@ -93,6 +103,7 @@ class RingFit:
     interference_cold_um: tuple[float, float]
     contact_pressure_mpa: tuple[float, float]
     worst: FitStresses
+    bore_change_um: float
     body_von_mises_mpa: float
     ring_von_mises_mpa: float
     hoop_stress_body_mpa: float
@@ -196,11 +207,11 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         ring = (V(z0, ring_d[0]), V(face_z, ring_d[0]),
                 V(face_z, ring_d[1], edge, f"{NAME}.edge_radius"), V(z0, ring_d[1]))
     else:
-        checks.append(check("ring groove in the face", f"{NAME}.diameter", cup_d < ring_d[0] and d < D,
-                            f"groove Ø{ring_d[0]:.3f} to Ø{d:.3f} mm between cup Ø{cup_d:.3f} and rim Ø{D:.3f} mm"))
-        cut = SeatCut((face_z, ring_d[0] / 2), (V(face_z, ring_d[0] / 2), V(z0, ring_d[0] / 2), V(z0, d / 2),
-                                                V(face_z, d / 2)), "edge", f"{NAME}.seat",
-                      ((z0, ring_d[0] / 2), (z0, d / 2)), f"{NAME}.width")
+        g = ring_d[0] - 2 * p["groove_clearance"]  # the groove's inner wall, clear of the ring's bore
+        checks.append(check("ring groove in the face", f"{NAME}.diameter", cup_d < g and d < D,
+                            f"groove Ø{g:.3f} to Ø{d:.3f} mm between cup Ø{cup_d:.3f} and rim Ø{D:.3f} mm"))
+        cut = SeatCut((face_z, g / 2), (V(face_z, g / 2), V(z0, g / 2), V(z0, d / 2), V(face_z, d / 2)), "edge",
+                      f"{NAME}.seat", ((z0, g / 2), (z0, d / 2)), f"{NAME}.width")
         ring = (V(z0, ring_d[0]), V(face_z, ring_d[0]), V(face_z, ring_d[1]), V(z0, ring_d[1]))
     ring = tuple(V(c.point[0], c.point[1] / 2, c.radius, c.owner) for c in ring)  # diameters to radii
     material = lookup_material(p["material"])
@@ -208,6 +219,8 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
                             "ring_inner_diameter": ring_d[0], "ring_outer_diameter": ring_d[1],
                             "body_inner_diameter": body_d[0], "body_outer_diameter": body_d[1], "seat_z": z0,
                             "edge_radius": edge}
+    if seat == "face":
+        dims["groove_inner_diameter"] = ring_d[0] - 2 * p["groove_clearance"]
     geometry_ok = all(c.ok for c in checks) and 0 <= ring_d[0] and 0 <= body_d[0]
     extra: dict[str, Any] = {}
     if geometry_ok:
@@ -215,6 +228,8 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         ring_fit, fit_checks = _press_fit(ctx, p, seat, material, body, d, ring_d, body_d, ring_is_inner)
         checks += fit_checks
         extra["press_fit"] = ring_fit
+        if seat == "face":
+            checks.append(_groove_wall_check(ring_fit, dims["groove_inner_diameter"]))
     outline = PartOutline(NAME, material.name, material.density_g_cm3, ring, p["coating"])
     return FeatureResult(NAME, dims, frozenset(derived), {}, tuple(checks), extra, (outline,), (cut,))
 
@@ -261,7 +276,9 @@ def _press_fit(ctx: Context, p: Mapping[str, Any], seat: str, material: Material
         ring_diameters_mm=ring_d, body_diameters_mm=body_d, ring_is_inner=ring_is_inner, length_mm=p["width"],
         interference_um=(lo_um, hi_um), coating_growth_um=1000 * growth,
         interference_hot_um=(lo_um + hot, hi_um + hot), interference_cold_um=(lo_um + cold, hi_um + cold),
-        contact_pressure_mpa=pressure, worst=worst, body_von_mises_mpa=body_s.von_mises_mpa,
+        contact_pressure_mpa=pressure, worst=worst,
+        bore_change_um=1000 * bore_change_mm(worst.pressure_mpa, ring_m) if ring_is_inner else 0.0,
+        body_von_mises_mpa=body_s.von_mises_mpa,
         ring_von_mises_mpa=ring_s.von_mises_mpa,
         hoop_stress_body_mpa=max((s.hoop_mpa for s in body_hoop), key=abs),
         hoop_stress_ring_mpa=max((s.hoop_mpa for s in ring_hoop), key=abs),
@@ -293,6 +310,22 @@ def _press_fit(ctx: Context, p: Mapping[str, Any], seat: str, material: Material
     return result, checks
 
 
+def groove_wall_clearance_mm(fit: RingFit, groove_mm: float) -> float:
+    """Least diametral clearance (mm) between a face-seat ring's bore and the groove's inner wall: the bore
+    at its lower limit (``BORE_LIMITS``), shrunk by the pressure of the largest interference
+    (``fit.bore_change_um``), over the wall at its upper limit (``GROOVE_WALL_LIMITS``)."""
+    bore = fit.ring_diameters_mm[0] + (BORE_LIMITS.lower_um + fit.bore_change_um) / 1000
+    return bore - (groove_mm + GROOVE_WALL_LIMITS.upper_um / 1000)
+
+
+def _groove_wall_check(fit: RingFit, groove_mm: float) -> Check:
+    least = groove_wall_clearance_mm(fit, groove_mm)
+    return check("ring bore clears the groove's inner wall", f"{NAME}.groove_clearance", least > 0,
+                 f"ring bore Ø{fit.ring_diameters_mm[0]:.3f} at least, shrunk {-fit.bore_change_um:.1f} µm when "
+                 f"pressed, over the groove's inner wall Ø{groove_mm:.3f} at most: least clearance "
+                 f"{least * 1000:.1f} µm on the diameter")
+
+
 def _finite(x: float) -> float | None:
     return x if math.isfinite(x) else None  # no stress at all: JSON has no infinity
 
@@ -313,6 +346,7 @@ def ring_summary(fit: RingFit) -> dict[str, Any]:
         "interference_hot_um": list(fit.interference_hot_um), "interference_cold_um": list(fit.interference_cold_um),
         "hot_c": fit.hot_c, "cold_c": fit.cold_c,
         "contact_pressure_mpa": list(fit.contact_pressure_mpa), "worst_pressure_mpa": fit.worst.pressure_mpa,
+        "bore_change_um": fit.bore_change_um,
         "hoop_stress_body_mpa": fit.hoop_stress_body_mpa, "hoop_stress_ring_mpa": fit.hoop_stress_ring_mpa,
         "von_mises_body_mpa": fit.body_von_mises_mpa, "von_mises_ring_mpa": fit.ring_von_mises_mpa,
         "safety_factor": _finite(fit.safety_factor), "safety_factor_body": _finite(fit.safety_factor_body),
