@@ -316,6 +316,17 @@ def test_ring_sheet_names_material_assembly_and_caution() -> None:
     assert "Ring: see ring sheet; interference 0.050…0.080" in _sheet_words(files["t.dxf"])
 
 
+def test_ring_on_the_outer_diameter_is_finish_turned_with_the_body() -> None:
+    # the ring's outside is the rim diameter: turned once over both parts after pressing, so it runs true
+    # with the body and no step is left at the joint  # common practice, no published source
+    files = render_files(_build(_with(BIMETAL, seat="outer diameter", hold_force="100 N")), "t")
+    assert "Rim Ø56 finish-turned over ring and body after the ring is pressed" in _sheet_words(files["t.dxf"])
+    assert ("Outside Ø56 is the rim diameter: finish-turned with the body after pressing (sheet LTC-0156)"
+            in _sheet_words(files["t-ring.dxf"]))
+    plain = render_files(_build(BIMETAL), "t")  # in the cup wall the ring's outside is inside the body
+    assert "finish-turned" not in _sheet_words(plain["t.dxf"]) + _sheet_words(plain["t-ring.dxf"])
+
+
 def test_ring_pdf_is_one_vector_page() -> None:
     files = render_files(_build(BIMETAL), "t")
     pdf = files["t-ring.pdf"]

@@ -87,7 +87,8 @@ def ring_note_lines(fit, body_sheet: str = "") -> list[str]:  # type: ignore[no-
         f"   holds {fit.hold_force_n:.0f} N axially and {fit.hold_torque_n_mm / 1000:.1f} N·m (friction {fit.friction:g})",
         f"Assembly: {fit.heated_or_cooled()} by ΔT {fit.assembly_delta_t_k:.0f} K, press home against the seat "
         "bottom, flush with the face; fit surfaces clean and dry",
-    ]
+    ] + ([f"Outside Ø{size_text(fit.ring_diameters_mm[1])} is the rim diameter: finish-turned with the body after "
+          f"pressing{where}; leave stock on it here"] if fit.seat == "outer diameter" else [])
 
 
 def _material_line(m) -> str:  # type: ignore[no-untyped-def]
