@@ -327,6 +327,20 @@ def test_ring_on_the_outer_diameter_is_finish_turned_with_the_body() -> None:
     assert "finish-turned" not in _sheet_words(plain["t.dxf"]) + _sheet_words(plain["t-ring.dxf"])
 
 
+@pytest.mark.parametrize("general, width_text", [
+    # ISO 2768-1 table 1, 3–6 mm step: m ±0.1, f ±0.05 (from memory). The seat is 5 mm deep under it, so the
+    # ring is turned from the seat's deepest (lower deviation) to a tenth more (the facing band), never below
+    ("ISO 2768-m", "5 +0.200/+0.100"),
+    ("ISO 2768-f", "5 +0.150/+0.050"),
+])
+def test_ring_is_turned_proud_and_faced_flush(general: str, width_text: str) -> None:
+    text = set_key(BIMETAL, "shop", "general_tolerance", general)
+    files = render_files(_build(text), "t")
+    assert width_text in _dim_texts(files["t-ring.dxf"])
+    assert "then face the ring flush with the face" in _sheet_words(files["t-ring.dxf"])
+    assert "faced flush with the face after pressing" in _sheet_words(files["t.dxf"])
+
+
 def test_ring_pdf_is_one_vector_page() -> None:
     files = render_files(_build(BIMETAL), "t")
     pdf = files["t-ring.pdf"]

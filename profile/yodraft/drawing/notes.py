@@ -93,7 +93,8 @@ def fit_lines(resolved: Resolved) -> list[str]:
     if ring is not None and len(resolved.parts) > 1:
         lo, hi = ring.interference_um
         out.append(f"Ring: see ring sheet; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
-                   f"{ring.heated_or_cooled()} by ΔT {ring.assembly_delta_t_k:.0f} K")
+                   f"{ring.heated_or_cooled()} by ΔT {ring.assembly_delta_t_k:.0f} K; faced flush with the face "
+                   "after pressing")
         if ring.seat == "outer diameter":  # the ring's outside is the rim: one cut over both parts makes it true
             out.append(f"Rim Ø{size_text(ring.ring_diameters_mm[1])} finish-turned over ring and body after the "
                        "ring is pressed")

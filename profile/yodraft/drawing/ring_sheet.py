@@ -10,7 +10,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from ..builder import Resolved
-from ..features.ring import BORE_LIMITS
+from ..features.ring import BORE_LIMITS, width_limits
 from ..geometry import Arc, Profile
 from ..tolerances.iso286 import Limits
 from .chain import settle
@@ -86,7 +86,7 @@ def ring_note_lines(fit, body_sheet: str = "") -> list[str]:  # type: ignore[no-
         f"at least {fit.safety_factor:.2f} (Lamé)",
         f"   holds {fit.hold_force_n:.0f} N axially and {fit.hold_torque_n_mm / 1000:.1f} N·m (friction {fit.friction:g})",
         f"Assembly: {fit.heated_or_cooled()} by ΔT {fit.assembly_delta_t_k:.0f} K, press home against the seat "
-        "bottom, flush with the face; fit surfaces clean and dry",
+        "bottom; fit surfaces clean and dry; then face the ring flush with the face",
     ] + ([f"Outside Ø{size_text(fit.ring_diameters_mm[1])} is the rim diameter: finish-turned with the body after "
           f"pressing{where}; leave stock on it here"] if fit.seat == "outer diameter" else [])
 
@@ -98,10 +98,11 @@ def _material_line(m) -> str:  # type: ignore[no-untyped-def]
     return f"Material {m.name}"
 
 
-def ring_requests(profile: Profile, fit) -> list[DimensionRequest]:  # type: ignore[no-untyped-def]
+def ring_requests(profile: Profile, fit, general: str = "") -> list[DimensionRequest]:  # type: ignore[no-untyped-def]
     """The ring's dimensions, settled into one chain from its outer face and the axis: the fit diameter
-    with its limits and the other diameter (the section), the width from the outer face and each edge
-    radius (the detail); the radial thickness follows from the diameters (auxiliary)."""
+    with its limits and the other diameter (the section), the width from the outer face with its facing
+    stock over the seat's depth under the general tolerance ``general`` (``ring.width_limits``), and each
+    edge radius (the detail); the radial thickness follows from the diameters (auxiliary)."""
     z0, _, z1, _ = profile.bounds()
     r_in, r_out = fit.ring_diameters_mm[0] / 2, fit.ring_diameters_mm[1] / 2
     fit_r = fit.interface_mm / 2
@@ -113,7 +114,8 @@ def ring_requests(profile: Profile, fit) -> list[DimensionRequest]:  # type: ign
                          "diameter", (on_radius(profile, other_r, prefer="min"),), side="left", decimals=3,
                          tolerance=deviations(BORE_LIMITS) if fit.seat == "face" else ""),
         DimensionRequest(("ring.width",), "linear", (corner(profile, (z0, fit_r)), corner(profile, (z1, fit_r))),
-                         view="detail", direction="axial", side="above"),
+                         view="detail", direction="axial", side="above",
+                         tolerance=deviations(width_limits(general, fit.length_mm)) if general else ""),
         DimensionRequest(("ring.thickness",), "linear", (corner(profile, (z1, r_in)), corner(profile, (z1, r_out))),
                          view="detail", direction="radial", side="right"),
     ]
@@ -250,7 +252,7 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     paper = PAPERS["A3"]
     frame = frame_of(paper)
     mid_x = frame[0] + 0.5 * (frame[2] - frame[0])
-    requests = ring_requests(part.profile, fit)
+    requests = ring_requests(part.profile, fit, d["shop"]["general_tolerance"])
     try:
         items, sview, dview, scale, dscale = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]), False)
     except _NoRoom:

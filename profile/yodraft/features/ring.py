@@ -24,6 +24,7 @@ from ..errors import DesignInputError
 from ..params import ParamSpec, check_name
 from ..pressfit import (REFERENCE_TEMPERATURE_C, FitStresses, Member, assembly_delta_t_k, bore_change_mm,
                         contact_pressure, fit_stresses, holding_force_n, holding_torque_n_mm, thermal_change_mm)
+from ..tolerances.general import general_tolerance_mm
 from ..tolerances.iso286 import Fit, FitCodeError, Limits, hole_basis_split, parse_fit
 from .base import Context, FeatureResult, PartOutline, SeatCut, V, pick
 
@@ -80,6 +81,19 @@ PARAMS = (
 #: for a turned diameter  # common practice, no published source
 BORE_LIMITS = Limits(100.0, 0.0)  # the ring's bore, on the ring's sheet
 GROOVE_WALL_LIMITS = Limits(0.0, -100.0)  # the groove's inner wall, on the half's sheet
+
+
+#: The ring is turned wider than its seat is deep and faced flush with the face after pressing: its width's
+#: lower deviation is the seat depth's general tolerance (so it never sits below the face), its band this
+#: much  # common practice, no published source
+FACING_BAND_MM = 0.1
+
+
+def width_limits(general: str, depth_mm: float) -> Limits:
+    """Deviations (µm) of the ring's width as turned, from the seat's depth under the general tolerance
+    ``general`` (ISO 2768-1): it stands 0 to ``2 t + FACING_BAND_MM`` proud of the face once pressed home."""
+    lower = 1000 * (general_tolerance_mm(general, depth_mm) or 0.0)
+    return Limits(lower + 1000 * FACING_BAND_MM, lower)
 
 
 @dataclass(frozen=True)
