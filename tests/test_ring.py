@@ -313,7 +313,7 @@ def test_ring_sheet_names_material_assembly_and_caution() -> None:
     assert f"heat the body by ΔT {g['assembly_delta_t_k']:.0f} K" in words
     assert "qualified practice" in words and "press a trial ring first" in words
     assert "interference 0.050…0.080 at 20 °C" in words
-    assert "Ring: see ring sheet; interference 0.050…0.080" in _sheet_words(files["t.dxf"])
+    assert "Ring: see sheet 2/2; interference 0.050…0.080" in _sheet_words(files["t.dxf"])
 
 
 def test_ring_on_the_outer_diameter_is_finish_turned_with_the_body() -> None:
@@ -321,7 +321,7 @@ def test_ring_on_the_outer_diameter_is_finish_turned_with_the_body() -> None:
     # with the body and no step is left at the joint  # common practice, no published source
     files = render_files(_build(_with(BIMETAL, seat="outer diameter", hold_force="100 N")), "t")
     assert "Rim Ø56 finish-turned over ring and body after the ring is pressed" in _sheet_words(files["t.dxf"])
-    assert ("Outside Ø56 is the rim diameter: finish-turned with the body after pressing (sheet LTC-0156)"
+    assert ("Outside Ø56 is the rim diameter: finish-turned with the body after pressing (LTC-0156 sheet 1/2)"
             in _sheet_words(files["t-ring.dxf"]))
     plain = render_files(_build(BIMETAL), "t")  # in the cup wall the ring's outside is inside the body
     assert "finish-turned" not in _sheet_words(plain["t.dxf"]) + _sheet_words(plain["t-ring.dxf"])
@@ -360,3 +360,11 @@ def test_check_text_shows_the_ring() -> None:
     assert f"safety factor {g['safety_factor']:.2f}" in text
     assert f"heat the body by ΔT {g['assembly_delta_t_k']:.0f} K" in text
     assert "safety factor" not in check_text(_build(_with(BIMETAL, seat="none")))
+
+
+def test_the_ring_is_sheet_two_of_the_halfs_drawing() -> None:
+    """One identification number, two sheets: the title blocks count them and the fit note names the other."""
+    files = render_files(_build(BIMETAL), "t")
+    body, ring = _sheet_words(files["t.dxf"]), _sheet_words(files["t-ring.dxf"])
+    assert "1/2" in body and "see sheet 2/2" in body and "2/2" in ring and "(LTC-0156 sheet 1/2)" in ring
+    assert "1/1" in _sheet_words(render_files(yodraft.build(yodraft.load(TEMPLATES / "string-trick.toml")), "s")["s.dxf"])

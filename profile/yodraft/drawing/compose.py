@@ -512,7 +512,7 @@ def _title_block(font: Lettering, resolved: Resolved, data: SheetData, scales: s
         ("Legal owner", d["owner"], 0, 60, 2),
         ("Document type", "Detail drawing", 60, 45, 2),
         ("Revision", resolved.design.revision, 105, 25, 2),
-        ("Sheet", "1/1", 130, 20, 2),
+        ("Sheet", f"1/{max(1, len(resolved.parts))}", 130, 20, 2),  # the half, then a sheet for each ring
         ("Units", "mm", 150, 30, 2),
         ("Created by", d["creator"], 0, 40, 1),
         ("Approved by", d["approver"], 40, 40, 1),

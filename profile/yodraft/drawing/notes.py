@@ -92,7 +92,7 @@ def fit_lines(resolved: Resolved) -> list[str]:
     ring = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
     if ring is not None and len(resolved.parts) > 1:
         lo, hi = ring.interference_um
-        out.append(f"Ring: see ring sheet; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
+        out.append(f"Ring: see sheet 2/{len(resolved.parts)}; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
                    f"{ring.heated_or_cooled()} by ΔT {ring.assembly_delta_t_k:.0f} K; faced flush with the face "
                    "after pressing")
         if ring.seat == "outer diameter":  # the ring's outside is the rim: one cut over both parts makes it true

@@ -73,7 +73,7 @@ def ring_note_lines(fit, body_sheet: str = "") -> list[str]:  # type: ignore[no-
     stresses, hold, and how it is assembled (the temperature difference the check reports)."""
     lo, hi = fit.interference_um
     code = "" if fit.fit is None else " " + fit.fit_text.split(" ", 1)[1]
-    where = f" (sheet {body_sheet})" if body_sheet else ""
+    where = f" ({body_sheet})" if body_sheet else ""
     growth = f", {fit.coating_growth_um:.1f} µm of it coating growth" if fit.coating_growth_um else ""
     return [
         f"Fit{code}: ring {_sized(fit, fit.ring_limits)} in the {fit.body_material.name} body's seat "
@@ -242,7 +242,7 @@ def _arrange(font: Lettering, left, section: _Group, sview: View, detail: _Group
 
 def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_sheet: str = "") -> Sheet:
     """The ring's sheet on A3: its section and detail in the left half, the words in the right half.
-    ``body_sheet`` names the half's sheet (its identification number) in the fit note."""
+    ``body_sheet`` names the half's sheet (by default its identification number and "sheet 1/N") in the fit note."""
     from ..massprops import body_props
 
     font = lettering()
@@ -260,8 +260,8 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     right_x = mid_x + GAP
     rev = _revision_block(font, resolved, (right_x, frame[3]), frame[2] - right_x)
     items += rev
-    notes = [_material_line(fit.material)] + ring_note_lines(fit, body_sheet or d["design"]["identification"]
-                                                              or d.name) + [
+    body_sheet = body_sheet or f"{d['design']['identification'] or d.name} sheet 1/{len(resolved.parts)}"
+    notes = [_material_line(fit.material)] + ring_note_lines(fit, body_sheet) + [
         f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
         f"fit surface Ra 0.8 µm",
         f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
@@ -276,7 +276,8 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     items += caution_items
     mass = body_props(part.profile, part.density_g_cm3).mass_g
     overrides = {"Title": ("Title", f"{d['design']['title'] or d.name}: {name}"),
-                 "Material": ("Material", part.material), "Mass (one half)": (f"Mass (one {name})", f"{mass:.2f} g")}
+                 "Material": ("Material", part.material),
+                 "Sheet": ("Sheet", f"{[p.name for p in resolved.parts].index(name) + 1}/{len(resolved.parts)}"), "Mass (one half)": (f"Mass (one {name})", f"{mass:.2f} g")}
     items += _title_block(font, resolved, replace(data, half_mass_g=mass),
                           f"{scale_text(scale)}, detail {DETAIL_LETTER} {scale_text(dscale)}",
                           (frame[2] - TITLE_WIDTH, frame[1]), overrides)
