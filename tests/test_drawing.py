@@ -470,3 +470,21 @@ def test_pdf_is_one_vector_page_with_the_font_embedded(files):
     assert (round(box[2] / PT), round(box[3] / PT)) in {(420, 297), (594, 420)}  # ISO 216 A3 / A2
     assert b"/FontFile2" in pdf  # an embedded TrueType font (ISO 32000-1, 9.9)
     assert b"/Subtype /Image" not in pdf  # vector only
+
+
+@pytest.mark.parametrize("template", ["string-trick", "bimetal-ring"])
+def test_cam_profiles_open_on_their_loop(template: str) -> None:
+    """A CAM profile opens on model space, zoomed to the loop: finite extents that hold every vertex, no layout
+    left under ezdxf's default name, a clean audit."""
+    files = render_files(build(load(ROOT / "templates" / f"{template}.toml")), "t")
+    profiles = [name for name in files if name.endswith("profile.dxf")]
+    assert len(profiles) == (2 if template == "bimetal-ring" else 1)
+    for name in profiles:
+        doc = ezdxf.read(io.StringIO(files[name].decode("utf-8")))
+        assert not doc.audit().has_errors
+        assert doc.layouts.names() == ["Model", "profile"] and doc.header["$TILEMODE"] == 1
+        lo, hi = Vec3(doc.header["$EXTMIN"]), Vec3(doc.header["$EXTMAX"])
+        assert all(abs(c) < 1e3 for c in (*lo, *hi))
+        (poly,) = doc.modelspace().query("LWPOLYLINE")
+        for x, y, *_ in poly.get_points():
+            assert lo.x - 1e-9 <= x <= hi.x + 1e-9 and lo.y - 1e-9 <= y <= hi.y + 1e-9

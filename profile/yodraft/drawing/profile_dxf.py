@@ -7,6 +7,7 @@ from __future__ import annotations
 from ezdxf.document import Drawing
 
 from ..builder import Resolved
+from ..geometry import Profile
 from .outline import add_loop, new_document
 from .requests import datum_face_z
 
@@ -19,7 +20,7 @@ def profile_document(resolved: Resolved) -> Drawing:
     doc = new_document(d["design"]["date"], f"{d.name}-{d.revision}:profile")
     doc.layers.add("outline", color=7, lineweight=50)
     assert resolved.profile is not None
-    add_loop(doc.modelspace(), resolved.profile, "outline", dz=-datum_face_z(resolved))
+    _loop_alone(doc, resolved.profile, -datum_face_z(resolved))
     return doc
 
 
@@ -30,5 +31,19 @@ def part_profile_document(resolved: Resolved, name: str) -> Drawing:
     part = next(p for p in resolved.parts if p.name == name)
     doc = new_document(d["design"]["date"], f"{d.name}-{d.revision}:{name}-profile")
     doc.layers.add("outline", color=7, lineweight=50)
-    add_loop(doc.modelspace(), part.profile, "outline", dz=-datum_face_z(resolved))
+    _loop_alone(doc, part.profile, -datum_face_z(resolved))
     return doc
+
+
+def _loop_alone(doc: Drawing, profile: Profile, dz: float) -> None:
+    """The loop in model space, which the file opens on, zoomed to it; finite extents; the one (empty) paper
+    layout that a DXF must hold named for what the file is, not left as ezdxf's default."""
+    msp = doc.modelspace()
+    add_loop(msp, profile, "outline", dz=dz)
+    z0, r0, z1, r1 = profile.bounds()
+    lo, hi = (z0 + dz, r0), (z1 + dz, r1)
+    msp.dxf.extmin, msp.dxf.extmax = (*lo, 0.0), (*hi, 0.0)
+    msp.dxf.limmin, msp.dxf.limmax = lo, hi
+    doc.header["$TILEMODE"] = 1
+    doc.set_modelspace_vport(height=(hi[1] - lo[1]) * 1.1, center=((lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2))
+    doc.layouts.rename("Layout1", "profile")
