@@ -18,7 +18,7 @@ from ..geometry import Arc, Line, Profile
 from .clip import clip_segments
 from .layout import CLEAR, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
-from .notes import SheetData, caution_lines, fit_lines, numbered, shop_lines
+from .notes import SheetData, caution_lines, fit_lines, numbered, sheet_number, shop_lines
 from .requests import DATUM_A_KEY, datum_face_z, detail_region, detail_requests, section_requests
 from .sheetdata import (Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View, segments_of, text_box,
                         translate)
@@ -512,7 +512,7 @@ def _title_block(font: Lettering, resolved: Resolved, data: SheetData, scales: s
         ("Legal owner", d["owner"], 0, 60, 2),
         ("Document type", "Detail drawing", 60, 45, 2),
         ("Revision", resolved.design.revision, 105, 25, 2),
-        ("Sheet", f"1/{max(1, len(resolved.parts))}", 130, 20, 2),  # the half, then a sheet for each ring
+        ("Sheet", sheet_number(resolved), 130, 20, 2),
         ("Units", "mm", 150, 30, 2),
         ("Created by", d["creator"], 0, 40, 1),
         ("Approved by", d["approver"], 40, 40, 1),

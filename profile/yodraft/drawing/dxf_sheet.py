@@ -18,7 +18,7 @@ from ezdxf.math import Vec2
 from ..builder import Resolved
 from . import layers
 from .layers import APPID, DIMSTYLE, TEXT_STYLE
-from .outline import new_document
+from .outline import model_extents, new_document
 from .sheetdata import Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View
 
 __all__ = ["sheet_document", "LAYOUT_NAME", "DETAIL_BLOCK", "dxf_text"]
@@ -201,12 +201,7 @@ def _extents(doc: Drawing, sheet: Sheet) -> None:
     main = sheet.view("main")
     lo = main.to_model(main.box[:2])
     hi = main.to_model(main.box[2:])
-    # ezdxf copies the layouts' own extents and limits into the header when it writes
-    msp = doc.modelspace()
-    msp.dxf.extmin = (lo[0], lo[1], 0.0)
-    msp.dxf.extmax = (hi[0], hi[1], 0.0)
-    msp.dxf.limmin = (lo[0], lo[1])
-    msp.dxf.limmax = (hi[0], hi[1])
+    model_extents(doc, (lo[0], lo[1]), (hi[0], hi[1]))
     doc.header["$TILEMODE"] = 0  # open on the sheet
     try:
         doc.set_modelspace_vport(height=hi[1] - lo[1], center=((lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2))

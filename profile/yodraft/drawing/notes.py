@@ -11,8 +11,15 @@ from ..tolerances.seat import DiameterFit
 from ..units import MM_PER_INCH as IN
 from .numbers import deviation_text, limits_um, size_text
 
-__all__ = ["SheetData", "fit_lines", "shop_lines", "caution_lines", "numbered", "seat_corner_passing_mm",
+__all__ = ["SheetData", "fit_lines", "shop_lines", "caution_lines", "numbered", "sheet_number", "seat_corner_passing_mm",
            "thread_designation", "IN"]
+
+
+def sheet_number(resolved: Resolved, part: str = "") -> str:
+    """The sheet ``part`` (a ring's name; the half's when empty) is in the half's drawing: the half is sheet 1,
+    then one sheet for each further part, e.g. ``"2/2"``."""
+    names = [p.name for p in resolved.parts[1:]]
+    return f"{names.index(part) + 2 if part else 1}/{len(names) + 1}"
 
 
 @dataclass(frozen=True)
@@ -92,7 +99,8 @@ def fit_lines(resolved: Resolved) -> list[str]:
     ring = resolved.features["ring"].extra.get("press_fit") if "ring" in resolved.features else None
     if ring is not None and len(resolved.parts) > 1:
         lo, hi = ring.interference_um
-        out.append(f"Ring: see sheet 2/{len(resolved.parts)}; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
+        sheet = sheet_number(resolved, resolved.parts[1].name)
+        out.append(f"Ring: see sheet {sheet}; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
                    f"{ring.heated_or_cooled()} by ΔT {ring.assembly_delta_t_k:.0f} K; faced flush with the face "
                    "after pressing")
         if ring.seat == "outer diameter":  # the ring's outside is the rim: one cut over both parts makes it true

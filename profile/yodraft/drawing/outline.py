@@ -47,6 +47,13 @@ def new_document(date: str, identity: str) -> Drawing:
     return doc
 
 
+def model_extents(doc: Drawing, lo: tuple[float, float], hi: tuple[float, float]) -> None:
+    """Model space's extents and limits (ezdxf copies them into the header when it writes)."""
+    msp = doc.modelspace()
+    msp.dxf.extmin, msp.dxf.extmax = (*lo, 0.0), (*hi, 0.0)
+    msp.dxf.limmin, msp.dxf.limmax = lo, hi
+
+
 def add_loop(layout: BaseLayout, profile: Profile, layer: str, dz: float = 0.0) -> None:
     """A closed LWPOLYLINE of the loop (x = z + dz, y = r), arcs as bulges."""
     points = []

@@ -8,7 +8,7 @@ from ezdxf.document import Drawing
 
 from ..builder import Resolved
 from ..geometry import Profile
-from .outline import add_loop, new_document
+from .outline import add_loop, model_extents, new_document
 from .requests import datum_face_z
 
 __all__ = ["profile_document", "part_profile_document"]
@@ -38,12 +38,10 @@ def part_profile_document(resolved: Resolved, name: str) -> Drawing:
 def _loop_alone(doc: Drawing, profile: Profile, dz: float) -> None:
     """The loop in model space, which the file opens on, zoomed to it; finite extents; the one (empty) paper
     layout that a DXF must hold named for what the file is, not left as ezdxf's default."""
-    msp = doc.modelspace()
-    add_loop(msp, profile, "outline", dz=dz)
+    add_loop(doc.modelspace(), profile, "outline", dz=dz)
     z0, r0, z1, r1 = profile.bounds()
     lo, hi = (z0 + dz, r0), (z1 + dz, r1)
-    msp.dxf.extmin, msp.dxf.extmax = (*lo, 0.0), (*hi, 0.0)
-    msp.dxf.limmin, msp.dxf.limmax = lo, hi
+    model_extents(doc, lo, hi)
     doc.header["$TILEMODE"] = 1
     doc.set_modelspace_vport(height=(hi[1] - lo[1]) * 1.1, center=((lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2))
     doc.layouts.rename("Layout1", "profile")

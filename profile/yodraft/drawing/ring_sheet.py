@@ -20,7 +20,7 @@ from .compose import (DETAIL_SCALES, GAP, PAD, PAPERS, PART_HATCH, TITLE_WIDTH, 
 from .layout import TEXT_HEIGHT, Placer
 from .lettering import Lettering, lettering
 from .locate import corner, on_radius
-from .notes import SheetData, caution_lines
+from .notes import SheetData, caution_lines, sheet_number
 from .numbers import size_text
 from .requests import DimensionRequest
 from .sheetdata import Item, Sheet, Stroke, View
@@ -260,7 +260,7 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     right_x = mid_x + GAP
     rev = _revision_block(font, resolved, (right_x, frame[3]), frame[2] - right_x)
     items += rev
-    body_sheet = body_sheet or f"{d['design']['identification'] or d.name} sheet 1/{len(resolved.parts)}"
+    body_sheet = body_sheet or f"{d['design']['identification'] or d.name} sheet {sheet_number(resolved)}"
     notes = [_material_line(fit.material)] + ring_note_lines(fit, body_sheet) + [
         f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
         f"fit surface Ra 0.8 µm",
@@ -277,7 +277,7 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     mass = body_props(part.profile, part.density_g_cm3).mass_g
     overrides = {"Title": ("Title", f"{d['design']['title'] or d.name}: {name}"),
                  "Material": ("Material", part.material),
-                 "Sheet": ("Sheet", f"{[p.name for p in resolved.parts].index(name) + 1}/{len(resolved.parts)}"), "Mass (one half)": (f"Mass (one {name})", f"{mass:.2f} g")}
+                 "Sheet": ("Sheet", sheet_number(resolved, name)), "Mass (one half)": (f"Mass (one {name})", f"{mass:.2f} g")}
     items += _title_block(font, resolved, replace(data, half_mass_g=mass),
                           f"{scale_text(scale)}, detail {DETAIL_LETTER} {scale_text(dscale)}",
                           (frame[2] - TITLE_WIDTH, frame[1]), overrides)
