@@ -118,3 +118,11 @@ def test_least_wall_is_the_closest_facing_pair_of_all() -> None:
 def test_reentrant_regions_are_those_of_every_sample_walked() -> None:
     wrong = [name for name, p in _loops() if reentrant_regions(p) != _reentrant_by_definition(p)]
     assert not wrong
+
+
+@pytest.mark.parametrize("below", [0.3, 0.8, 1.5, 3.0])
+def test_least_wall_below_a_limit_is_the_same_verdict(below: float) -> None:
+    # a sweep asks only whether a wall is thinner than the shop's least: the answer of the full search, cut at the limit
+    for name, p in _loops():
+        full, cut = _least_wall_by_definition(p), least_wall(p, below)
+        assert cut == (full if full is not None and full[0] < below else None), name

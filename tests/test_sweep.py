@@ -11,6 +11,7 @@ import pytest
 from conftest import TEMPLATES, set_in
 from yodraft import build, load, loads, summary
 from yodraft.cli import main
+from yodraft.design import with_values
 from yodraft.sweep import parse_vary, sweep
 
 DESIGN = str(TEMPLATES / "string-trick.toml")
@@ -111,3 +112,19 @@ def test_a_key_under_its_earlier_name_sweeps_the_same_and_keeps_its_column(strin
     assert (old.column, new.column) == ("features.rim.width_mm", "features.rim.band_width_mm")
     ran = [sweep(design, [axis], workers=1).variants for axis in (old, new)]
     assert [v.outputs for v in ran[0]] == [v.outputs for v in ran[1]]
+
+
+@pytest.mark.parametrize("template", ["string-trick", "arc-organic", "undercut-rim", "sketched", "bimetal-ring"])
+def test_verdict_only_build_fails_the_same_checks(template: str) -> None:
+    # a sweep's build leaves out what never fails (re-entrant regions) and cuts the least-wall search at the
+    # shop's limit: every variant must pass and fail exactly the checks of the full build
+    base = load(TEMPLATES / f"{template}.toml")
+    thin = []
+    for thickness in (0.6, 1.2, 2.5, 4.0, 6.0):
+        for min_wall in (0.4, 0.8, 1.6, 3.0):
+            design = with_values(base, [("features.rim.thickness", thickness), ("shop.min_wall", min_wall)])
+            full, lean = build(design), build(design, verdict_only=True)
+            assert lean.ok is full.ok
+            assert [c[:4] for c in lean.failed] == [c[:4] for c in full.failed]
+            thin.append(any(c.name == "least wall across metal" for c in full.failed))
+    assert any(thin) and not all(thin)  # the grid reaches both sides of the least wall

@@ -197,10 +197,12 @@ def loop_chunks(results: Mapping[str, FeatureResult]) -> list[tuple[str, str]]:
             if results[f].chunks[c] and not (shaped and (f, c) in OUTER_CHUNKS)]
 
 
-def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
+def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool = False) -> Resolved:
     """Resolve every feature of ``design`` in order, compose the half-profile and check it.
 
-    ``memo`` carries unchanged features over from the previous build made with it.
+    ``memo`` carries unchanged features over from the previous build made with it. ``verdict_only``
+    (a sweep, which reports only which checks fail) leaves out the re-entrant regions, which are
+    named but never fail, and asks of the least wall only whether it is below the shop's least.
     """
     memo = memo if memo is not None else BuildMemo()
     values: dict[str, Any] = {}
@@ -240,8 +242,9 @@ def build(design: Design, memo: BuildMemo | None = None) -> Resolved:
     if profile is not None:
         added, part_failures = feature_parts(tuple(results.values()))
         checks += part_failures + seat_checks(profile, seats, design["shop"]["min_wall"])
-        checks += surface_walls(profile, design["shop"]["min_wall"])
-        checks += turning_checks(profile)
+        checks += surface_walls(profile, design["shop"]["min_wall"], measure=not verdict_only)
+        if not verdict_only:
+            checks += turning_checks(profile)
         parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,
                       design["shop"]["coating"]),) + added
         z_min, _, z_max, r_max = profile.bounds()

@@ -219,9 +219,10 @@ def _boxes(segs: Sequence[Any], starts: "np.ndarray", ends: "np.ndarray", arcs: 
 _BOX_SLACK = 1e-9
 
 
-def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
+def least_wall(profile: "Profile", below: float = math.inf) -> tuple[float, Point, Point] | None:
     """The thinnest metal between two surfaces of the loop that face each other across it:
-    (thickness in mm, the point on each surface), or None when no two surfaces face each other.
+    (thickness in mm, the point on each surface), or None when no two surfaces face each other
+    closer than ``below`` mm (a sweep asks only whether any wall is thinner than the shop's least).
 
     Surfaces meeting at a corner do not face each other there; a pair counts where the line of
     least distance between them runs through the metal, square to both (within FACING_DEG).
@@ -270,6 +271,8 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     while True:
         nearest = min(((d, k) for k, d in dist.items() if k not in judged), default=None)
         unmeasured = float(floor[by_floor[measured]]) if measured < len(by_floor) else math.inf
+        if (nearest is None or nearest[0] >= below) and unmeasured >= below:
+            return None  # every pair still to judge is at least ``below`` apart
         if nearest is None and measured == len(by_floor):
             return None
         if nearest is None or nearest[0] > unmeasured:
@@ -291,9 +294,15 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
             return d, (pz, pr), (qz, qr)
 
 
-def surface_walls(profile: "Profile", min_wall: float) -> list[Check]:
-    """Least wall everywhere: the thinnest metal between any two surfaces facing each other across it."""
-    found = least_wall(profile)
+def surface_walls(profile: "Profile", min_wall: float, measure: bool = True) -> list[Check]:
+    """Least wall everywhere: the thinnest metal between any two surfaces facing each other across it.
+
+    ``measure=False`` only asks whether a wall is thinner than ``min_wall`` (the same pass or fail,
+    without the thickness of a wall that passes).
+    """
+    found = least_wall(profile, math.inf if measure else min_wall - 1e-9)
+    if found is None and not measure:
+        return [check("least wall across metal", "shop.min_wall", True, f"no wall below {min_wall:.3f} mm")]
     if found is None:
         return [check("least wall across metal", "shop.min_wall", True, "no two surfaces face each other across metal")]
     d, p, q = found

@@ -166,7 +166,7 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
     assignments = list(zip([a.key for a in axes], values))
     shown = tuple(a.shown(v) for a, v in zip(axes, values))
     try:
-        resolved = build(with_values(base, assignments), memo)
+        resolved = build(with_values(base, assignments), memo, verdict_only=True)
     except (YodraftError, ValueError) as exc:
         return Variant(index, shown, False, (f"input: {exc}",), {})
     failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
