@@ -17,7 +17,8 @@ import yodraft
 from conftest import ROOT, TEMPLATES
 from yodraft.builder import build
 from yodraft.checks import (LOOP_CHECK_TOLERANCE, Reentrant, _faces,
-                            _inward_normal, _on_axis, _sample, hidden_regions, least_wall, reentrant_regions)
+                            _inward_normal, _on_axis, _sample, hidden_regions, least_wall, reentrant_regions, thin_walls,
+                            crossing_free)
 from yodraft.design import with_values
 from yodraft.geometry import Profile
 
@@ -120,9 +121,22 @@ def test_reentrant_regions_are_those_of_every_sample_walked() -> None:
     assert not wrong
 
 
-@pytest.mark.parametrize("below", [0.3, 0.8, 1.5, 3.0])
-def test_least_wall_below_a_limit_is_the_same_verdict(below: float) -> None:
-    # a sweep asks only whether a wall is thinner than the shop's least: the answer of the full search, cut at the limit
-    for name, p in _loops():
-        full, cut = _least_wall_by_definition(p), least_wall(p, below)
-        assert cut == (full if full is not None and full[0] < below else None), name
+@pytest.mark.parametrize("below", [0.3, 0.5, 0.8, 1.5])
+def test_thin_walls_give_the_closest_facing_pair_cut_at_the_limit(below: float) -> None:
+    # a sweep asks only whether a wall is thinner than the shop's least, for all its loops at once: the answer
+    # must be the full search's (every pair measured), cut at the limit, loop by loop and for all together
+    loops = _loops()
+    expected = [(full := _least_wall_by_definition(p)) is not None and full[0] < below for _, p in loops]
+    assert thin_walls([p for _, p in loops], [below] * len(loops)) == expected
+    assert [thin_walls([p], [below])[0] for _, p in loops] == expected
+    assert any(expected) and not all(expected)
+
+
+def test_crossing_free_is_shapely_simplicity_of_each_ring() -> None:
+    # the loops' rings made all at once must be judged as each ring made alone (shapely's is_simple)
+    loops = [p for _, p in _loops()]
+    crossed = build(with_values(yodraft.load(TEMPLATES / "string-trick.toml"), [("features.rim.thickness", 30.0)])).profile
+    loops.append(crossed)
+    alone = [bool(shapely.linearrings(p.flat_array(LOOP_CHECK_TOLERANCE)).is_simple) for p in loops]
+    assert crossing_free(loops) == alone
+    assert not alone[-1]

@@ -5,7 +5,7 @@ import math
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from types import MappingProxyType, ModuleType
-from typing import Any
+from typing import Any, NamedTuple
 
 from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
 from .catalog.materials import MATERIALS, lookup_material
@@ -14,7 +14,7 @@ from .checks import (ANALYSIS_PREREQUISITES, Check, loop_checks, radial_order, s
 from .design import Design
 from .errors import DesignInputError
 from .features import FEATURES, LOOP_ORDER, OUTER_CHUNKS
-from .features.base import Context, FeatureInputError, FeatureResult
+from .features.base import Context, FeatureInputError, FeatureResult, SeatCut
 from .geometry import GeometryError, Profile, fillet_loop
 from .params import check_unknown
 from .parts import BODY, Part, cut_seats, feature_parts, seat_checks
@@ -23,7 +23,7 @@ from .tolerances.general import general_tolerance_mm
 from .tolerances.stack import Link, Stack, stack
 from .tolerances.seat import SeatFit
 
-__all__ = ["Resolved", "BuildMemo", "build", "resolve_bearing", "resolve_material", "loop_chunks"]
+__all__ = ["Resolved", "BuildMemo", "Composed", "build", "compose", "judge", "resolve_bearing", "resolve_material", "loop_chunks"]
 
 
 @dataclass(frozen=True)
@@ -197,13 +197,20 @@ def loop_chunks(results: Mapping[str, FeatureResult]) -> list[tuple[str, str]]:
             if results[f].chunks[c] and not (shaped and (f, c) in OUTER_CHUNKS)]
 
 
-def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool = False) -> Resolved:
-    """Resolve every feature of ``design`` in order, compose the half-profile and check it.
+class Composed(NamedTuple):
+    """A design's features resolved and its loop composed, before the checks over the whole loop."""
 
-    ``memo`` carries unchanged features over from the previous build made with it. ``verdict_only``
-    (a sweep, which reports only which checks fail) leaves out the re-entrant regions, which are
-    named but never fail, and asks of the least wall only whether it is below the shop's least.
-    """
+    design: Design
+    values: dict[str, Any]
+    results: dict[str, FeatureResult]
+    profile: Profile | None
+    misfits: list[str]
+    seats: list[SeatCut]
+    seat_failures: list[Check]
+
+
+def compose(design: Design, memo: BuildMemo | None = None) -> Composed:
+    """Resolve every feature of ``design`` in order and compose the half-profile from their corners."""
     memo = memo if memo is not None else BuildMemo()
     values: dict[str, Any] = {}
     values.update(memo.source("bearing", design["bearing"], lambda: resolve_bearing(design)))
@@ -217,7 +224,6 @@ def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool =
         except FeatureInputError as exc:
             raise DesignInputError(design.source, f"features.{name}.{exc.key}", exc.problem, exc.expected) from None
         values.update(published)
-    shaped = bool(results["shape"].chunks["outer"])  # a given outer shape replaces the rim's and catch zone's
     vertices = [v for feature, chunk in loop_chunks(results) for v in results[feature].chunks[chunk]]
     seats = [s for r in results.values() for s in r.seats]
     vertices, seat_failures = cut_seats(vertices, seats)
@@ -229,6 +235,20 @@ def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool =
         if owner.startswith("shape.points["):
             raise DesignInputError(design.source, f"features.{owner}", "does not fit the edges it joins",
                                    "a corner radius whose tangent points lie on the two segments it joins")
+    return Composed(design, values, results, profile, misfits, seats, seat_failures)
+
+
+def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | None = None,
+          thin: bool | None = None) -> Resolved:
+    """Run every check on a composed design and give it resolved.
+
+    ``verdict_only`` (a sweep, which reports only which checks fail) leaves out the re-entrant regions,
+    which are named but never fail, and asks of the least wall only whether it is below the shop's least.
+    ``uncrossed`` (the flattened loop does not cross itself) and ``thin`` (a wall is below the shop's least)
+    are those verdicts when already found for many loops at once (``checks.crossing_free``, ``checks.thin_walls``).
+    """
+    design, values, results, profile, misfits, seats, seat_failures = composed
+    shaped = bool(results["shape"].chunks["outer"])  # a given outer shape replaces the rim's and catch zone's
     chunks = {f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in LOOP_ORDER}
     checks: list[Check] = [c for r in results.values() for c in r.checks]
     checks += radial_order(values)
@@ -236,13 +256,13 @@ def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool =
     if sketched:  # the rim's and catch zone's own sizes are only anchors of the sketch
         checks = [c for c in checks if c.feature not in ("rim", "catch_zone")]
     checks += wall_checks(values, chunks, design["shop"]["min_wall"], back_walls=not shaped)
-    checks += loop_checks(profile, design["envelope"], misfits)
+    checks += loop_checks(profile, design["envelope"], misfits, uncrossed)
     checks += seat_failures
     parts: tuple[Part, ...] = ()
     if profile is not None:
         added, part_failures = feature_parts(tuple(results.values()))
         checks += part_failures + seat_checks(profile, seats, design["shop"]["min_wall"])
-        checks += surface_walls(profile, design["shop"]["min_wall"], measure=not verdict_only)
+        checks += surface_walls(profile, design["shop"]["min_wall"], measure=not verdict_only, thin=thin)
         if not verdict_only:
             checks += turning_checks(profile)
         parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,
@@ -253,3 +273,12 @@ def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool =
         values.update({"profile.outer_diameter": 2 * r_max, "profile.width": 2 * z_max,
                        "profile.gap": values["bearing_seat.gap"], "profile.post_length": values["bearing_seat.post_length"]})
     return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks), parts)
+
+
+def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool = False) -> Resolved:
+    """Resolve every feature of ``design`` in order, compose the half-profile and check it.
+
+    ``memo`` carries unchanged features over from the previous build made with it; ``verdict_only``
+    as for ``judge``.
+    """
+    return judge(compose(design, memo), verdict_only=verdict_only)

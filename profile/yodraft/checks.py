@@ -10,7 +10,8 @@ from typing import TYPE_CHECKING, Any, NamedTuple
 if TYPE_CHECKING:  # pragma: no cover
     from .geometry import Point, Profile
 
-__all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "turning_checks",
+__all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "thin_walls",
+           "crossing_free", "turning_checks",
            "reentrant_regions", "Reentrant"]
 
 
@@ -119,13 +120,17 @@ ANALYSIS_PREREQUISITES = frozenset({"closed simple loop", "above the spin axis",
 LOOP_CHECK_TOLERANCE = 0.02
 
 
-def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str]) -> list[Check]:
-    """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting."""
-    import shapely  # imported where used: the quick commands never load it
+def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str],
+                uncrossed: bool | None = None) -> list[Check]:
+    """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting.
+
+    ``uncrossed`` is whether the flattened loop is a simple ring, when already found (``crossing_free``).
+    """
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
-    ring = shapely.linearrings(profile.flat_array(LOOP_CHECK_TOLERANCE))
-    simple = ring.is_simple and profile.signed_area() > 0  # a simple ring bounds a valid polygon
+    if uncrossed is None:
+        uncrossed = crossing_free([profile])[0]
+    simple = uncrossed and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, r_min, z_max, r_max = profile.bounds()
     out = [
         check("closed simple loop", "profile.loop", simple,
@@ -219,10 +224,9 @@ def _boxes(segs: Sequence[Any], starts: "np.ndarray", ends: "np.ndarray", arcs: 
 _BOX_SLACK = 1e-9
 
 
-def least_wall(profile: "Profile", below: float = math.inf) -> tuple[float, Point, Point] | None:
+def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     """The thinnest metal between two surfaces of the loop that face each other across it:
-    (thickness in mm, the point on each surface), or None when no two surfaces face each other
-    closer than ``below`` mm (a sweep asks only whether any wall is thinner than the shop's least).
+    (thickness in mm, the point on each surface), or None when no two surfaces face each other.
 
     Surfaces meeting at a corner do not face each other there; a pair counts where the line of
     least distance between them runs through the metal, square to both (within FACING_DEG).
@@ -271,8 +275,6 @@ def least_wall(profile: "Profile", below: float = math.inf) -> tuple[float, Poin
     while True:
         nearest = min(((d, k) for k, d in dist.items() if k not in judged), default=None)
         unmeasured = float(floor[by_floor[measured]]) if measured < len(by_floor) else math.inf
-        if (nearest is None or nearest[0] >= below) and unmeasured >= below:
-            return None  # every pair still to judge is at least ``below`` apart
         if nearest is None and measured == len(by_floor):
             return None
         if nearest is None or nearest[0] > unmeasured:
@@ -294,15 +296,102 @@ def least_wall(profile: "Profile", below: float = math.inf) -> tuple[float, Poin
             return d, (pz, pr), (qz, qr)
 
 
-def surface_walls(profile: "Profile", min_wall: float, measure: bool = True) -> list[Check]:
+def _arc_flags(profile: "Profile") -> tuple[bool, ...]:
+    return tuple(hasattr(s, "center") for s in profile.segments)
+
+
+def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bool]:
+    """For each loop, whether two of its surfaces face each other across metal closer than its ``below`` mm:
+    whether ``least_wall`` would find a wall under that, answered for many loops at once (a sweep's).
+
+    Loops of the same run of lines and arcs are stacked, and only the pairs of surfaces whose boxes lie
+    closer than ``below`` are measured; which pair is the thinnest does not matter, only whether any is.
+    """
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
+    tol = LOOP_CHECK_TOLERANCE
+    groups: dict[tuple[bool, ...], list[int]] = {}
+    for b, p in enumerate(profiles):
+        groups.setdefault(_arc_flags(p), []).append(b)
+    near: list[tuple[int, int, int]] = []  # (loop, surface, surface) whose boxes lie closer than the loop's below
+    for flags, members in groups.items():
+        arcs = [i for i, is_arc in enumerate(flags) if is_arc]
+        starts = np.stack([profiles[b].end_points[0] for b in members])
+        ends = np.stack([profiles[b].end_points[1] for b in members])
+        box = np.concatenate((np.minimum(starts, ends), np.maximum(starts, ends)), axis=2)
+        if arcs:  # an arc's box is its extent and its end (as in _boxes)
+            ext = np.array([[profiles[b].segments[i].extent for i in arcs] for b in members])
+            tip = ends[:, arcs]
+            box[:, arcs] = np.concatenate((np.minimum(ext[..., :2], tip), np.maximum(ext[..., 2:], tip)), axis=2)
+        keep = (np.abs(starts[..., 1]) >= ON_AXIS) | (np.abs(ends[..., 1]) >= ON_AXIS)
+        keep[:, arcs] = True
+        i_all, j_all = _pairs(len(flags))
+        box_i, box_j = box[:, i_all], box[:, j_all]
+        gap = np.maximum(np.maximum(box_j[..., :2] - box_i[..., 2:], box_i[..., :2] - box_j[..., 2:]), 0.0)
+        floor = np.hypot(gap[..., 0], gap[..., 1]) - _BOX_SLACK
+        limit = np.array([below[b] for b in members])[:, None]
+        at, k = np.nonzero(keep[:, i_all] & keep[:, j_all] & (floor < limit))
+        near += zip(np.array(members)[at].tolist(), i_all[k].tolist(), j_all[k].tolist())
+    thin = [False] * len(profiles)
+    if not near:
+        return thin
+    # every surface of a pair as a polyline (an arc flattened as least_wall flattens it), all made at once
+    surfaces = sorted({(b, i) for b, i, _ in near} | {(b, j) for b, _, j in near})
+    place = {key: n for n, key in enumerate(surfaces)}
+    coords: list[Point] = []
+    counts: list[int] = []
+    for b, i in surfaces:
+        s = profiles[b].segments[i]
+        pts = tuple(s.flattened(tol)) + (s.end,) if hasattr(s, "center") else (s.start, s.end)
+        coords += pts
+        counts.append(len(pts))
+    lines = shapely.linestrings(np.array(coords), indices=np.repeat(np.arange(len(counts)), counts))
+    first = lines[[place[(b, i)] for b, i, _ in near]]
+    second = lines[[place[(b, j)] for b, _, j in near]]
+    dist = shapely.distance(first, second)
+    close = np.flatnonzero((dist >= 1e-9) & (dist < np.array([below[b] for b, _, _ in near])))
+    if not len(close):
+        return thin
+    ends_pq = shapely.get_coordinates(shapely.shortest_line(first[close], second[close])).reshape(-1, 2, 2)
+    polygons: dict[int, Any] = {}
+    for n, ((pz, pr), (qz, qr)) in zip(close.tolist(), ends_pq.tolist()):
+        b, i, j = near[n]
+        if thin[b]:
+            continue
+        d = float(dist[n])
+        u = ((qz - pz) / d, (qr - pr) / d)
+        if b not in polygons:
+            polygons[b] = profiles[b].polygon(tol)
+        if not shapely.contains_xy(polygons[b], (pz + qz) / 2, (pr + qr) / 2):
+            continue  # across air, not metal
+        segs = profiles[b].segments
+        if _faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1])):
+            thin[b] = True
+    return thin
+
+
+def crossing_free(profiles: Sequence["Profile"]) -> list[bool]:
+    """For each loop, whether its flattened ring is simple (crosses and touches itself nowhere), for many
+    loops at once."""
+    import numpy as np  # imported where used: the quick commands never load it
+    import shapely  # imported where used: the quick commands never load it
+    flats = [p.flat_array(LOOP_CHECK_TOLERANCE) for p in profiles]
+    rings = shapely.linearrings(np.concatenate(flats), indices=np.repeat(np.arange(len(flats)), [len(f) for f in flats]))
+    return shapely.is_simple(rings).tolist()
+
+
+def surface_walls(profile: "Profile", min_wall: float, measure: bool = True, thin: bool | None = None) -> list[Check]:
     """Least wall everywhere: the thinnest metal between any two surfaces facing each other across it.
 
     ``measure=False`` only asks whether a wall is thinner than ``min_wall`` (the same pass or fail,
-    without the thickness of a wall that passes).
+    without the thickness of a wall that passes); ``thin`` is that answer when already found (``thin_walls``).
     """
-    found = least_wall(profile, math.inf if measure else min_wall - 1e-9)
-    if found is None and not measure:
-        return [check("least wall across metal", "shop.min_wall", True, f"no wall below {min_wall:.3f} mm")]
+    if not measure:
+        if thin is None:
+            thin = thin_walls([profile], [min_wall - 1e-9])[0]
+        return [check("least wall across metal", "shop.min_wall", not thin,
+                      f"a wall below {min_wall:.3f} mm" if thin else f"no wall below {min_wall:.3f} mm")]
+    found = least_wall(profile)
     if found is None:
         return [check("least wall across metal", "shop.min_wall", True, "no two surfaces face each other across metal")]
     d, p, q = found

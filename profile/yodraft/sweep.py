@@ -24,7 +24,7 @@ from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
-from .builder import BuildMemo, build
+from .builder import BuildMemo, compose, judge
 from .design import with_values
 from .errors import DesignInputError, YodraftError
 from .units import DISPLAY_UNITS
@@ -33,7 +33,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
     from .design import Design
 
-__all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "csv_text",
+__all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "run_variants", "csv_text",
            "OUTPUT_KEYS", "MAX_VARIANTS"]
 
 MAX_VARIANTS = 100_000
@@ -157,29 +157,57 @@ def _outputs(resolved: "Resolved") -> dict[str, float | None]:
     return {k: (None if x is None else float(x)) for k, x in out.items()}
 
 
+def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]],
+                 memo: BuildMemo | None = None) -> list[Variant]:
+    """Resolve and check the variants ``points`` (index, varied values); an input the builder rejects makes
+    a failed variant, not an error.
+
+    Each variant's features are resolved on its own (``memo`` carries those the varied keys do not reach
+    over from the previous one); the checks over the whole loop (does it cross itself, is a wall too thin)
+    are answered for all the variants' loops at once.
+    """
+    from .checks import crossing_free, thin_walls
+
+    memo = memo if memo is not None else BuildMemo()
+    keys = [a.key for a in axes]
+    done: list[tuple[int, tuple[float, ...], Any]] = []  # (index, shown inputs, Composed or the input error)
+    for index, values in points:
+        shown = tuple(a.shown(v) for a, v in zip(axes, values))
+        try:
+            done.append((index, shown, compose(with_values(base, list(zip(keys, values))), memo)))
+        except (YodraftError, ValueError) as exc:
+            done.append((index, shown, exc))
+    looped = [n for n, (_, _, c) in enumerate(done) if not isinstance(c, Exception) and c.profile is not None]
+    profiles = [done[n][2].profile for n in looped]
+    uncrossed = dict(zip(looped, crossing_free(profiles) if profiles else []))
+    thin = dict(zip(looped, thin_walls(profiles, [done[n][2].design["shop"]["min_wall"] - 1e-9 for n in looped])))
+    out = []
+    for n, (index, shown, c) in enumerate(done):
+        if not isinstance(c, Exception):
+            try:
+                resolved = judge(c, verdict_only=True, uncrossed=uncrossed.get(n), thin=thin.get(n))
+            except (YodraftError, ValueError) as exc:
+                c = exc
+        if isinstance(c, Exception):
+            out.append(Variant(index, shown, False, (f"input: {c}",), {}))
+            continue
+        failed = tuple(f"{f.name} [{f.feature}.{f.parameter}]" for f in resolved.failed)
+        out.append(Variant(index, shown, resolved.ok, failed, _outputs(resolved)))
+    return out
+
+
 def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequence[float],
                 memo: BuildMemo | None = None) -> Variant:
-    """Resolve and check one variant; an input the builder rejects makes it a failed variant, not an error.
-
-    ``memo`` carries the features the varied keys do not reach over from the previous variant.
-    """
-    assignments = list(zip([a.key for a in axes], values))
-    shown = tuple(a.shown(v) for a, v in zip(axes, values))
-    try:
-        resolved = build(with_values(base, assignments), memo, verdict_only=True)
-    except (YodraftError, ValueError) as exc:
-        return Variant(index, shown, False, (f"input: {exc}",), {})
-    failed = tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in resolved.failed)
-    return Variant(index, shown, resolved.ok, failed, _outputs(resolved))
+    """Resolve and check one variant (as ``run_variants``)."""
+    return run_variants(base, axes, [(index, tuple(values))], memo)[0]
 
 
 def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:
     """One worker's chunk of variants. A variant leaves no reference cycles behind, so the worker's cycle
     collector is off meanwhile: it would only walk the chunk's results again and again (about a tenth of the time)."""
-    memo = BuildMemo()
     gc.disable()
     try:
-        return [run_variant(base, axes, i, vals, memo) for i, vals in points]
+        return run_variants(base, axes, points)
     finally:
         gc.enable()
 
@@ -216,8 +244,8 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
     done: list[Variant] = []
     if workers <= 1 or total < 64:
         memo = BuildMemo()
-        for i, vals in points:
-            done.append(run_variant(base, axes, i, vals, memo))
+        for chunk in chunks:
+            done.extend(run_variants(base, axes, chunk, memo))
             if progress:
                 progress(len(done), total)
     else:
