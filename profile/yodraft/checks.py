@@ -3,6 +3,7 @@ from __future__ import annotations
 
 import functools
 import math
+from itertools import chain
 from collections.abc import Iterable, Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
@@ -300,6 +301,15 @@ def _arc_flags(profile: "Profile") -> tuple[bool, ...]:
     return tuple(hasattr(s, "center") for s in profile.segments)
 
 
+@functools.lru_cache(maxsize=64)  # a sweep's loops keep their number of surfaces
+def _pair_mask(n: int) -> "np.ndarray":
+    """(n, n): True for the pairs (i, j) of ``_pairs(n)``."""
+    import numpy as np  # imported where used: the quick commands never load it
+    mask = np.zeros((n, n), dtype=bool)
+    mask[_pairs(n)] = True
+    return mask
+
+
 def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bool]:
     """For each loop, whether two of its surfaces face each other across metal closer than its ``below`` mm:
     whether ``least_wall`` would find a wall under that, answered for many loops at once (a sweep's).
@@ -315,23 +325,29 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bo
         groups.setdefault(_arc_flags(p), []).append(b)
     near: list[tuple[int, int, int]] = []  # (loop, surface, surface) whose boxes lie closer than the loop's below
     for flags, members in groups.items():
+        n = len(flags)
         arcs = [i for i, is_arc in enumerate(flags) if is_arc]
-        starts = np.stack([profiles[b].end_points[0] for b in members])
-        ends = np.stack([profiles[b].end_points[1] for b in members])
-        box = np.concatenate((np.minimum(starts, ends), np.maximum(starts, ends)), axis=2)
+        segs = [s for b in members for s in profiles[b].segments]
+        starts = np.fromiter(chain.from_iterable(s.start for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
+        ends = np.fromiter(chain.from_iterable(s.end for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
+        lo, hi = np.minimum(starts, ends), np.maximum(starts, ends)
         if arcs:  # an arc's box is its extent and its end (as in _boxes)
-            ext = np.array([[profiles[b].segments[i].extent for i in arcs] for b in members])
+            ext = np.fromiter(chain.from_iterable(profiles[b].segments[i].extent for b in members for i in arcs), float,
+                              4 * len(members) * len(arcs)).reshape(len(members), len(arcs), 4)
             tip = ends[:, arcs]
-            box[:, arcs] = np.concatenate((np.minimum(ext[..., :2], tip), np.maximum(ext[..., 2:], tip)), axis=2)
+            lo[:, arcs], hi[:, arcs] = np.minimum(ext[..., :2], tip), np.maximum(ext[..., 2:], tip)
         keep = (np.abs(starts[..., 1]) >= ON_AXIS) | (np.abs(ends[..., 1]) >= ON_AXIS)
         keep[:, arcs] = True
-        i_all, j_all = _pairs(len(flags))
-        box_i, box_j = box[:, i_all], box[:, j_all]
-        gap = np.maximum(np.maximum(box_j[..., :2] - box_i[..., 2:], box_i[..., :2] - box_j[..., 2:]), 0.0)
-        floor = np.hypot(gap[..., 0], gap[..., 1]) - _BOX_SLACK
-        limit = np.array([below[b] for b in members])[:, None]
-        at, k = np.nonzero(keep[:, i_all] & keep[:, j_all] & (floor < limit))
-        near += zip(np.array(members)[at].tolist(), i_all[k].tolist(), j_all[k].tolist())
+        # surfaces i (rows) and j (columns) can be closer than the limit only where their boxes are,
+        # along z and along r (the true distance is at least each); the few pairs left are measured
+        limit = np.array([below[b] for b in members])[:, None, None] + _BOX_SLACK
+        near_ij = _pair_mask(n) & keep[:, :, None] & keep[:, None, :]
+        for axis in (0, 1):
+            low, high = lo[..., axis], hi[..., axis]
+            near_ij &= low[:, None, :] - high[:, :, None] < limit
+            near_ij &= low[:, :, None] - high[:, None, :] < limit
+        at, i, j = np.nonzero(near_ij)
+        near += zip(np.array(members)[at].tolist(), i.tolist(), j.tolist())
     thin = [False] * len(profiles)
     if not near:
         return thin
@@ -360,13 +376,12 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bo
             continue
         d = float(dist[n])
         u = ((qz - pz) / d, (qr - pr) / d)
+        segs = profiles[b].segments
+        if not (_faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1]))):
+            continue
         if b not in polygons:
             polygons[b] = profiles[b].polygon(tol)
-        if not shapely.contains_xy(polygons[b], (pz + qz) / 2, (pr + qr) / 2):
-            continue  # across air, not metal
-        segs = profiles[b].segments
-        if _faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1])):
-            thin[b] = True
+        thin[b] = bool(shapely.contains_xy(polygons[b], (pz + qz) / 2, (pr + qr) / 2))  # across metal, not air
     return thin
 
 
