@@ -202,14 +202,17 @@ def run_variant(base: "Design", axes: Sequence[Axis], index: int, values: Sequen
     return run_variants(base, axes, [(index, tuple(values))], memo)[0]
 
 
-def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]]) -> list[Variant]:
-    """One worker's chunk of variants. A variant leaves no reference cycles behind, so the worker's cycle
-    collector is off meanwhile: it would only walk the chunk's results again and again (about a tenth of the time)."""
+def _run_chunk(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]],
+               memo: BuildMemo | None = None) -> list[Variant]:
+    """One chunk of variants. A variant leaves no reference cycles behind, so the cycle collector is off
+    meanwhile: it would only walk the chunk's results again and again (about a tenth of the time)."""
+    enabled = gc.isenabled()
     gc.disable()
     try:
-        return run_variants(base, axes, points)
+        return run_variants(base, axes, points, memo)
     finally:
-        gc.enable()
+        if enabled:
+            gc.enable()
 
 
 def _context():
@@ -245,7 +248,7 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
     if workers <= 1 or total < 64:
         memo = BuildMemo()
         for chunk in chunks:
-            done.extend(run_variants(base, axes, chunk, memo))
+            done.extend(_run_chunk(base, axes, chunk, memo))
             if progress:
                 progress(len(done), total)
     else:
