@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, NamedTuple
 
 from .balance import BalanceResult, balance
 from .builder import Resolved
@@ -11,7 +11,8 @@ from .massprops import (AssemblyProps, BodyProps, PointPart, SectionIntegrals, a
                         ring_part, weighted_integrals)
 from .spin import SpinMetrics, spin_metrics
 
-__all__ = ["Analysis", "MassAndSpin", "analyse", "mass_and_spin", "part_props", "AXLE_DENSITY_G_CM3"]
+__all__ = ["Analysis", "MassAndSpin", "SmallPartInputs", "analyse", "mass_and_spin", "part_props", "small_parts",
+           "small_part_inputs", "small_parts_from", "AXLE_DENSITY_G_CM3"]
 
 AXLE_DENSITY_G_CM3 = 7.85  # carbon steel set screw, from memory
 PITCH_DIAMETER_FACTOR = 0.649519  # d2 = d − 0.649519 P (ISO 724)
@@ -32,32 +33,65 @@ class Analysis:
     parts: tuple[tuple[str, str, BodyProps], ...] = ()
 
 
-def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
-    """The bearing, the axle and the two response pads (or silicone fills) placed where they sit, and the axle length.
+class SmallPartInputs(NamedTuple):
+    """Everything the small parts are made from (a sweep's variants often share them: hashable)."""
 
-    The axle spans the post spacing and runs into each half's thread short of the
-    full-thread depth by one pitch (common practice, no published source).
-    """
+    silicone: bool  # a recess filled flush with silicone instead of a response pad
+    pad_density: float
+    bearing_mass: float
+    bore: float
+    od: float
+    width: float
+    pad_mass: float | None
+    pad_inner_d: float
+    pad_outer_d: float
+    thickness: float
+    bottom_z: float
+    axle_mass: float | None
+    spacing: float
+    thread_depth: float
+    pitch: float
+    major_d: float
+
+
+def small_part_inputs(resolved: Resolved) -> SmallPartInputs:
+    """What ``small_parts`` reads of ``resolved``."""
     v = resolved.values
     spec = resolved.design["parts"]
     pad = resolved.features["pad_groove"].extra["pad"]
     silicone = pad is None  # a recess filled flush with silicone: its own volume, sitting in the recess
-    pad_density = v["pad_groove.silicone_density"] if silicone else pad.pad_density_g_cm3
-    bearing_mass, bore, od, width = v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"]
-    pad_mass, pad_inner_d, pad_outer_d = spec["pad_mass"], v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"]
-    thickness, bottom_z = v["pad_groove.pad_thickness"], v["pad_groove.bottom_z"]
-    axle_mass, spacing, thread_depth = spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"]
-    pitch, major_d = v["axle_bore.pitch"], v["axle_bore.major_diameter"]
-    bearing_part = ring_part("bearing", bearing_mass, bore / 2, od / 2, width, 0.0)
-    r_out = pad_outer_d / 2
-    r_in = min(pad_inner_d / 2, r_out)  # a groove wider than its pad fails its own check; weigh an empty ring till then
+    return SmallPartInputs(
+        silicone, v["pad_groove.silicone_density"] if silicone else pad.pad_density_g_cm3,
+        v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"],
+        spec["pad_mass"], v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"],
+        v["pad_groove.pad_thickness"], v["pad_groove.bottom_z"],
+        spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"],
+        v["axle_bore.pitch"], v["axle_bore.major_diameter"])
+
+
+def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:
+    """The bearing, the axle and the two response pads (or silicone fills) placed where they sit, and the axle length."""
+    return small_parts_from(small_part_inputs(resolved))
+
+
+def small_parts_from(i: SmallPartInputs) -> tuple[tuple[PointPart, ...], float]:
+    """The small parts (bearing, axle, two pads) and the axle length made from ``i``.
+
+    The axle spans the post spacing and runs into each half's thread short of the
+    full-thread depth by one pitch (common practice, no published source).
+    """
+    bearing_part = ring_part("bearing", i.bearing_mass, i.bore / 2, i.od / 2, i.width, 0.0)
+    r_out = i.pad_outer_d / 2
+    r_in = min(i.pad_inner_d / 2, r_out)  # a groove wider than its pad fails its own check; weigh an empty ring till then
+    pad_mass = i.pad_mass
     if pad_mass is None:
-        pad_mass = ring_mass_g(pad_density, r_in, r_out, thickness)
+        pad_mass = ring_mass_g(i.pad_density, r_in, r_out, i.thickness)
     # the pad (or the silicone) sits on the groove's bottom and stands toward the gap by its thickness
-    pad_part = ring_part("silicone" if silicone else "response pad", pad_mass, r_in, r_out, thickness,
-                         bottom_z - thickness / 2)
-    axle_length = spacing + 2 * (thread_depth - pitch)
-    axle_r = (major_d - PITCH_DIAMETER_FACTOR * pitch) / 2
+    pad_part = ring_part("silicone" if i.silicone else "response pad", pad_mass, r_in, r_out, i.thickness,
+                         i.bottom_z - i.thickness / 2)
+    axle_length = i.spacing + 2 * (i.thread_depth - i.pitch)
+    axle_r = (i.major_d - PITCH_DIAMETER_FACTOR * i.pitch) / 2
+    axle_mass = i.axle_mass
     if axle_mass is None:
         axle_mass = ring_mass_g(AXLE_DENSITY_G_CM3, 0.0, axle_r, axle_length)
     axle_part = cylinder_part("axle", axle_mass, axle_r, axle_length, 0.0)

@@ -47,6 +47,8 @@ __all__ = [
     "cylinder_part",
     "mirrored_part",
     "ring_mass_g",
+    "turned_body",
+    "part_sums",
     "assemble",
 ]
 
@@ -194,13 +196,46 @@ def _split(profile: Profile) -> tuple[list[LineRow], list[ArcRow], float]:
     return lines, arcs, r_min
 
 
+def _turned_terms(za, zb, r, c, c2, c4):  # floats or numpy arrays alike
+    """The six area sums' terms (a, r1, z1, rz, r3, rz2) of a turned diameter from za to zb at radius r.
+
+    Each −∫ G_k dz is −Δz times a constant G_k; ``c2``, ``c4`` are c², c⁴. Plain arithmetic only, so the
+    same code serves one line (floats) and a batch of loops (numpy arrays), to the bit.
+    """
+    dz = za - zb  # the minus sign of −∮ G dz folded in
+    z_sum = za + zb
+    zz_mean = (za * za + za * zb + zb * zb) / 3
+    g0, g1 = r - c, 0.5 * (r * r - c2)
+    return (dz * g0, dz * g1, dz * g0 * 0.5 * z_sum, dz * g1 * 0.5 * z_sum, dz * 0.25 * (r * r * r * r - c4),
+            dz * g1 * zz_mean)
+
+
+def _sloped_terms(za, ra, zb, rb, c, c2, c4):  # floats or numpy arrays alike
+    """The six area sums' terms (a, r1, z1, rz, r3, rz2) of a line with za ≠ zb and ra ≠ rb.
+
+    Along it r and z are linear in the parameter t, so each −∫ G_k dz is −Δz times the mean of a
+    polynomial in t, written out from its end values. Plain arithmetic, as ``_turned_terms``.
+    """
+    dz = za - zb
+    z_sum = za + zb
+    zz_mean = (za * za + za * zb + zb * zb) / 3
+    raa, rab, rbb = ra * ra, ra * rb, rb * rb
+    rr_mean = (raa + rab + rbb) / 3
+    zaa, zab, zbb = za * za, za * zb, zb * zb
+    return (dz * (0.5 * (ra + rb) - c),
+            dz * 0.5 * (rr_mean - c2),
+            dz * ((ra * (2 * za + zb) + rb * (za + 2 * zb)) / 6 - 0.5 * c * z_sum),
+            dz * 0.5 * ((za * (3 * raa + 2 * rab + rbb) + zb * (raa + 2 * rab + 3 * rbb)) / 12 - 0.5 * c2 * z_sum),
+            dz * 0.25 * (((raa + rbb) * 3 * rr_mean - rab * rab) / 5 - c4),
+            dz * 0.5 * ((raa * (6 * zaa + 3 * zab + zbb) + rab * (3 * zaa + 4 * zab + 3 * zbb)
+                         + rbb * (zaa + 3 * zab + 6 * zbb)) / 30 - c2 * zz_mean))
+
+
 def _line_sums(lines: Sequence[LineRow], c: float) -> list[float]:
     """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over straight pieces, in closed form.
 
-    Along a line r and z are linear in the parameter t, so each −∫ G_k dz is
-    −Δz times the mean of a polynomial in t, written out from its end values.
-    A face (constant z) adds only to the surface; a turned diameter (constant r)
-    has constant G_k.
+    A face (constant z) adds only to the surface; a turned diameter (constant r) has constant G_k
+    (``_turned_terms``); any other line is ``_sloped_terms``.
     """
     a = r1 = z1 = rz = r3 = rz2 = rds = 0.0
     c2 = c * c
@@ -209,41 +244,33 @@ def _line_sums(lines: Sequence[LineRow], c: float) -> list[float]:
         if za == zb:
             rds += abs(rb - ra) * 0.5 * (ra + rb)
             continue
-        dz = za - zb  # the minus sign of −∮ G dz folded in
-        z_sum = za + zb
-        zz_mean = (za * za + za * zb + zb * zb) / 3
         if ra == rb:
-            g0, g1 = ra - c, 0.5 * (ra * ra - c2)
-            a += dz * g0
-            r1 += dz * g1
-            z1 += dz * g0 * 0.5 * z_sum
-            rz += dz * g1 * 0.5 * z_sum
-            r3 += dz * 0.25 * (ra * ra * ra * ra - c4)
-            rz2 += dz * g1 * zz_mean
-            rds += abs(dz) * ra
-            continue
-        raa, rab, rbb = ra * ra, ra * rb, rb * rb
-        rr_mean = (raa + rab + rbb) / 3
-        a += dz * (0.5 * (ra + rb) - c)
-        r1 += dz * 0.5 * (rr_mean - c2)
-        z1 += dz * ((ra * (2 * za + zb) + rb * (za + 2 * zb)) / 6 - 0.5 * c * z_sum)
-        rz += dz * 0.5 * ((za * (3 * raa + 2 * rab + rbb) + zb * (raa + 2 * rab + 3 * rbb)) / 12 - 0.5 * c2 * z_sum)
-        r3 += dz * 0.25 * (((raa + rbb) * 3 * rr_mean - rab * rab) / 5 - c4)
-        zaa, zab, zbb = za * za, za * zb, zb * zb
-        rz2 += dz * 0.5 * ((raa * (6 * zaa + 3 * zab + zbb) + rab * (3 * zaa + 4 * zab + 3 * zbb)
-                            + rbb * (zaa + 3 * zab + 6 * zbb)) / 30 - c2 * zz_mean)
-        rds += math.hypot(zb - za, rb - ra) * 0.5 * (ra + rb)
+            ta, tr1, tz1, trz, tr3, trz2 = _turned_terms(za, zb, ra, c, c2, c4)
+            rds += abs(za - zb) * ra
+        else:
+            ta, tr1, tz1, trz, tr3, trz2 = _sloped_terms(za, ra, zb, rb, c, c2, c4)
+            rds += math.hypot(zb - za, rb - ra) * 0.5 * (ra + rb)
+        a += ta
+        r1 += tr1
+        z1 += tz1
+        rz += trz
+        r3 += tr3
+        rz2 += trz2
     return [a, r1, z1, rz, r3, rz2, rds]
 
 
 def _sine_moments(t0: float, dt: float) -> tuple[float, ...]:
-    """P1 … P5 and Q1 … Q3 with Pp = ∫ sinᵖθ dθ, Qp = ∫ sinᵖθ cosθ dθ from θ0 to θ0 + Δθ.
+    """P1 … P5 and Q1 … Q3 with Pp = ∫ sinᵖθ dθ, Qp = ∫ sinᵖθ cosθ dθ from θ0 to θ0 + Δθ (``_moments``)."""
+    t1 = t0 + dt
+    return _moments(math.sin(t0), math.cos(t0), math.sin(t1), math.cos(t1), dt)
+
+
+def _moments(s0, c0, s1, c1, dt):  # floats or numpy arrays alike
+    """P1 … P5 and Q1 … Q3 from the sine and cosine at both ends of a sweep Δθ.
 
     By the usual reduction formulas, Pp = ((p − 1) Pp−2 − [sinᵖ⁻¹θ cosθ]) / p
     and Qp = [sinᵖ⁺¹θ] / (p + 1), with [f] = f(θ0 + Δθ) − f(θ0).
     """
-    s0, c0 = math.sin(t0), math.cos(t0)
-    s1, c1 = math.sin(t0 + dt), math.cos(t0 + dt)
     s0_2, s1_2 = s0 * s0, s1 * s1
     s0_3, s1_3 = s0_2 * s0, s1_2 * s1
     s0_4, s1_4 = s0_2 * s0_2, s1_2 * s1_2
@@ -255,37 +282,47 @@ def _sine_moments(t0: float, dt: float) -> tuple[float, ...]:
     return p1, p2, p3, p4, p5, (s1_2 - s0_2) / 2, (s1_3 - s0_3) / 3, (s1_4 - s0_4) / 4
 
 
-def _arc_sums(arcs: Sequence[ArcRow], c: float) -> list[float]:
-    """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over arcs, in closed form.
+def _arc_terms(zc, rc, a, moments, c, c2):  # floats or numpy arrays alike
+    """The six area sums' terms (a, r1, z1, rz, r3, rz2) of one arc, from its ``_moments``.
 
     On an arc r = rc + a sinθ, z = zc + a cosθ and dz = −a sinθ dθ, so each
     −∫ G_k dz = ∫ G_k a sinθ dθ is a polynomial in sinθ and cosθ, integrated
-    term by term (∫ sinᵖθ cos²θ dθ = Pp − Pp+2). The moments are differences of
-    end values, so on a very short arc the error is about one rounding of the
-    arc's largest term rather than of its (small) result.
+    term by term (∫ sinᵖθ cos²θ dθ = Pp − Pp+2).
+    """
+    p1, p2, p3, p4, p5, q1, q2, q3 = moments
+    rc2, aa = rc * rc, a * a
+    # G0 = r − c and G1 = (r² − c²)/2 in powers of sinθ, each times one more sinθ from dz
+    g0_p = (rc - c) * p1 + a * p2
+    g0_q = (rc - c) * q1 + a * q2
+    e0, e1, e2 = 0.5 * (rc2 - c2), rc * a, 0.5 * aa
+    g1_p = e0 * p1 + e1 * p2 + e2 * p3
+    g1_q = e0 * q1 + e1 * q2 + e2 * q3
+    g1_cc = e0 * (p1 - p3) + e1 * (p2 - p4) + e2 * (p3 - p5)
+    # G4 = (r⁴ − c⁴)/4
+    g4_p = (0.25 * (rc2 * rc2 - c2 * c2) * p1 + rc2 * rc * a * p2 + 1.5 * rc2 * aa * p3
+            + rc * aa * a * p4 + 0.25 * aa * aa * p5)
+    return (a * g0_p, a * g1_p, a * (zc * g0_p + a * g0_q), a * (zc * g1_p + a * g1_q), a * g4_p,
+            a * (zc * zc * g1_p + 2 * zc * a * g1_q + aa * g1_cc))
+
+
+def _arc_sums(arcs: Sequence[ArcRow], c: float) -> list[float]:
+    """The seven sums (a, r1, z1, rz, r3, rz2, ∫r ds) over arcs, in closed form (``_arc_terms``).
+
+    The moments are differences of end values, so on a very short arc the error
+    is about one rounding of the arc's largest term rather than of its (small) result.
     """
     area = r1 = z1 = rz = r3 = rz2 = rds = 0.0
     c2 = c * c
     for zc, rc, a, t0, dt in arcs:
-        p1, p2, p3, p4, p5, q1, q2, q3 = _sine_moments(t0, dt)
-        rc2, aa = rc * rc, a * a
-        # G0 = r − c and G1 = (r² − c²)/2 in powers of sinθ, each times one more sinθ from dz
-        g0_p = (rc - c) * p1 + a * p2
-        g0_q = (rc - c) * q1 + a * q2
-        e0, e1, e2 = 0.5 * (rc2 - c2), rc * a, 0.5 * aa
-        g1_p = e0 * p1 + e1 * p2 + e2 * p3
-        g1_q = e0 * q1 + e1 * q2 + e2 * q3
-        g1_cc = e0 * (p1 - p3) + e1 * (p2 - p4) + e2 * (p3 - p5)
-        # G4 = (r⁴ − c⁴)/4
-        g4_p = (0.25 * (rc2 * rc2 - c2 * c2) * p1 + rc2 * rc * a * p2 + 1.5 * rc2 * aa * p3
-                + rc * aa * a * p4 + 0.25 * aa * aa * p5)
-        area += a * g0_p
-        r1 += a * g1_p
-        z1 += a * (zc * g0_p + a * g0_q)
-        rz += a * (zc * g1_p + a * g1_q)
-        r3 += a * g4_p
-        rz2 += a * (zc * zc * g1_p + 2 * zc * a * g1_q + aa * g1_cc)
-        rds += math.copysign(a, dt) * (rc * dt + a * p1)
+        moments = _sine_moments(t0, dt)
+        ta, tr1, tz1, trz, tr3, trz2 = _arc_terms(zc, rc, a, moments, c, c2)
+        area += ta
+        r1 += tr1
+        z1 += tz1
+        rz += trz
+        r3 += tr3
+        rz2 += trz2
+        rds += math.copysign(a, dt) * (rc * dt + a * moments[0])
     return [area, r1, z1, rz, r3, rz2, rds]
 
 
@@ -312,6 +349,12 @@ def section_integrals(profile: Profile) -> SectionIntegrals:
     return out
 
 
+def _cut_point(z0, r0, z1, r1, r_cut):  # floats or numpy arrays alike
+    """Where the line (z0, r0)–(z1, r1) crosses r = r_cut."""
+    t = (r_cut - r0) / (r1 - r0)
+    return z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
+
+
 def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[ArcRow]]:
     """The loop cut at every crossing of r = r_cut, keeping the pieces that lie at r ≥ r_cut."""
     lines: list[LineRow] = []
@@ -320,8 +363,7 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[Ar
         if not isinstance(s, Arc):
             (z0, r0), (z1, r1) = s.start, s.end
             if (r0 - r_cut) * (r1 - r_cut) < 0:
-                t = (r_cut - r0) / (r1 - r0)
-                z_cut, r_at = z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
+                z_cut, r_at = _cut_point(z0, r0, z1, r1, r_cut)
                 lines.append((z_cut, r_at, z1, r1) if r1 > r_cut else (z0, r0, z_cut, r_at))
             elif (r0 + r1) / 2 > r_cut:
                 lines.append((z0, r0, z1, r1))
@@ -377,6 +419,13 @@ def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegral
 # --------------------------------------------------------------------- bodies
 
 
+def turned_body(rho, r1, r3, rz2):  # floats or numpy arrays alike
+    """(volume, mass, Izz, Ixx about z = 0) of a section with integrals ∫r dA, ∫r³ dA, ∫r z² dA turned with
+    density ``rho`` (g/mm³): V = 2π ∫r dA, Izz = ρ 2π ∫r³ dA, Ixx = ρ π ∫(r³ + 2 r z²) dA."""
+    volume = 2 * math.pi * r1
+    return volume, rho * volume, rho * 2 * math.pi * r3, rho * math.pi * (r3 + 2 * rz2)
+
+
 def props_from_integrals(s: SectionIntegrals, density_g_cm3: float) -> BodyProps:
     """Body properties of the section integrals ``s`` turned once about the spin axis.
 
@@ -384,12 +433,8 @@ def props_from_integrals(s: SectionIntegrals, density_g_cm3: float) -> BodyProps
     """
     if not (math.isfinite(density_g_cm3) and density_g_cm3 > 0):
         raise ValueError(f"density must be a finite value > 0 g/cm³, got {density_g_cm3}")
-    rho = density_g_cm3 * G_PER_MM3_PER_G_CM3
-    volume = 2 * math.pi * s.r1
-    mass = rho * volume
+    volume, mass, izz, ixx = turned_body(density_g_cm3 * G_PER_MM3_PER_G_CM3, s.r1, s.r3, s.rz2)
     zc = s.rz / s.r1 if s.r1 > 0 else 0.0
-    izz = rho * 2 * math.pi * s.r3
-    ixx = rho * math.pi * (s.r3 + 2 * s.rz2)
     return BodyProps(
         area_mm2=s.a,
         volume_mm3=volume,
@@ -488,6 +533,11 @@ def mirrored_part(part: PointPart) -> PointPart:
     return PointPart(part.name, part.mass_g, part.izz_g_mm2, part.ixx_own_g_mm2, -part.z_mm, part.r_in_mm, part.r_out_mm)
 
 
+def part_sums(parts: Sequence[PointPart]) -> tuple[float, float, float]:
+    """The small parts' summed mass, Izz and Ixx about z = 0, in their order (what ``assemble`` adds to the halves)."""
+    return (sum(p.mass_g for p in parts), sum(p.izz_g_mm2 for p in parts), sum(p.ixx_g_mm2 for p in parts))
+
+
 def assemble(half: BodyProps, parts: Sequence[PointPart]) -> AssemblyProps:
     """Two halves (``half`` on +z and its mirror on −z) plus the small parts.
 
@@ -495,8 +545,9 @@ def assemble(half: BodyProps, parts: Sequence[PointPart]) -> AssemblyProps:
     theorem. Parts with the same name are counted together in the budget.
     """
     parts = tuple(parts)
-    total = 2 * half.mass_g + sum(p.mass_g for p in parts)
-    izz = 2 * half.izz_g_mm2 + sum(p.izz_g_mm2 for p in parts)
-    ixx = 2 * half.ixx_g_mm2 + sum(p.ixx_g_mm2 for p in parts)
+    mass, izz, ixx = part_sums(parts)
+    total = 2 * half.mass_g + mass
+    izz = 2 * half.izz_g_mm2 + izz
+    ixx = 2 * half.ixx_g_mm2 + ixx
     zc = sum(p.mass_g * p.z_mm for p in parts) / total if total > 0 else 0.0
     return AssemblyProps(half, parts, total, izz, ixx, zc)

@@ -14,11 +14,13 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from typing import Sequence
 
 from .geometry import Profile
 from .massprops import AssemblyProps, PointPart, SectionIntegrals, clipped_section_integrals, props_from_integrals
 
-__all__ = ["SpinMetrics", "spin_metrics", "part_izz_outside", "rpm_to_rad_s", "STANDARD_GRAVITY_M_S2", "KG_M2_PER_G_MM2"]
+__all__ = ["SpinMetrics", "spin_metrics", "part_izz_outside", "parts_izz_outside", "check_spin_inputs", "rpm_to_rad_s",
+           "STANDARD_GRAVITY_M_S2", "KG_M2_PER_G_MM2"]
 
 STANDARD_GRAVITY_M_S2 = 9.80665  # standard acceleration of gravity, 3rd CGPM (1901)
 KG_M2_PER_G_MM2 = 1e-9  # 1 g = 1e-3 kg, 1 mm² = 1e-6 m²
@@ -85,6 +87,24 @@ def part_izz_outside(part: PointPart, r_cut: float) -> float:
     return part.mass_g * (r2**4 - lo**4) / (2 * (r2**2 - r1**2))
 
 
+def parts_izz_outside(parts: Sequence[PointPart], r_cut: float) -> float:
+    """The small parts' summed Izz carried at r ≥ ``r_cut`` (g·mm²), in their order."""
+    return sum(part_izz_outside(p, r_cut) for p in parts)
+
+
+def check_spin_inputs(string_radius_mm: float, rpm: float, drag_torque_n_mm: float | None,
+                      rim_radius_fraction: float) -> None:
+    """Raise ValueError for a string radius, spin rate, drag torque or rim fraction ``spin_metrics`` cannot use."""
+    if not (string_radius_mm > 0 and math.isfinite(string_radius_mm)):
+        raise ValueError(f"string radius must be > 0 mm, got {string_radius_mm}")
+    if not (rpm > 0 and math.isfinite(rpm)):
+        raise ValueError(f"spin rate must be > 0 rpm, got {rpm}")
+    if not (0 <= rim_radius_fraction < 1):
+        raise ValueError(f"rim radius fraction must be in [0, 1), got {rim_radius_fraction}")
+    if drag_torque_n_mm is not None and not (drag_torque_n_mm > 0 and math.isfinite(drag_torque_n_mm)):
+        raise ValueError(f"drag torque must be > 0 N·mm, got {drag_torque_n_mm}")
+
+
 def spin_metrics(
     profile: Profile,
     density_g_cm3: float,
@@ -104,20 +124,13 @@ def spin_metrics(
     The descent on the string is a = g / (1 + I / (m r²)); spin-down time is
     t = Izz ω₀ / τ for a steady bearing drag torque τ.
     """
-    if not (string_radius_mm > 0 and math.isfinite(string_radius_mm)):
-        raise ValueError(f"string radius must be > 0 mm, got {string_radius_mm}")
-    if not (rpm > 0 and math.isfinite(rpm)):
-        raise ValueError(f"spin rate must be > 0 rpm, got {rpm}")
-    if not (0 <= rim_radius_fraction < 1):
-        raise ValueError(f"rim radius fraction must be in [0, 1), got {rim_radius_fraction}")
-    if drag_torque_n_mm is not None and not (drag_torque_n_mm > 0 and math.isfinite(drag_torque_n_mm)):
-        raise ValueError(f"drag torque must be > 0 N·mm, got {drag_torque_n_mm}")
+    check_spin_inputs(string_radius_mm, rpm, drag_torque_n_mm, rim_radius_fraction)
     outer = profile.bounds()[3]
     r_cut = rim_radius_fraction * outer
     if rim_integrals is None:
         rim_integrals = clipped_section_integrals(profile, r_cut)
     rim_half = props_from_integrals(rim_integrals, density_g_cm3).izz_g_mm2
-    rim_izz = 2 * rim_half + sum(part_izz_outside(p, r_cut) for p in assembly.parts)
+    rim_izz = 2 * rim_half + parts_izz_outside(assembly.parts, r_cut)
     izz, ixx, m = assembly.izz_g_mm2, assembly.ixx_g_mm2, assembly.total_g
     omega = rpm_to_rad_s(rpm)
     izz_si = izz * KG_M2_PER_G_MM2
