@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from operator import itemgetter
 from typing import Any, NamedTuple
 
 from .balance import BalanceResult, balance
@@ -38,20 +39,27 @@ class SmallPartInputs(NamedTuple):
 
     silicone: bool  # a recess filled flush with silicone instead of a response pad
     pad_density: float
+    pad_mass: float | None
+    axle_mass: float | None
     bearing_mass: float
     bore: float
     od: float
     width: float
-    pad_mass: float | None
     pad_inner_d: float
     pad_outer_d: float
     thickness: float
     bottom_z: float
-    axle_mass: float | None
     spacing: float
     thread_depth: float
     pitch: float
     major_d: float
+
+
+#: the resolved values behind SmallPartInputs from ``bearing_mass`` on, in its order
+_SMALL_PART_VALUES = itemgetter("bearing.mass", "bearing.bore", "bearing.od", "bearing.width",
+                                "pad_groove.inner_diameter", "pad_groove.pad_diameter", "pad_groove.pad_thickness",
+                                "pad_groove.bottom_z", "bearing_seat.spacing", "axle_bore.thread_depth",
+                                "axle_bore.pitch", "axle_bore.major_diameter")
 
 
 def small_part_inputs(resolved: Resolved) -> SmallPartInputs:
@@ -60,13 +68,8 @@ def small_part_inputs(resolved: Resolved) -> SmallPartInputs:
     spec = resolved.design["parts"]
     pad = resolved.features["pad_groove"].extra["pad"]
     silicone = pad is None  # a recess filled flush with silicone: its own volume, sitting in the recess
-    return SmallPartInputs(
-        silicone, v["pad_groove.silicone_density"] if silicone else pad.pad_density_g_cm3,
-        v["bearing.mass"], v["bearing.bore"], v["bearing.od"], v["bearing.width"],
-        spec["pad_mass"], v["pad_groove.inner_diameter"], v["pad_groove.pad_diameter"],
-        v["pad_groove.pad_thickness"], v["pad_groove.bottom_z"],
-        spec["axle_mass"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"],
-        v["axle_bore.pitch"], v["axle_bore.major_diameter"])
+    return SmallPartInputs._make((silicone, v["pad_groove.silicone_density"] if silicone else pad.pad_density_g_cm3,
+                                  spec["pad_mass"], spec["axle_mass"]) + _SMALL_PART_VALUES(v))
 
 
 def small_parts(resolved: Resolved) -> tuple[tuple[PointPart, ...], float]:

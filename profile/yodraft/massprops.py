@@ -39,6 +39,8 @@ __all__ = [
     "AssemblyProps",
     "section_integrals",
     "clipped_section_integrals",
+    "check_clip",
+    "density_g_mm3",
     "body_props",
     "combine_bodies",
     "weighted_integrals",
@@ -355,6 +357,11 @@ def _cut_point(z0, r0, z1, r1, r_cut):  # floats or numpy arrays alike
     return z0 + (z1 - z0) * t, r0 + (r1 - r0) * t
 
 
+def _arc_piece(t0, dt, fa, fb):  # floats or numpy arrays alike
+    """Middle angle, start angle and sweep of the piece between sweep fractions fa and fb of the arc (θ0, Δθ)."""
+    return t0 + dt * (fa + fb) / 2, t0 + dt * fa, dt * (fb - fa)
+
+
 def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[ArcRow]]:
     """The loop cut at every crossing of r = r_cut, keeping the pieces that lie at r ≥ r_cut."""
     lines: list[LineRow] = []
@@ -389,10 +396,18 @@ def _clip_pieces(profile: Profile, r_cut: float) -> tuple[list[LineRow], list[Ar
             for fa, fb in zip(cuts, cuts[1:]):
                 if fb - fa <= 0:
                     continue
-                mid = s.start_angle + s.sweep * (fa + fb) / 2
+                mid, t0, dt = _arc_piece(s.start_angle, s.sweep, fa, fb)
                 if rc + s.radius * math.sin(mid) > r_cut:
-                    arcs.append((zc, rc, s.radius, s.start_angle + s.sweep * fa, s.sweep * (fb - fa)))
+                    arcs.append((zc, rc, s.radius, t0, dt))
     return lines, arcs
+
+
+def check_clip(profile: Profile, r_cut: float) -> None:
+    """Raise ValueError unless ``profile`` is a counter-clockwise loop at r ≥ 0 and ``r_cut`` a radius ≥ 0."""
+    if not (math.isfinite(r_cut) and r_cut >= 0):
+        raise ValueError(f"cut radius must be a finite value ≥ 0, got {r_cut}")
+    if profile.bounds()[1] < -_R_TOL or not profile.signed_area() > 0:
+        raise ValueError("the profile must be a counter-clockwise loop at r ≥ 0")
 
 
 def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegrals:
@@ -406,10 +421,7 @@ def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegral
     >>> round(s.a, 12)
     4.0
     """
-    if not (math.isfinite(r_cut) and r_cut >= 0):
-        raise ValueError(f"cut radius must be a finite value ≥ 0, got {r_cut}")
-    if profile.bounds()[1] < -_R_TOL or not profile.signed_area() > 0:
-        raise ValueError("the profile must be a counter-clockwise loop at r ≥ 0")
+    check_clip(profile, r_cut)
     lines, arcs = _clip_pieces(profile, r_cut)
     if not len(lines) and not len(arcs):
         return SectionIntegrals(0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0)
@@ -417,6 +429,13 @@ def clipped_section_integrals(profile: Profile, r_cut: float) -> SectionIntegral
 
 
 # --------------------------------------------------------------------- bodies
+
+
+def density_g_mm3(density_g_cm3: float) -> float:
+    """A density in g/cm³ as g/mm³; ValueError unless it is finite and > 0."""
+    if not (math.isfinite(density_g_cm3) and density_g_cm3 > 0):
+        raise ValueError(f"density must be a finite value > 0 g/cm³, got {density_g_cm3}")
+    return density_g_cm3 * G_PER_MM3_PER_G_CM3
 
 
 def turned_body(rho, r1, r3, rz2):  # floats or numpy arrays alike
@@ -431,9 +450,7 @@ def props_from_integrals(s: SectionIntegrals, density_g_cm3: float) -> BodyProps
 
     Izz = ρ 2π ∫r³ dA; Ixx about z = 0 is ½ Izz + ∫z² dm = ρ π ∫(r³ + 2 r z²) dA.
     """
-    if not (math.isfinite(density_g_cm3) and density_g_cm3 > 0):
-        raise ValueError(f"density must be a finite value > 0 g/cm³, got {density_g_cm3}")
-    volume, mass, izz, ixx = turned_body(density_g_cm3 * G_PER_MM3_PER_G_CM3, s.r1, s.r3, s.rz2)
+    volume, mass, izz, ixx = turned_body(density_g_mm3(density_g_cm3), s.r1, s.r3, s.rz2)
     zc = s.rz / s.r1 if s.r1 > 0 else 0.0
     return BodyProps(
         area_mm2=s.a,
