@@ -18,7 +18,7 @@ from __future__ import annotations
 
 import math
 from itertools import chain, compress, repeat
-from operator import attrgetter, is_
+from operator import attrgetter, is_, not_
 from typing import TYPE_CHECKING, Any, Sequence
 
 from .analysis import mass_and_spin, small_part_inputs, small_parts_from
@@ -38,7 +38,7 @@ __all__ = ["mass_outputs", "MASS_KEYS", "MIN_BATCH"]
 MASS_KEYS = ("mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2", "spin.rim_share")
 #: below this many variants the arrays cost more than they save
 MIN_BATCH = 16
-#: variants weighed in one set of arrays (a larger set no longer fits the processor's caches)
+#: variants weighed in one set of arrays (measured: about the fastest per variant; 512 or 4096 cost more)
 CHUNK = 2048
 
 _TWO_PI = 2 * math.pi  # the scalar code's ``2 * math.pi``, the same float
@@ -46,7 +46,8 @@ _TWO_PI = 2 * math.pi  # the scalar code's ``2 * math.pi``, the same float
 
 def mass_outputs(resolved: Sequence["Resolved"]) -> list[dict[str, float]]:
     """Each variant's ``MASS_KEYS`` (half and assembled mass, assembled Izz and Ixx, rim share of Izz), valued
-    exactly as ``mass_and_spin`` values them; every variant must be one that can be analysed (``can_analyse``).
+    exactly as ``mass_and_spin`` values them. Every variant must be one that can be analysed (``can_analyse``: the
+    caller asks, as the sweep does; it is not asked again here).
 
     >>> from yodraft import EXAMPLE, build, loads
     >>> from yodraft.analysis import mass_and_spin
@@ -88,8 +89,9 @@ def _each(fn: Any, x: "np.ndarray", where: "np.ndarray | None" = None) -> "np.nd
 
 
 class _Columns:
-    """The body loops of B variants side by side, each column one place in the loops, of shape (k, B):
-    every segment's ends by its place (``is_line`` marks the lines), the arcs' fields in arc order."""
+    """The body loops of B variants side by side: the k-th line of every loop in row k of the line columns
+    (z0, r0, z1, r1) and the k-th arc in row k of the arc columns, each of shape (k, B), zeros where a loop
+    has fewer (a zero line is a face on the axis, a zero arc has no radius: neither adds to any sum)."""
 
     def __init__(self, profiles: Sequence[Any]) -> None:
         import numpy as np
@@ -101,12 +103,10 @@ class _Columns:
         arcs = list(compress(segs, is_arc))
         variant = np.repeat(np.arange(b), np.fromiter(map(len, seg_lists), np.intp, b))
         arc_mask = np.array(is_arc, bool)
-        # every segment's ends as the loop checks keep them (Profile.end_points): a line's own floats
-        starts = np.concatenate([p.end_points[0] for p in profiles]).T
-        ends = np.concatenate([p.end_points[1] for p in profiles]).T
-        self.z0, self.r0, self.z1, self.r1, is_line = self._place(
-            (starts[0], starts[1], ends[0], ends[1], ~arc_mask), variant, b)
-        self.is_line = is_line.astype(bool)
+        lines = list(compress(segs, map(not_, is_arc)))
+        ends = np.fromiter(chain.from_iterable(chain.from_iterable(lines)), float, 4 * len(lines))  # Line: (start, end)
+        self.z0, self.r0, self.z1, self.r1 = self._place(
+            (ends[0::4], ends[1::4], ends[2::4], ends[3::4]), variant[~arc_mask], b)
         centres = np.fromiter(chain.from_iterable(map(attrgetter("center"), arcs)), float, 2 * len(arcs))
         fields = np.fromiter(chain.from_iterable(map(attrgetter("radius", "start_angle", "sweep"), arcs)), float,
                              3 * len(arcs))
@@ -135,15 +135,15 @@ class _Columns:
 
 
 def _line_column(acc: list["np.ndarray"], za: "np.ndarray", ra: "np.ndarray", zb: "np.ndarray", rb: "np.ndarray",
-                 c: Any, c2: Any, c4: Any, keep: "np.ndarray") -> None:
+                 c: Any, c2: Any, c4: Any, keep: "np.ndarray | None" = None) -> None:
     """Add one column of lines to the sums ``acc`` (a, r1, r3, rz2) as ``massprops._line_sums`` does: a face
     adds nothing to them, a turned diameter its ``_turned_terms``, any other line its ``_sloped_terms``;
-    ``keep`` false leaves the place out (an arc, a loop's end)."""
+    ``keep`` false leaves the line out."""
     import numpy as np
 
-    if not keep.any():
-        return
-    face = (za == zb) | ~keep
+    face = za == zb
+    if keep is not None:
+        face |= ~keep
     turned = ~face & (ra == rb)
     sloped = ~face & ~turned
     if sloped.all():
@@ -180,9 +180,8 @@ def _body_sums(cols: _Columns) -> tuple[list["np.ndarray"], "np.ndarray"]:
     lines = [np.zeros(b) for _ in range(4)]
     r_min = np.full(b, math.inf)
     for j in range(len(cols.z0)):
-        is_line = cols.is_line[j]
-        _line_column(lines, cols.z0[j], cols.r0[j], cols.z1[j], cols.r1[j], 0.0, 0.0, 0.0, is_line)
-        r_min = np.minimum(r_min, np.where(is_line, np.minimum(cols.r0[j], cols.r1[j]), math.inf))
+        _line_column(lines, cols.z0[j], cols.r0[j], cols.z1[j], cols.r1[j], 0.0, 0.0, 0.0)
+        r_min = np.minimum(r_min, np.minimum(cols.r0[j], cols.r1[j]))
     arcs = [np.zeros(b) for _ in range(4)]
     for j in range(len(cols.zc)):
         rc, a, t0, dt, t1 = cols.rc[j], cols.a[j], cols.t0[j], cols.dt[j], cols.t1[j]
@@ -206,8 +205,8 @@ def _rim_sums(cols: _Columns, c: "np.ndarray") -> list["np.ndarray"]:
     lines = [np.zeros(b) for _ in range(4)]
     for j in range(len(cols.z0)):
         z0, r0, z1, r1 = cols.z0[j], cols.r0[j], cols.z1[j], cols.r1[j]
-        cross = cols.is_line[j] & ((r0 - c) * (r1 - c) < 0)
-        keep = cross | (cols.is_line[j] & ((r0 + r1) / 2 > c))
+        cross = (r0 - c) * (r1 - c) < 0
+        keep = cross | ((r0 + r1) / 2 > c)
         if not keep.any():
             continue
         if cross.any():
