@@ -36,8 +36,9 @@ __all__ = ["mass_outputs", "MASS_KEYS", "MIN_BATCH"]
 
 #: the sweep's mass and spin outputs, in its column order
 MASS_KEYS = ("mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2", "spin.rim_share")
-#: below this many variants the arrays cost more than they save
-MIN_BATCH = 16
+#: below this many variants the arrays cost more than they save (measured: even at about 16–20, half the
+#: scalar cost per variant at 32, within a fifth of the least from about 128)
+MIN_BATCH = 24
 #: variants weighed in one set of arrays (measured: about the fastest per variant; 512 or 4096 cost more)
 CHUNK = 2048
 
