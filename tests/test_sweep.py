@@ -128,3 +128,26 @@ def test_verdict_only_build_fails_the_same_checks(template: str) -> None:
             assert [c[:4] for c in lean.failed] == [c[:4] for c in full.failed]
             thin.append(any(c.name == "least wall across metal" for c in full.failed))
     assert any(thin) and not all(thin)  # the grid reaches both sides of the least wall
+
+
+@pytest.mark.parametrize("template", ["string-trick", "arc-organic", "bimetal-ring"])
+def test_a_chunk_of_variants_equals_each_built_alone(template: str) -> None:
+    # a chunk judges its loops and weighs its halves all at once: every variant must carry exactly the
+    # verdict and the figures (to the bit) of its own full build and the one-at-a-time outputs
+    from yodraft.batch_mass import MIN_BATCH
+    from yodraft.sweep import _outputs, run_variants
+
+    base = load(TEMPLATES / f"{template}.toml")
+    axes = [parse_vary("features.rim.thickness=0.8mm:6mm:12", base), parse_vary("shop.min_wall=0.4mm:1.6mm:5", base)]
+    points = [(i * 5 + j, (u, v)) for i, u in enumerate(axes[0].values()) for j, v in enumerate(axes[1].values())]
+    chunk = run_variants(base, axes, points)
+    assert sum(v.ok for v in chunk) not in (0, len(chunk))
+    assert sum("mass.half_g" in v.outputs for v in chunk) >= MIN_BATCH  # enough halves to be weighed at once
+    for variant, (_, (u, v)) in zip(chunk, points):
+        alone = build(with_values(base, [(axes[0].key, u), (axes[1].key, v)]))
+        assert variant.ok is alone.ok
+        assert variant.failed == tuple(f"{c.name} [{c.feature}.{c.parameter}]" for c in alone.failed)
+        expected = _outputs(alone)
+        assert variant.outputs.keys() == expected.keys()
+        assert [float.hex(x) for x in variant.outputs.values() if x is not None] == \
+            [float.hex(x) for x in expected.values() if x is not None]

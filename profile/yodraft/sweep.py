@@ -140,21 +140,39 @@ def parse_vary(text: str, design: "Design") -> Axis:
     return Axis(full, spec.kind, values[0], values[1], count)
 
 
-def _outputs(resolved: "Resolved") -> dict[str, float | None]:
-    """A variant's OUTPUT_KEYS, valued as in its ``check --json`` summary (mass keys only when it can be weighed)."""
-    from .analysis import mass_and_spin
-
+def _sizes(resolved: "Resolved") -> dict[str, float | None]:
+    """A variant's gap, diameter, width and bearing-seat clearances, as in its ``check --json`` summary."""
     v = resolved.values
     post = resolved.seat_fit.post
     out = {"profile.gap_mm": v["bearing_seat.gap"], "profile.outer_diameter_mm": v.get("profile.outer_diameter"),
            "profile.width_mm": v.get("profile.width"), "bearing_seat.clearance_min_mm": post.clearance_min_mm,
            "bearing_seat.clearance_max_mm": post.clearance_max_mm}
+    return {k: (None if x is None else float(x)) for k, x in out.items()}
+
+
+def _outputs(resolved: "Resolved") -> dict[str, float | None]:
+    """A variant's OUTPUT_KEYS, valued as in its ``check --json`` summary (mass keys only when it can be weighed),
+    one variant at a time: the reference ``_outputs_many`` must equal."""
+    from .analysis import mass_and_spin
+    from .batch_mass import MASS_KEYS
+
+    out = _sizes(resolved)
     if resolved.can_analyse:
         m = mass_and_spin(resolved)
-        out.update({"mass.half_g": m.half.mass_g, "mass.total_g": m.assembly.total_g,
-                    "mass.izz_g_mm2": m.assembly.izz_g_mm2, "mass.ixx_g_mm2": m.assembly.ixx_g_mm2,
-                    "spin.rim_share": m.spin.rim_share})
-    return {k: (None if x is None else float(x)) for k, x in out.items()}
+        figures = (m.half.mass_g, m.assembly.total_g, m.assembly.izz_g_mm2, m.assembly.ixx_g_mm2, m.spin.rim_share)
+        out.update(zip(MASS_KEYS, map(float, figures)))
+    return out
+
+
+def _outputs_many(resolved: Sequence["Resolved"]) -> list[dict[str, float | None]]:
+    """``_outputs`` of many variants, the mass figures of those that can be weighed worked out all at once."""
+    from .batch_mass import mass_outputs
+
+    out = [_sizes(r) for r in resolved]
+    weighed = [n for n, r in enumerate(resolved) if r.can_analyse]
+    for n, figures in zip(weighed, mass_outputs([resolved[n] for n in weighed])):
+        out[n].update(figures)
+    return out
 
 
 def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[int, tuple[float, ...]]],
@@ -181,18 +199,23 @@ def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[in
     profiles = [done[n][2].profile for n in looped]
     uncrossed = dict(zip(looped, crossing_free(profiles) if profiles else []))
     thin = dict(zip(looped, thin_walls(profiles, [done[n][2].design["shop"]["min_wall"] - 1e-9 for n in looped])))
-    out = []
+    judged: list[tuple[int, tuple[float, ...], Any]] = []  # (index, shown inputs, Resolved or the input error)
     for n, (index, shown, c) in enumerate(done):
         if not isinstance(c, Exception):
             try:
-                resolved = judge(c, verdict_only=True, uncrossed=uncrossed.get(n), thin=thin.get(n))
+                c = judge(c, verdict_only=True, uncrossed=uncrossed.get(n), thin=thin.get(n))
             except (YodraftError, ValueError) as exc:
                 c = exc
-        if isinstance(c, Exception):
-            out.append(Variant(index, shown, False, (f"input: {c}",), {}))
-            continue
-        failed = tuple(f"{f.name} [{f.feature}.{f.parameter}]" for f in resolved.failed)
-        out.append(Variant(index, shown, resolved.ok, failed, _outputs(resolved)))
+        judged.append((index, shown, c))
+    resolved = [r for _, _, r in judged if not isinstance(r, Exception)]
+    outputs = iter(_outputs_many(resolved))
+    out = []
+    for index, shown, r in judged:
+        if isinstance(r, Exception):
+            out.append(Variant(index, shown, False, (f"input: {r}",), {}))
+        else:
+            failed = tuple(f"{f.name} [{f.feature}.{f.parameter}]" for f in r.failed)
+            out.append(Variant(index, shown, r.ok, failed, next(outputs)))
     return out
 
 
