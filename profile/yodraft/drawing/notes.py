@@ -102,7 +102,8 @@ def fit_lines(resolved: Resolved) -> list[str]:
         sheet = sheet_number(resolved, resolved.parts[1].name)
         out.append(f"Ring: see sheet {sheet}; interference {lo / 1000:.3f}…{hi / 1000:.3f}, "
                    f"{ring.heated_or_cooled()} by ΔT {ring.assembly_delta_t_k:.0f} K; faced flush with the face "
-                   "after pressing")
+                   "after pressing" + (f", then its R{size_text(v['ring.edge_radius'])} edge turned"
+                                       if v["ring.edge_radius"] > 0 else ""))
         if ring.seat == "outer diameter":  # the ring's outside is the rim: one cut over both parts makes it true
             out.append(f"Rim Ø{size_text(ring.ring_diameters_mm[1])} finish-turned over ring and body after the "
                        "ring is pressed")

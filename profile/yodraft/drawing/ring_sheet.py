@@ -68,9 +68,10 @@ def _sized(fit, lim: Limits) -> str:  # type: ignore[no-untyped-def]
     return f"Ø{size_text(fit.interface_mm)} {deviations(lim)}"
 
 
-def ring_note_lines(fit, body_sheet: str = "") -> list[str]:  # type: ignore[no-untyped-def]
+def ring_note_lines(fit, body_sheet: str = "", edge_radius_mm: float = 0.0) -> list[str]:  # type: ignore[no-untyped-def]
     """The press-fit figures as notes: both sizes of the fit, interference over temperature, pressure,
-    stresses, hold, and how it is assembled (the temperature difference the check reports)."""
+    stresses, hold, and how it is assembled (the temperature difference the check reports). Facing the
+    proud ring flush cuts into the radius of its face edge, so that radius is turned after facing."""
     lo, hi = fit.interference_um
     code = "" if fit.fit is None else " " + fit.fit_text.split(" ", 1)[1]
     where = f" ({body_sheet})" if body_sheet else ""
@@ -86,7 +87,8 @@ def ring_note_lines(fit, body_sheet: str = "") -> list[str]:  # type: ignore[no-
         f"at least {fit.safety_factor:.2f} (Lamé)",
         f"   holds {fit.hold_force_n:.0f} N axially and {fit.hold_torque_n_mm / 1000:.1f} N·m (friction {fit.friction:g})",
         f"Assembly: {fit.heated_or_cooled()} by ΔT {fit.assembly_delta_t_k:.0f} K, press home against the seat "
-        "bottom; fit surfaces clean and dry; then face the ring flush with the face",
+        "bottom; fit surfaces clean and dry; then face the ring flush with the face"
+        + (f" and turn its R{size_text(edge_radius_mm)} edge" if edge_radius_mm > 0 else ""),
     ] + ([f"Outside Ø{size_text(fit.ring_diameters_mm[1])} is the rim diameter: finish-turned with the body after "
           f"pressing{where}; leave stock on it here"] if fit.seat == "outer diameter" else [])
 
@@ -261,7 +263,7 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     rev = _revision_block(font, resolved, (right_x, frame[3]), frame[2] - right_x)
     items += rev
     body_sheet = body_sheet or f"{d['design']['identification'] or d.name} sheet {sheet_number(resolved)}"
-    notes = [_material_line(fit.material)] + ring_note_lines(fit, body_sheet) + [
+    notes = [_material_line(fit.material)] + ring_note_lines(fit, body_sheet, resolved.values["ring.edge_radius"]) + [
         f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
         f"fit surface Ra 0.8 µm",
         f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
