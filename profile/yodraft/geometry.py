@@ -407,19 +407,21 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     tangent to both edges. Returns the profile and the owners of radii that do
     not fit on their edges (those corners are left sharp).
     """
-    n = len(vertices)
     pts = [v.point for v in vertices]
-    edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]  # edge i runs from corner i to corner i + 1
+    edge = list(map(_dist, pts, pts[1:] + pts[:1]))  # edge i runs from corner i to corner i + 1
     if min(edge, default=0.0) <= 1e-9:
         # drop repeated points so every edge has a direction
         pts = [p for p, length in zip(pts, edge) if length > 1e-9]
         vertices = [v for v, length in zip(vertices, edge) if length > 1e-9]
-        n = len(vertices)
-        edge = [_dist(pts[i], pts[(i + 1) % n]) for i in range(n)]
+        edge = list(map(_dist, pts, pts[1:] + pts[:1]))
+    n = len(vertices)
     if n < 3:
         raise GeometryError("a loop needs at least three distinct corners")
-    arcs = [arc_through(pts[i], pts[(i + 1) % n], v.sweep) if v.sweep else None for i, v in enumerate(vertices)]
-    measure = [abs(a.sweep) if a is not None else edge[i] for i, a in enumerate(arcs)]  # angle along an arc edge
+    if any(v.sweep for v in vertices):
+        arcs = [arc_through(pts[i], pts[(i + 1) % n], v.sweep) if v.sweep else None for i, v in enumerate(vertices)]
+        measure = [abs(a.sweep) if a is not None else edge[i] for i, a in enumerate(arcs)]  # angle along an arc edge
+    else:
+        arcs, measure = [None] * n, edge
     trim_in = [0.0] * n  # how much of edge i - 1 the fillet at corner i takes, at its end
     trim_out = [0.0] * n  # how much of edge i it takes, at its start
     plans: list[tuple[Point, Point, Arc] | None] = [None] * n
