@@ -243,7 +243,8 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
     """Run every check on a composed design and give it resolved.
 
     ``verdict_only`` (a sweep, which reports only which checks fail) leaves out the re-entrant regions,
-    which are named but never fail, and asks of the least wall only whether it is below the shop's least.
+    which are named but never fail, and the axial stack (``axial.*``), which no check reads, and asks of the
+    least wall only whether it is below the shop's least.
     ``uncrossed`` (the flattened loop does not cross itself) and ``thin`` (a wall is below the shop's least)
     are those verdicts when already found for many loops at once (``checks.crossing_free``, ``checks.thin_walls``).
     """
@@ -268,8 +269,10 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
         parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,
                       design["shop"]["coating"]),) + added
         z_min, _, z_max, r_max = profile.bounds()
-        depth, depth_tol, width_stack = seat_depth_stack(values, design["shop"]["general_tolerance"])
-        values.update({"axial.seat_depth": depth, "axial.seat_depth_tolerance": depth_tol, "axial.width_stack": width_stack})
+        if not verdict_only:  # the sheet's and the summary's axial stack; no check reads it
+            depth, depth_tol, width_stack = seat_depth_stack(values, design["shop"]["general_tolerance"])
+            values.update({"axial.seat_depth": depth, "axial.seat_depth_tolerance": depth_tol,
+                           "axial.width_stack": width_stack})
         values.update({"profile.outer_diameter": 2 * r_max, "profile.width": 2 * z_max,
                        "profile.gap": values["bearing_seat.gap"], "profile.post_length": values["bearing_seat.post_length"]})
     return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks), parts)
