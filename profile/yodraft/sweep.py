@@ -264,7 +264,9 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
         points = [(i * len(grids[1]) + j, (u, v)) for i, u in enumerate(grids[0]) for j, v in enumerate(grids[1])]
     # never more workers than the machine has cores, nor than chunks to give them
     workers = min(workers if workers is not None else 8, os.cpu_count() or 1)
-    size = max(16, math.ceil(total / (workers * 16)))  # small chunks: no worker idles long at the end
+    # four chunks a worker (none idles long at the end), each large enough for the batched checks to pay
+    # and at most 2,048 variants, so a worker holds few at once
+    size = min(2048, max(64, math.ceil(total / (workers * 4))))
     chunks = [points[k:k + size] for k in range(0, total, size)]
     workers = min(workers, len(chunks))
     done: list[Variant] = []
