@@ -5,7 +5,10 @@ kept with the checks that failed. The outputs (gap, clearances, mass, Izz, rim
 share) carry the names and values of the ``check --json`` summary, worked out
 without the rest of it. Large grids are split into chunks run across processes,
 each keeping a BuildMemo so the features a varied key does not reach are
-resolved once.
+resolved once. A chunk's variants are composed one by one, then judged and
+weighed together: whether each loop crosses itself and whether a wall is too
+thin are answered for all its loops at once, and so are the mass figures
+(``batch_mass``), each exactly what building the variant alone gives.
 
 >>> from yodraft import loads, EXAMPLE
 >>> axis = parse_vary("rim.band_width=6mm:8mm:3", loads(EXAMPLE))
