@@ -297,10 +297,6 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
             return d, (pz, pr), (qz, qr)
 
 
-def _arc_flags(profile: "Profile") -> tuple[bool, ...]:
-    return tuple(hasattr(s, "center") for s in profile.segments)
-
-
 @functools.lru_cache(maxsize=64)  # a sweep's loops keep their number of surfaces
 def _pair_mask(n: int) -> "np.ndarray":
     """(n, n): True for the pairs (i, j) of ``_pairs(n)``."""
@@ -322,11 +318,11 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bo
     tol = LOOP_CHECK_TOLERANCE
     groups: dict[tuple[bool, ...], list[int]] = {}
     for b, p in enumerate(profiles):
-        groups.setdefault(_arc_flags(p), []).append(b)
+        groups.setdefault(tuple(map(type, p.segments)), []).append(b)  # the run of lines and arcs
     near: list[tuple[int, int, int]] = []  # (loop, surface, surface) whose boxes lie closer than the loop's below
-    for flags, members in groups.items():
-        n = len(flags)
-        arcs = [i for i, is_arc in enumerate(flags) if is_arc]
+    for kinds, members in groups.items():
+        n = len(kinds)
+        arcs = [i for i, s in enumerate(profiles[members[0]].segments) if hasattr(s, "center")]
         segs = [s for b in members for s in profiles[b].segments]
         starts = np.fromiter(chain.from_iterable(s.start for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
         ends = np.fromiter(chain.from_iterable(s.end for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
