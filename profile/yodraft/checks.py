@@ -357,7 +357,8 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bo
         pts = tuple(s.flattened(tol)) + (s.end,) if hasattr(s, "center") else (s.start, s.end)
         coords += pts
         counts.append(len(pts))
-    lines = shapely.linestrings(np.array(coords), indices=np.repeat(np.arange(len(counts)), counts))
+    flat = np.fromiter(chain.from_iterable(coords), float, 2 * len(coords)).reshape(-1, 2)
+    lines = shapely.linestrings(flat, indices=np.repeat(np.arange(len(counts)), counts))
     first = lines[[place[(b, i)] for b, i, _ in near]]
     second = lines[[place[(b, j)] for b, _, j in near]]
     dist = shapely.distance(first, second)
