@@ -202,23 +202,34 @@ def _pairs(n: int) -> tuple["np.ndarray", "np.ndarray"]:
 
 def _ends(profile: "Profile") -> tuple["np.ndarray", "np.ndarray", list[int], "np.ndarray"]:
     """The surfaces' start and end points as (n, 2) arrays, which of them are arcs, and which are
-    off the spin axis (what ``_on_axis`` leaves)."""
-    import numpy as np  # imported where used: the quick commands never load it
+    off the spin axis (``_off_axis``)."""
     starts, ends = profile.end_points
     arcs = [i for i, s in enumerate(profile.segments) if hasattr(s, "center")]
-    off_axis = (np.abs(starts[:, 1]) >= ON_AXIS) | (np.abs(ends[:, 1]) >= ON_AXIS)
-    off_axis[arcs] = True
-    return starts, ends, arcs, off_axis
+    return starts, ends, arcs, _off_axis(starts, ends, arcs)
 
 
-def _boxes(segs: Sequence[Any], starts: "np.ndarray", ends: "np.ndarray", arcs: Sequence[int]) -> "np.ndarray":
-    """Each surface's box (z_min, r_min, z_max, r_max): a line's two ends, an arc's extent and end."""
+def _off_axis(starts: "np.ndarray", ends: "np.ndarray", arcs: Sequence[int]) -> "np.ndarray":
+    """Which surfaces, their ends given as (..., n, 2) arrays, are off the spin axis (what ``_on_axis``
+    leaves; an arc always is)."""
     import numpy as np  # imported where used: the quick commands never load it
-    box = np.hstack((np.minimum(starts, ends), np.maximum(starts, ends)))
-    for i in arcs:
-        (zl, rl, zh, rh), (z1, r1) = segs[i].extent, segs[i].end
-        box[i] = (min(zl, z1), min(rl, r1), max(zh, z1), max(rh, r1))
-    return box
+    off = (np.abs(starts[..., 1]) >= ON_AXIS) | (np.abs(ends[..., 1]) >= ON_AXIS)
+    off[..., arcs] = True
+    return off
+
+
+def _box_corners(profiles: Sequence["Profile"], starts: "np.ndarray", ends: "np.ndarray",
+                 arcs: Sequence[int]) -> tuple["np.ndarray", "np.ndarray"]:
+    """Each surface's box as its low and high corners, (B, n, 2) arrays: a line's two ends, an arc's extent
+    and end; for B loops of one run of lines and arcs (``arcs`` the arcs' places), their ends given as
+    (B, n, 2) arrays."""
+    import numpy as np  # imported where used: the quick commands never load it
+    lo, hi = np.minimum(starts, ends), np.maximum(starts, ends)
+    if arcs:
+        ext = np.fromiter(chain.from_iterable(p.segments[i].extent for p in profiles for i in arcs), float,
+                          4 * len(profiles) * len(arcs)).reshape(len(profiles), len(arcs), 4)
+        tip = ends[:, arcs]
+        lo[:, arcs], hi[:, arcs] = np.minimum(ext[..., :2], tip), np.maximum(ext[..., 2:], tip)
+    return lo, hi
 
 
 #: how far (mm) below a pair's box distance its true distance may fall by rounding
@@ -244,7 +255,8 @@ def least_wall(profile: "Profile") -> tuple[float, Point, Point] | None:
     i_use, j_use = i_all[use], j_all[use]
     if not len(i_use):
         return None
-    box = _boxes(segs, starts, ends, arcs)
+    lo, hi = _box_corners([profile], starts[None], ends[None], arcs)
+    box = np.concatenate((lo[0], hi[0]), axis=1)  # (z_min, r_min, z_max, r_max) of each surface
     box_i, box_j = box[i_use], box[j_use]
     gap = np.maximum(np.maximum(box_j[:, :2] - box_i[:, 2:], box_i[:, :2] - box_j[:, 2:]), 0.0)  # along z and r
     floor = np.hypot(gap[:, 0], gap[:, 1]) - _BOX_SLACK  # no pair is closer
@@ -316,7 +328,7 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bo
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     tol = LOOP_CHECK_TOLERANCE
-    groups: dict[tuple[bool, ...], list[int]] = {}
+    groups: dict[tuple[type, ...], list[int]] = {}
     for b, p in enumerate(profiles):
         groups.setdefault(tuple(map(type, p.segments)), []).append(b)  # the run of lines and arcs
     near: list[tuple[int, int, int]] = []  # (loop, surface, surface) whose boxes lie closer than the loop's below
@@ -326,14 +338,8 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bo
         segs = [s for b in members for s in profiles[b].segments]
         starts = np.fromiter(chain.from_iterable(s.start for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
         ends = np.fromiter(chain.from_iterable(s.end for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
-        lo, hi = np.minimum(starts, ends), np.maximum(starts, ends)
-        if arcs:  # an arc's box is its extent and its end (as in _boxes)
-            ext = np.fromiter(chain.from_iterable(profiles[b].segments[i].extent for b in members for i in arcs), float,
-                              4 * len(members) * len(arcs)).reshape(len(members), len(arcs), 4)
-            tip = ends[:, arcs]
-            lo[:, arcs], hi[:, arcs] = np.minimum(ext[..., :2], tip), np.maximum(ext[..., 2:], tip)
-        keep = (np.abs(starts[..., 1]) >= ON_AXIS) | (np.abs(ends[..., 1]) >= ON_AXIS)
-        keep[:, arcs] = True
+        lo, hi = _box_corners([profiles[b] for b in members], starts, ends, arcs)
+        keep = _off_axis(starts, ends, arcs)
         # surfaces i (rows) and j (columns) can be closer than the limit only where their boxes are,
         # along z and along r (the true distance is at least each); the few pairs left are measured
         limit = np.array([below[b] for b in members])[:, None, None] + _BOX_SLACK
