@@ -136,3 +136,43 @@ def test_a_fillet_too_big_for_an_arc_edge_is_a_misfit() -> None:
                FilletVertex((0.0, 8.0))]
     _, misfits = fillet_loop(corners)
     assert misfits == ["c"]
+
+
+@given(st.floats(2.0, 20.0), st.floats(2.0, 20.0), st.floats(0.05, 0.7), st.floats(0.05, 0.7))
+def test_the_straight_loop_pass_equals_the_general_pass(w: float, h: float, share_a: float, share_b: float) -> None:
+    """A loop of straight edges takes a shorter pass; it must give what the general pass gives, fillets that
+    overlap on an edge included (then the general pass leaves both corners sharp and names them).
+    Reference: the general pass of ``fillet_loop`` (the same rule, corner by corner)."""
+    import yodraft.geometry as geometry
+
+    corners = [FilletVertex((0.0, 1.0), share_a * min(w, h), "a"), FilletVertex((w, 1.0), share_b * min(w, h), "b"),
+               FilletVertex((w, 1.0 + h), share_a * min(w, h), "c"), FilletVertex((0.0, 1.0 + h))]
+    fast = fillet_loop(corners)
+    keep = geometry._straight_loop
+    geometry._straight_loop = lambda *args: None
+    try:
+        general = fillet_loop(corners)
+    finally:
+        geometry._straight_loop = keep
+    assert fast == general
+    assert [type(s) for s in fast[0].segments] == [type(s) for s in general[0].segments]
+
+
+def test_every_template_loop_is_the_same_by_either_pass() -> None:
+    """Every template's body loop from the straight-loop pass equals the general pass's, segment by segment."""
+    from pathlib import Path
+
+    import yodraft.geometry as geometry
+    from yodraft import build, load
+
+    templates = sorted((Path(__file__).parents[1] / "templates").glob("*.toml"))
+    assert templates
+    for path in templates:
+        fast = build(load(path)).profile
+        keep = geometry._straight_loop
+        geometry._straight_loop = lambda *args: None
+        try:
+            general = build(load(path)).profile
+        finally:
+            geometry._straight_loop = keep
+        assert fast == general, path.name

@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import math
+import operator
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from types import MappingProxyType, ModuleType
@@ -180,7 +181,9 @@ class BuildMemo:
         if kept is not None:
             k_params, k_reads, k_shop, result, published = kept
             if (_same(k_params, params) and (k_shop is None or _same(k_shop, shop))
-                    and all(key in values and _same(values[key], value) for key, value in k_reads.items())):
+                    # the same objects (an earlier feature reused too) first, at C speed; then equal values
+                    and (all(map(operator.is_, map(values.get, k_reads), k_reads.values()))
+                         or all(key in values and _same(values[key], value) for key, value in k_reads.items()))):
                 return result, published
         ctx = Context(values, shop)
         result = module.resolve(ctx, params)

@@ -31,6 +31,7 @@ class GeometryError(ValueError):
     """Geometry that cannot be composed (an open loop, a fillet that does not fit)."""
 
 
+_new_tuple = tuple.__new__
 _dist = math.dist  # distance between two points (the same sum as math.hypot of the differences)
 
 
@@ -144,9 +145,11 @@ class Profile:
     def __post_init__(self) -> None:
         if len(self.segments) < 2:
             raise GeometryError("a profile needs at least two segments")
-        for a, b in zip(self.segments, self.segments[1:] + self.segments[:1]):
-            if _dist(a.end, b.start) > CLOSE_TOL_MM:
-                raise GeometryError(f"loop is open between {a.end} and {b.start}")
+        segs = self.segments
+        ends, starts = [s.end for s in segs], [s.start for s in segs[1:] + segs[:1]]
+        if max(map(_dist, ends, starts)) > CLOSE_TOL_MM:
+            end, start = next((a, b) for a, b in zip(ends, starts) if _dist(a, b) > CLOSE_TOL_MM)
+            raise GeometryError(f"loop is open between {end} and {start}")
 
     @classmethod
     def from_points(cls, points: list[Point]) -> "Profile":
@@ -400,6 +403,33 @@ def _fillet_next_to_arc(prev: Point, here: Point, nxt: Point, arc_in: Arc | None
     return took_in, took_out, f_in, f_out, Arc(centre, radius, a0, sweep)
 
 
+def _straight_loop(vertices: list[FilletVertex], pts: list[Point], edge: list[float]) -> tuple[Profile, list[str]] | None:
+    """``fillet_loop`` of a loop of straight edges whose every fillet fits its edges (a sweep's usual loop), in
+    fewer passes; None when a fillet does not fit, which the general pass sorts out."""
+    nxt = pts[1:] + pts[:1]
+    plans = [_fillet(p, h, q, v.radius) if v.radius > 0 else None
+             for p, h, q, v in zip(pts[-1:] + pts[:-1], pts, nxt, vertices)]
+    segments: list[Segment] = []
+    add = segments.append
+    for here, there, length, plan, plan_next in zip(pts, nxt, edge, plans, plans[1:] + plans[:1]):
+        if plan is None:
+            start, taken = here, 0.0
+        else:
+            start, taken = plan[2], plan[0]
+        if plan_next is None:
+            end = there
+        else:
+            end = plan_next[1]
+            taken += plan_next[0]
+        if taken > length + 1e-9:
+            return None  # the two fillets overlap on this edge
+        if _dist(start, end) > 1e-9:
+            add(_new_tuple(Line, (start, end)))  # Line(start, end), without the constructor's call
+        if plan_next is not None:
+            add(plan_next[3])
+    return Profile(tuple(segments)), []
+
+
 def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     """Compose a closed loop through ``vertices``, rounding each corner that has a radius.
 
@@ -417,6 +447,10 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     n = len(vertices)
     if n < 3:
         raise GeometryError("a loop needs at least three distinct corners")
+    if not any(v.sweep for v in vertices):
+        straight = _straight_loop(vertices, pts, edge)
+        if straight is not None:
+            return straight
     if any(v.sweep for v in vertices):
         arcs = [arc_through(pts[i], pts[(i + 1) % n], v.sweep) if v.sweep else None for i, v in enumerate(vertices)]
         measure = [abs(a.sweep) if a is not None else edge[i] for i, a in enumerate(arcs)]  # angle along an arc edge
