@@ -151,3 +151,23 @@ def test_a_chunk_of_variants_equals_each_built_alone(template: str) -> None:
         assert variant.outputs.keys() == expected.keys()
         assert [float.hex(x) for x in variant.outputs.values() if x is not None] == \
             [float.hex(x) for x in expected.values() if x is not None]
+
+
+def test_the_lines_written_by_the_workers_make_the_csv_written_afresh() -> None:
+    """A variant's CSV line is written where it was run; joined, the lines must give the very CSV that writing every
+    row afresh from the variants gives, quoting included (reference: Python's csv writer over the rows)."""
+    from dataclasses import replace
+
+    from yodraft.sweep import SweepResult, csv_text
+
+    design = load(DESIGN)
+    axes = [parse_vary("rim.band_width=2mm:12mm:12", design), parse_vary("rim.thickness=0.5mm:6mm:11", design)]
+    for workers in (1, 2):
+        result = sweep(design, axes, workers=workers)
+        assert all(v.line for v in result.variants)
+        afresh = SweepResult(result.design_name, result.axes, tuple(replace(v, line="") for v in result.variants))
+        text = csv_text(result)
+        assert text == csv_text(afresh)
+        rows = list(csv.reader(io.StringIO(text)))
+        assert len(rows) == 1 + 132 and {len(r) for r in rows} == {len(rows[0])}
+        assert any(r[rows[0].index("failed")] for r in rows[1:])  # some variants fail, so the failed column is written

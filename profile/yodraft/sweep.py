@@ -8,7 +8,9 @@ each keeping a BuildMemo so the features a varied key does not reach are
 resolved once. A chunk's variants are composed one by one, then judged and
 weighed together: whether each loop crosses itself and whether a wall is too
 thin are answered for all its loops at once, and so are the mass figures
-(``batch_mass``), each exactly what building the variant alone gives.
+(``batch_mass``), each exactly what building the variant alone gives. Each
+variant's CSV line is written where it ran, so a parallel sweep's CSV is only
+joined at the end.
 
 >>> from yodraft import loads, EXAMPLE
 >>> axis = parse_vary("rim.band_width=6mm:8mm:3", loads(EXAMPLE))
@@ -24,7 +26,7 @@ import re
 import sys
 from collections.abc import Callable, Mapping, Sequence
 from concurrent.futures import ProcessPoolExecutor
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any
 
 from .builder import BuildMemo, compose, judge
@@ -85,6 +87,8 @@ class Variant:
     ok: bool
     failed: tuple[str, ...]
     outputs: Mapping[str, float | None]
+    #: its CSV line with a column for every OUTPUT_KEYS entry (``csv_text``), written where the variant was run
+    line: str = field(default="", compare=False, repr=False)
 
 
 @dataclass(frozen=True)
@@ -213,12 +217,15 @@ def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[in
     resolved = [r for _, _, r in judged if not isinstance(r, Exception)]
     outputs = iter(_outputs_many(resolved))
     out = []
+    lines = _Lines()
+    writer = _writer(lines)
     for index, shown, r in judged:
         if isinstance(r, Exception):
-            out.append(Variant(index, shown, False, (f"input: {r}",), {}))
+            ok, failed, values = False, (f"input: {r}",), {}
         else:
-            failed = tuple(f"{f.name} [{f.feature}.{f.parameter}]" for f in r.failed)
-            out.append(Variant(index, shown, r.ok, failed, next(outputs)))
+            ok, failed, values = r.ok, tuple(f"{f.name} [{f.feature}.{f.parameter}]" for f in r.failed), next(outputs)
+        writer.writerow(_csv_row(index, shown, ok, failed, values, OUTPUT_KEYS))
+        out.append(Variant(index, shown, ok, failed, values, lines[-1]))
     return out
 
 
@@ -298,16 +305,40 @@ def _num(v: float | None) -> str:
     return "" if v is None else f"{v:.10g}"
 
 
-def csv_text(result: SweepResult) -> str:
-    """The sweep as CSV: index, varied inputs, ok, failed checks (``;``-separated), then the outputs."""
+class _Lines(list):
+    """A file that keeps each line written to it (a CSV writer writes a row in one call)."""
+
+    write = list.append
+
+
+def _writer(file: Any) -> Any:
     import csv
+
+    return csv.writer(file, lineterminator="\n")
+
+
+def _csv_row(index: int, inputs: Sequence[float], ok: bool, failed: Sequence[str], outputs: Mapping[str, float | None],
+             keys: Sequence[str]) -> list[Any]:
+    """One variant's CSV row: index, inputs, ok, failed checks, then its value of each of ``keys``."""
+    return ([index] + [_num(x) for x in inputs] + ["true" if ok else "false", "; ".join(failed)]
+            + [_num(outputs.get(k)) for k in keys])
+
+
+def csv_text(result: SweepResult) -> str:
+    """The sweep as CSV: index, varied inputs, ok, failed checks (``;``-separated), then the outputs.
+
+    When every output column is present (any variant weighed), each variant's line as its worker wrote it.
+    """
     import io
 
     keys = result.output_keys
     out = io.StringIO()
-    writer = csv.writer(out, lineterminator="\n")
+    writer = _writer(out)
     writer.writerow(["index"] + [a.column for a in result.axes] + ["ok", "failed"] + keys)
+    whole = tuple(keys) == OUTPUT_KEYS
     for v in result.variants:
-        writer.writerow([v.index] + [_num(x) for x in v.inputs] + ["true" if v.ok else "false", "; ".join(v.failed)]
-                        + [_num(v.outputs.get(k)) for k in keys])
+        if whole and v.line:
+            out.write(v.line)
+        else:
+            writer.writerow(_csv_row(v.index, v.inputs, v.ok, v.failed, v.outputs, keys))
     return out.getvalue()
