@@ -287,8 +287,11 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
             if progress:
                 progress(len(done), total)
     else:
-        # objects that exist before the fork are frozen, so no worker's collector walks (and copies) them
+        # objects that exist before the fork are frozen, so no worker's collector walks (and copies) them;
+        # the variants coming back make no reference cycles, so the collector is off while they come
         gc.freeze()
+        enabled = gc.isenabled()
+        gc.disable()
         try:
             with ProcessPoolExecutor(max_workers=workers, mp_context=_context()) as pool:
                 for result in pool.map(_run_chunk, [base] * len(chunks), [tuple(axes)] * len(chunks), chunks):
@@ -297,6 +300,8 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
                         progress(len(done), total)
         finally:
             gc.unfreeze()
+            if enabled:
+                gc.enable()
     done.sort(key=lambda v: v.index)
     return SweepResult(base.name, tuple(axes), tuple(done))
 
