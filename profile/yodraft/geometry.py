@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import functools
 import math
-from itertools import chain
+from itertools import chain, repeat
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, NamedTuple, Union
 
@@ -406,27 +406,28 @@ def _fillet_next_to_arc(prev: Point, here: Point, nxt: Point, arc_in: Arc | None
 def _straight_loop(vertices: list[FilletVertex], pts: list[Point], edge: list[float]) -> tuple[Profile, list[str]] | None:
     """``fillet_loop`` of a loop of straight edges whose every fillet fits its edges (a sweep's usual loop), in
     fewer passes; None when a fillet does not fit, which the general pass sorts out."""
-    nxt = pts[1:] + pts[:1]
-    plans = [_fillet(p, h, q, v.radius) if v.radius > 0 else None
-             for p, h, q, v in zip(pts[-1:] + pts[:-1], pts, nxt, vertices)]
+    n = len(pts)
+    starts, ends = pts[:], pts[1:] + pts[:1]  # edge i runs from corner i to corner i + 1, until a fillet trims it
+    arc_after: list[Arc | None] = [None] * n  # the fillet at the end of edge i
+    trim = [0.0] * n  # how much of each of its two edges the fillet at corner i takes
+    rounded = []
+    for i, v in enumerate(vertices):
+        if v.radius > 0:
+            plan = _fillet(pts[i - 1], pts[i], ends[i], v.radius)
+            if plan is not None:
+                trim[i], ends[i - 1], starts[i], arc_after[i - 1] = plan
+                rounded.append(i)
+    for i in rounded:  # the fillets at both ends of an edge must fit on it together
+        if trim[i - 1] + trim[i] > edge[i - 1] + 1e-9 or trim[i] + trim[(i + 1) % n] > edge[i] + 1e-9:
+            return None
     segments: list[Segment] = []
     add = segments.append
-    for here, there, length, plan, plan_next in zip(pts, nxt, edge, plans, plans[1:] + plans[:1]):
-        if plan is None:
-            start, taken = here, 0.0
-        else:
-            start, taken = plan[2], plan[0]
-        if plan_next is None:
-            end = there
-        else:
-            end = plan_next[1]
-            taken += plan_next[0]
-        if taken > length + 1e-9:
-            return None  # the two fillets overlap on this edge
-        if _dist(start, end) > 1e-9:
-            add(_new_tuple(Line, (start, end)))  # Line(start, end), without the constructor's call
-        if plan_next is not None:
-            add(plan_next[3])
+    # Line(start, end) for every edge, made without the constructor's call
+    for line, length, arc in zip(map(_new_tuple, repeat(Line, n), zip(starts, ends)), map(_dist, starts, ends), arc_after):
+        if length > 1e-9:
+            add(line)
+        if arc is not None:
+            add(arc)
     return Profile(tuple(segments)), []
 
 
