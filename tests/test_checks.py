@@ -140,3 +140,27 @@ def test_crossing_free_is_shapely_simplicity_of_each_ring() -> None:
     alone = [bool(shapely.linearrings(p.flat_array(LOOP_CHECK_TOLERANCE)).is_simple) for p in loops]
     assert crossing_free(loops) == alone
     assert not alone[-1]
+
+
+def test_areas_and_bounds_worked_out_at_once_are_each_loops_own_to_the_bit() -> None:
+    """A sweep works out every loop's signed area and bounds at once; each must be, to the bit (``float.hex``),
+    what the loop's own Green's-theorem sum and extent give (reference: ``Profile.signed_area`` and
+    ``Profile.bounds`` of a fresh copy of the loop; a square's and a circle's as a sanity anchor)."""
+    import math
+
+    from yodraft.checks import loop_stacks, prime_areas_and_bounds
+    from yodraft.geometry import Arc
+
+    loops = [p for _, p in _loops()]
+    circle = Profile((Arc((0.0, 3.0), 2.0, 0.0, math.pi), Arc((0.0, 3.0), 2.0, math.pi, math.pi)))
+    square = Profile.from_points([(0, 1), (1, 1), (1, 2), (0, 2)])
+    fresh = [Profile(p.segments) for p in loops + [circle, square]]
+    primed = [Profile(p.segments) for p in loops + [circle, square]]
+    prime_areas_and_bounds(primed, loop_stacks(primed))
+    assert len({tuple(map(type, p.segments)) for p in primed}) > 3  # several runs of lines and arcs, stacked apart
+    for a, b in zip(fresh, primed):
+        assert "_signed_area" in b.__dict__ and "_bounds" in b.__dict__
+        assert a.signed_area().hex() == b.signed_area().hex()
+        assert [x.hex() for x in a.bounds()] == [x.hex() for x in b.bounds()]
+    assert primed[-2].signed_area() == pytest.approx(math.pi * 4)  # a circle of radius 2: πr²
+    assert primed[-1].signed_area() == 1.0 and primed[-1].bounds() == (0.0, 1.0, 1.0, 2.0)  # the unit square

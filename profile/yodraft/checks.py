@@ -4,15 +4,18 @@ from __future__ import annotations
 import functools
 import math
 from itertools import chain
+from operator import attrgetter
 from collections.abc import Iterable, Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
 
 if TYPE_CHECKING:  # pragma: no cover
+    import numpy as np
+
     from .geometry import Point, Profile
 
 __all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "thin_walls",
-           "crossing_free", "turning_checks",
+           "crossing_free", "turning_checks", "LoopStack", "loop_stacks", "prime_areas_and_bounds",
            "reentrant_regions", "Reentrant"]
 
 
@@ -318,26 +321,84 @@ def _pair_mask(n: int) -> "np.ndarray":
     return mask
 
 
-def thin_walls(profiles: Sequence["Profile"], below: Sequence[float]) -> list[bool]:
+class LoopStack(NamedTuple):
+    """Loops of one run of lines and arcs, stacked: their places in the list asked about (``members``), the number
+    of surfaces ``n``, the arcs' places in the run, and every surface's start and end as (B, n, 2) arrays."""
+
+    members: list[int]
+    n: int
+    arcs: list[int]
+    starts: "np.ndarray"
+    ends: "np.ndarray"
+
+
+def loop_stacks(profiles: Sequence["Profile"]) -> list[LoopStack]:
+    """The loops grouped by their run of lines and arcs and stacked (``LoopStack``), read from the segments once
+    for every batched verdict of a sweep's chunk."""
+    import numpy as np  # imported where used: the quick commands never load it
+    groups: dict[tuple[type, ...], list[int]] = {}
+    for b, p in enumerate(profiles):
+        groups.setdefault(tuple(map(type, p.segments)), []).append(b)  # the run of lines and arcs
+    out = []
+    for kinds, members in groups.items():
+        n = len(kinds)
+        arcs = [i for i, s in enumerate(profiles[members[0]].segments) if hasattr(s, "center")]
+        segs = [s for b in members for s in profiles[b].segments]
+        starts = np.fromiter(chain.from_iterable(map(attrgetter("start"), segs)), float, 2 * len(segs)).reshape(-1, n, 2)
+        ends = np.fromiter(chain.from_iterable(map(attrgetter("end"), segs)), float, 2 * len(segs)).reshape(-1, n, 2)
+        out.append(LoopStack(members, n, arcs, starts, ends))
+    return out
+
+
+def prime_areas_and_bounds(profiles: Sequence["Profile"], stacks: Sequence[LoopStack]) -> None:
+    """Work out every loop's signed area and bounds at once and keep them on the loop, where
+    ``Profile.signed_area`` and ``Profile.bounds`` find them: the same floats, bit for bit, as each loop's own
+    (the area summed surface by surface in the loop's order, each arc's sine Python's ``math.sin``)."""
+    import numpy as np  # imported where used: the quick commands never load it
+    for members, n, arcs, starts, ends in stacks:
+        loops = [profiles[b] for b in members]
+        z0, r0, z1, r1 = starts[..., 0], starts[..., 1], ends[..., 0], ends[..., 1]
+        chord = 0.5 * (z0 * r1 - z1 * r0)  # (B, n): Green's theorem over each surface's chord
+        bow = {}  # arc place → (B,): the circular segment between an arc's chord and the arc
+        if arcs:
+            fields = np.fromiter(chain.from_iterable(map(attrgetter("radius", "sweep"),
+                                                         (p.segments[i] for p in loops for i in arcs))),
+                                 float, 2 * len(loops) * len(arcs)).reshape(len(loops), len(arcs), 2)
+            radius, sweep = fields[..., 0], fields[..., 1]
+            sines = np.fromiter(map(math.sin, sweep.ravel().tolist()), float, sweep.size).reshape(sweep.shape)
+            terms = 0.5 * radius**2 * (sweep - sines)
+            bow = {i: terms[:, k] for k, i in enumerate(arcs)}
+        total = np.zeros(len(loops))
+        for i in range(n):
+            total = total + chord[:, i]
+            if i in bow:
+                total = total + bow[i]
+        # a line's start (its end is the next surface's start), an arc's extent
+        zs_lo, rs_lo, zs_hi, rs_hi = z0.copy(), r0.copy(), z0.copy(), r0.copy()
+        if arcs:
+            ext = np.fromiter(chain.from_iterable(p.segments[i].extent for p in loops for i in arcs), float,
+                              4 * len(loops) * len(arcs)).reshape(len(loops), len(arcs), 4)
+            zs_lo[:, arcs], rs_lo[:, arcs], zs_hi[:, arcs], rs_hi[:, arcs] = ext[..., 0], ext[..., 1], ext[..., 2], ext[..., 3]
+        bounds = np.stack((zs_lo.min(axis=1), rs_lo.min(axis=1), zs_hi.max(axis=1), rs_hi.max(axis=1)), axis=1)
+        for p, area, box in zip(loops, total.tolist(), bounds.tolist()):
+            p.__dict__["_signed_area"] = area  # where the cached properties keep them
+            p.__dict__["_bounds"] = tuple(box)
+
+
+def thin_walls(profiles: Sequence["Profile"], below: Sequence[float],
+               stacks: Sequence[LoopStack] | None = None) -> list[bool]:
     """For each loop, whether two of its surfaces face each other across metal closer than its ``below`` mm:
     whether ``least_wall`` would find a wall under that, answered for many loops at once (a sweep's).
 
     Loops of the same run of lines and arcs are stacked, and only the pairs of surfaces whose boxes lie
     closer than ``below`` are measured; which pair is the thinnest does not matter, only whether any is.
+    ``stacks`` are the loops' ``loop_stacks`` when already made.
     """
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     tol = LOOP_CHECK_TOLERANCE
-    groups: dict[tuple[type, ...], list[int]] = {}
-    for b, p in enumerate(profiles):
-        groups.setdefault(tuple(map(type, p.segments)), []).append(b)  # the run of lines and arcs
     near: list[tuple[int, int, int]] = []  # (loop, surface, surface) whose boxes lie closer than the loop's below
-    for kinds, members in groups.items():
-        n = len(kinds)
-        arcs = [i for i, s in enumerate(profiles[members[0]].segments) if hasattr(s, "center")]
-        segs = [s for b in members for s in profiles[b].segments]
-        starts = np.fromiter(chain.from_iterable(s.start for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
-        ends = np.fromiter(chain.from_iterable(s.end for s in segs), float, 2 * len(segs)).reshape(-1, n, 2)
+    for members, n, arcs, starts, ends in stacks if stacks is not None else loop_stacks(profiles):
         lo, hi = _box_corners([profiles[b] for b in members], starts, ends, arcs)
         keep = _off_axis(starts, ends, arcs)
         # surfaces i (rows) and j (columns) can be closer than the limit only where their boxes are,

@@ -191,7 +191,7 @@ def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[in
     over from the previous one); the checks over the whole loop (does it cross itself, is a wall too thin)
     are answered for all the variants' loops at once.
     """
-    from .checks import crossing_free, thin_walls
+    from .checks import crossing_free, loop_stacks, prime_areas_and_bounds, thin_walls
 
     memo = memo if memo is not None else BuildMemo()
     keys = [a.key for a in axes]
@@ -204,8 +204,11 @@ def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[in
             done.append((index, shown, exc))
     looped = [n for n, (_, _, c) in enumerate(done) if not isinstance(c, Exception) and c.profile is not None]
     profiles = [done[n][2].profile for n in looped]
+    stacks = loop_stacks(profiles)  # every loop's surfaces read once, for the verdicts and figures below
+    prime_areas_and_bounds(profiles, stacks)
     uncrossed = dict(zip(looped, crossing_free(profiles) if profiles else []))
-    thin = dict(zip(looped, thin_walls(profiles, [done[n][2].design["shop"]["min_wall"] - 1e-9 for n in looped])))
+    thin = dict(zip(looped, thin_walls(profiles, [done[n][2].design["shop"]["min_wall"] - 1e-9 for n in looped],
+                                       stacks)))
     judged: list[tuple[int, tuple[float, ...], Any]] = []  # (index, shown inputs, Resolved or the input error)
     for n, (index, shown, c) in enumerate(done):
         if not isinstance(c, Exception):
