@@ -433,19 +433,26 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float],
     if not len(close):
         return thin
     ends_pq = shapely.get_coordinates(shapely.shortest_line(first[close], second[close])).reshape(-1, 2, 2)
-    polygons: dict[int, Any] = {}
+    facing: list[tuple[int, float, float]] = []  # (loop, midpoint z, r) of each close pair facing across its wall
     for n, ((pz, pr), (qz, qr)) in zip(close.tolist(), ends_pq.tolist()):
         b, i, j = near[n]
-        if thin[b]:
-            continue
         d = float(dist[n])
         u = ((qz - pz) / d, (qr - pr) / d)
         segs = profiles[b].segments
-        if not (_faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1]))):
-            continue
-        if b not in polygons:
-            polygons[b] = profiles[b].polygon(tol)
-        thin[b] = bool(shapely.contains_xy(polygons[b], (pz + qz) / 2, (pr + qr) / 2))  # across metal, not air
+        if _faces(segs, i, (pz, pr), u) and _faces(segs, j, (qz, qr), (-u[0], -u[1])):
+            facing.append((b, (pz + qz) / 2, (pr + qr) / 2))
+    if not facing:
+        return thin
+    # across metal, not air: each midpoint inside its loop's polygon (``Profile.polygon``), all asked at once
+    loops = sorted({b for b, _, _ in facing})
+    flats = [profiles[b].flat_array(tol) for b in loops]
+    polygons = shapely.polygons(shapely.linearrings(np.concatenate(flats),
+                                                    indices=np.repeat(np.arange(len(flats)), [len(f) for f in flats])))
+    place = {b: k for k, b in enumerate(loops)}
+    inside = shapely.contains_xy(polygons[[place[b] for b, _, _ in facing]], [z for _, z, _ in facing],
+                                 [r for _, _, r in facing])
+    for (b, _, _), metal in zip(facing, inside.tolist()):
+        thin[b] = thin[b] or metal
     return thin
 
 
