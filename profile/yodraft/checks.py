@@ -68,13 +68,17 @@ BACK_WALLS: tuple[tuple[str, str, str], ...] = (
 )
 
 
-def radial_order(values: Mapping[str, Any]) -> list[Check]:
-    """Each diameter must lie outside the one before it (post < vent groove < wall < pad groove < catch zone < rim)."""
+def radial_order(values: Mapping[str, Any], messages: bool = True) -> list[Check]:
+    """Each diameter must lie outside the one before it (post < vent groove < wall < pad groove < catch zone < rim).
+
+    ``messages=False`` (a sweep, which reports only which checks fail) words only the failed checks.
+    """
     out = []
     for name, inner, outer, feature, parameter in _RADIAL_PAIRS:
         inner_value, outer_value = values[inner], values[outer]
-        out.append(Check(name, feature, parameter, bool(outer_value > inner_value + 1e-9),
-                         f"Ø{outer_value:.3f} mm must exceed {inner} Ø{inner_value:.3f} mm"))
+        ok = bool(outer_value > inner_value + 1e-9)
+        out.append(Check(name, feature, parameter, ok,
+                         f"Ø{outer_value:.3f} mm must exceed {inner} Ø{inner_value:.3f} mm" if messages or not ok else ""))
     return out
 
 
@@ -92,28 +96,36 @@ def _polyline(points: tuple[Point, ...]) -> "shapely.Geometry":
 
 
 def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]], min_wall: float,
-                back_walls: bool = True) -> list[Check]:
+                back_walls: bool = True, messages: bool = True) -> list[Check]:
     """Least material between neighbouring surfaces, against the shop's thinnest wall.
 
     ``back_walls=False`` leaves out the walls measured to the rim's cup (a given outer shape has
-    no such chunk; ``surface_walls`` measures it).
+    no such chunk; ``surface_walls`` measures it); ``messages=False`` words only the failed checks.
     """
     post_wall = (values["bearing_seat.post_diameter"] - values["axle_bore.major_diameter"]) / 2
     bearing_wall = (values["pad_groove.inner_diameter"] - values["bearing_seat.wall_bore"]) / 2
+    post_ok, bearing_ok = post_wall >= min_wall - 1e-9, bearing_wall >= min_wall - 1e-9
     out = [
-        check("wall between axle bore and post", "axle_bore.thread", post_wall >= min_wall - 1e-9,
-              f"{post_wall:.3f} mm from thread major diameter to post, least {min_wall:.3f} mm"),
-        check("bearing wall thickness", "pad_groove.inner_diameter", bearing_wall >= min_wall - 1e-9,
-              f"{bearing_wall:.3f} mm between wall bore and pad groove, least {min_wall:.3f} mm"),
+        check("wall between axle bore and post", "axle_bore.thread", post_ok,
+              f"{post_wall:.3f} mm from thread major diameter to post, least {min_wall:.3f} mm"
+              if messages or not post_ok else ""),
+        check("bearing wall thickness", "pad_groove.inner_diameter", bearing_ok,
+              f"{bearing_wall:.3f} mm between wall bore and pad groove, least {min_wall:.3f} mm"
+              if messages or not bearing_ok else ""),
     ]
     if not back_walls:
         return out
     cup = _polyline(tuple(chunks["rim.outer"][:-1]))  # the cup surface, without the outer edge
-    for feature, chunk, where in BACK_WALLS:
-        wall = float(_polyline(tuple(chunks[f"{feature}.{chunk}"])).distance(cup))
-        out.append(check(f"wall between {feature.replace('_', ' ')} and cup", where, wall >= min_wall - 1e-9,
-                         f"{wall:.3f} mm, least {min_wall:.3f} mm"))
+    for feature, chunk, where, name in _BACK_WALL_CHECKS:
+        wall = float(_polyline(tuple(chunks[chunk])).distance(cup))
+        ok = wall >= min_wall - 1e-9
+        out.append(check(name, where, ok, f"{wall:.3f} mm, least {min_wall:.3f} mm" if messages or not ok else ""))
     return out
+
+
+#: BACK_WALLS as (feature, its chunk's key, parameter, check name)
+_BACK_WALL_CHECKS = tuple((feature, f"{feature}.{chunk}", where, f"wall between {feature.replace('_', ' ')} and cup")
+                          for feature, chunk, where in BACK_WALLS)
 
 
 #: the checks a half must pass before its mass can be integrated (one simple loop, none of it below the axis,
