@@ -247,7 +247,7 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
 
     ``verdict_only`` (a sweep, which reports only which checks fail) leaves out the re-entrant regions,
     which are named but never fail, and the axial stack (``axial.*``), which no check reads, and asks of the
-    least wall only whether it is below the shop's least; the radial-order and wall checks word only those that fail.
+    least wall only whether it is below the shop's least; the radial-order, wall and loop checks word only those that fail.
     ``uncrossed`` (the flattened loop does not cross itself) and ``thin`` (a wall is below the shop's least)
     are those verdicts when already found for many loops at once (``checks.crossing_free``, ``checks.thin_walls``).
     """
@@ -260,7 +260,7 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
     if sketched:  # the rim's and catch zone's own sizes are only anchors of the sketch
         checks = [c for c in checks if c.feature not in ("rim", "catch_zone")]
     checks += wall_checks(values, chunks, design["shop"]["min_wall"], back_walls=not shaped, messages=not verdict_only)
-    checks += loop_checks(profile, design["envelope"], misfits, uncrossed)
+    checks += loop_checks(profile, design["envelope"], misfits, uncrossed, messages=not verdict_only)
     checks += seat_failures
     parts: tuple[Part, ...] = ()
     if profile is not None:

@@ -137,10 +137,11 @@ LOOP_CHECK_TOLERANCE = 0.02
 
 
 def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits: Sequence[str],
-                uncrossed: bool | None = None) -> list[Check]:
+                uncrossed: bool | None = None, messages: bool = True) -> list[Check]:
     """The loop is one simple counter-clockwise polygon, inside the envelope box, with every radius fitting.
 
-    ``uncrossed`` is whether the flattened loop is a simple ring, when already found (``crossing_free``).
+    ``uncrossed`` is whether the flattened loop is a simple ring, when already found (``crossing_free``);
+    ``messages=False`` words only the failed checks.
     """
     if profile is None:
         return [check("closed simple loop", "profile.loop", False, "the corners do not make a loop")]
@@ -148,15 +149,21 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
         uncrossed = crossing_free([profile])[0]
     simple = uncrossed and profile.signed_area() > 0  # a simple ring bounds a valid polygon
     z_min, r_min, z_max, r_max = profile.bounds()
+    in_diameter, in_width = 2 * r_max <= envelope["diameter"] + 1e-9, 2 * z_max <= envelope["width"] + 1e-9
+    clear, above = z_min >= -1e-9, r_min >= -1e-9
     out = [
         check("closed simple loop", "profile.loop", simple,
               "the half-profile is one simple loop" if simple else "the half-profile crosses itself"),
-        check("inside the envelope diameter", "rim.diameter", 2 * r_max <= envelope["diameter"] + 1e-9,
-              f"outer diameter {2 * r_max:.3f} mm, envelope {envelope['diameter']:.3f} mm"),
-        check("inside the envelope width", "rim.overall_width", 2 * z_max <= envelope["width"] + 1e-9,
-              f"overall width {2 * z_max:.3f} mm, envelope {envelope['width']:.3f} mm"),
-        check("clear of the gap plane", "bearing_seat.spacing", z_min >= -1e-9, f"nearest face at z = {z_min:.3f} mm"),
-        check("above the spin axis", "profile.loop", r_min >= -1e-9, f"lowest point at r = {r_min:.3f} mm"),
+        check("inside the envelope diameter", "rim.diameter", in_diameter,
+              f"outer diameter {2 * r_max:.3f} mm, envelope {envelope['diameter']:.3f} mm" if messages or not in_diameter
+              else ""),
+        check("inside the envelope width", "rim.overall_width", in_width,
+              f"overall width {2 * z_max:.3f} mm, envelope {envelope['width']:.3f} mm" if messages or not in_width
+              else ""),
+        check("clear of the gap plane", "bearing_seat.spacing", clear,
+              f"nearest face at z = {z_min:.3f} mm" if messages or not clear else ""),
+        check("above the spin axis", "profile.loop", above,
+              f"lowest point at r = {r_min:.3f} mm" if messages or not above else ""),
     ]
     out += [check("radius fits its edges", owner, False, f"{owner} is too large for the edges it joins")
             for owner in misfits]
