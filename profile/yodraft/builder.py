@@ -10,7 +10,7 @@ from typing import Any, NamedTuple
 
 from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
 from .catalog.materials import MATERIALS, lookup_material
-from .checks import (ANALYSIS_PREREQUISITES, Check, loop_checks, radial_order, surface_walls, turning_checks,
+from .checks import (ANALYSIS_PREREQUISITES, WALL_CHUNKS, Check, loop_checks, radial_order, surface_walls, turning_checks,
                      wall_checks)
 from .design import Design
 from .errors import DesignInputError
@@ -253,7 +253,8 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
     """
     design, values, results, profile, misfits, seats, seat_failures = composed
     shaped = bool(results["shape"].chunks["outer"])  # a given outer shape replaces the rim's and catch zone's
-    chunks = {f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in LOOP_ORDER}
+    chunks = ({f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in WALL_CHUNKS}
+              if not shaped else {})  # the points wall_checks reads (none for a given outer shape)
     checks: list[Check] = [c for r in results.values() for c in r.checks]
     checks += radial_order(values, messages=not verdict_only)
     sketched = values["shape.kind"] == "sketch"

@@ -123,6 +123,8 @@ def wall_checks(values: Mapping[str, Any], chunks: Mapping[str, Sequence[Point]]
     return out
 
 
+#: the (feature, chunk) pairs whose points ``wall_checks`` reads: the rim's cup and the back walls' chunks
+WALL_CHUNKS = (("rim", "outer"),) + tuple((feature, chunk) for feature, chunk, _ in BACK_WALLS)
 #: BACK_WALLS as (feature, its chunk's key, parameter, check name)
 _BACK_WALL_CHECKS = tuple((feature, f"{feature}.{chunk}", where, f"wall between {feature.replace('_', ' ')} and cup")
                           for feature, chunk, where in BACK_WALLS)
