@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import datetime
+import functools
 import os
 import re
 import stat
@@ -151,6 +152,13 @@ def find_param(key: str) -> tuple[list[str], ParamSpec] | None:
     >>> find_param("rim.band_width")[0], find_param("features.rim.width")[0]
     (['features', 'rim', 'band_width'], ['features', 'rim', 'band_width'])
     """
+    found = _param_path(key)
+    return None if found is None else (list(found[0]), found[1])
+
+
+@functools.lru_cache(maxsize=256)  # a sweep makes its variants by the same few keys again and again
+def _param_path(key: str) -> tuple[tuple[str, ...], ParamSpec] | None:
+    """``find_param`` with the path as a tuple (kept: the specs never change)."""
     parts = key.split(".")
     if parts[0] in FEATURES:
         parts = ["features"] + parts
@@ -161,7 +169,7 @@ def find_param(key: str) -> tuple[list[str], ParamSpec] | None:
     else:
         return None
     spec = next((s for s in specs if parts[-1] in (s.name, s.former)), None)
-    return None if spec is None else (parts[:-1] + [spec.name], spec)
+    return None if spec is None else (tuple(parts[:-1]) + (spec.name,), spec)
 
 
 def load(path: str | Path) -> Design:
@@ -254,7 +262,7 @@ def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Desig
     raw = dict(base.raw)
     keys = []
     for key, value in assignments:
-        found = find_param(key)
+        found = _param_path(key)
         if found is None:
             raise DesignInputError(base.source, key, "is not a design key",
                                    "a key path such as features.rim.band_width or shop.fit_clearance")
