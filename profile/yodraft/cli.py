@@ -360,7 +360,6 @@ def _progress(done: int, total: int) -> None:
 
 def _sweep(args: argparse.Namespace) -> int:
     from .design import load
-    from .pictures.sweep_plot import design_targets, parse_y, sweep_svg
     from .sweep import csv_text, parse_vary, sweep
 
     design = load(args.design)
@@ -371,6 +370,8 @@ def _sweep(args: argparse.Namespace) -> int:
         raise DesignInputError("--jobs", "", f"got {args.jobs}", "at least 1")
     if args.y is not None and args.plot is None:
         raise DesignInputError("--y", "", "chooses what --plot draws", "--plot FILE.svg with it")
+    if args.plot is not None:  # the plot's module is loaded only for a plot (a sweep's start-up is part of its time)
+        from .pictures.sweep_plot import design_targets, parse_y, sweep_svg
     y_keys = parse_y(args.y) if args.y is not None else None
     _output_targets(args.design, (args.csv, args.plot))  # refused before the work, not after it
     if args.csv is not None and args.plot is not None and Path(args.csv).absolute() == Path(args.plot).absolute():
