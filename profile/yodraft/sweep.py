@@ -290,6 +290,9 @@ def sweep(base: "Design", axes: Sequence[Axis], *, workers: int | None = None,
             if progress:
                 progress(len(done), total)
     else:
+        # one variant run here first loads (numpy, shapely, the batched checks) and warms (the fillet and
+        # surface caches) what every worker needs, once before the fork instead of in each worker after it
+        run_variants(base, axes, points[:1])
         # objects that exist before the fork are frozen, so no worker's collector walks (and copies) them;
         # the variants coming back make no reference cycles, so the collector is off while they come
         gc.freeze()
