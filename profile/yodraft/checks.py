@@ -43,7 +43,11 @@ def check(name: str, where: str, ok: bool, message: str) -> Check:
     'bearing_seat'
     """
     feature, _, parameter = where.partition(".")
-    return Check(name, feature, parameter, bool(ok), message)
+    return _new_check((name, feature, parameter, bool(ok), message))
+
+
+#: ``Check(*fields)`` made without the constructor's Python call (a sweep makes tens of thousands)
+_new_check = functools.partial(tuple.__new__, Check)
 
 
 # ---------------------------------------------------------------- rules over the whole half
@@ -77,8 +81,9 @@ def radial_order(values: Mapping[str, Any], messages: bool = True) -> list[Check
     for name, inner, outer, feature, parameter in _RADIAL_PAIRS:
         inner_value, outer_value = values[inner], values[outer]
         ok = bool(outer_value > inner_value + 1e-9)
-        out.append(Check(name, feature, parameter, ok,
-                         f"Ø{outer_value:.3f} mm must exceed {inner} Ø{inner_value:.3f} mm" if messages or not ok else ""))
+        out.append(_new_check((name, feature, parameter, ok,
+                               f"Ø{outer_value:.3f} mm must exceed {inner} Ø{inner_value:.3f} mm" if messages or not ok
+                               else "")))
     return out
 
 
