@@ -13,6 +13,7 @@ from __future__ import annotations
 import functools
 import math
 from itertools import chain, repeat
+from operator import attrgetter
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, NamedTuple, Union
 
@@ -403,6 +404,9 @@ def _fillet_next_to_arc(prev: Point, here: Point, nxt: Point, arc_in: Arc | None
     return took_in, took_out, f_in, f_out, Arc(centre, radius, a0, sweep)
 
 
+_sweep = attrgetter("sweep")  # a corner's arc sweep, read in C
+
+
 def _straight_loop(vertices: list[FilletVertex], pts: list[Point], edge: list[float]) -> tuple[Profile, list[str]] | None:
     """``fillet_loop`` of a loop of straight edges whose every fillet fits its edges (a sweep's usual loop), in
     fewer passes; None when a fillet does not fit, which the general pass sorts out."""
@@ -448,11 +452,12 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     n = len(vertices)
     if n < 3:
         raise GeometryError("a loop needs at least three distinct corners")
-    if not any(v.sweep for v in vertices):
+    arc_edges = any(map(_sweep, vertices))
+    if not arc_edges:
         straight = _straight_loop(vertices, pts, edge)
         if straight is not None:
             return straight
-    if any(v.sweep for v in vertices):
+    if arc_edges:
         arcs = [arc_through(pts[i], pts[(i + 1) % n], v.sweep) if v.sweep else None for i, v in enumerate(vertices)]
         measure = [abs(a.sweep) if a is not None else edge[i] for i, a in enumerate(arcs)]  # angle along an arc edge
     else:
