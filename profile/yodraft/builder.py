@@ -180,7 +180,8 @@ class BuildMemo:
         kept = self._features.get(module.NAME)
         if kept is not None:
             k_params, k_reads, k_shop, result, published = kept
-            if (_same(k_params, params) and (k_shop is None or _same(k_shop, shop))
+            if ((k_params is params or _same(k_params, params))
+                    and (k_shop is None or k_shop is shop or _same(k_shop, shop))
                     # the same objects (an earlier feature reused too) first, at C speed; then equal values
                     and (all(map(operator.is_, map(values.get, k_reads), k_reads.values()))
                          or all(key in values and _same(values[key], value) for key, value in k_reads.items()))):
