@@ -3,6 +3,7 @@ from __future__ import annotations
 
 import math
 import operator
+from itertools import repeat
 from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from types import MappingProxyType, ModuleType
@@ -151,6 +152,9 @@ def _same(a: Any, b: Any) -> bool:
     return bool(a == b)
 
 
+_MISSING = object()  # what a value not (or no longer) given reads as
+
+
 class BuildMemo:
     """What one build keeps for the next build of a closely related design (a sweep's variants, a watch's saves).
 
@@ -183,7 +187,7 @@ class BuildMemo:
             if ((k_params is params or _same(k_params, params))
                     and (k_shop is None or k_shop is shop or _same(k_shop, shop))
                     # the same objects (an earlier feature reused too) first, at C speed; then equal values
-                    and (all(map(operator.is_, map(values.get, k_reads), k_reads.values()))
+                    and (all(map(operator.is_, map(values.get, k_reads, repeat(_MISSING)), k_reads.values()))
                          or all(key in values and _same(values[key], value) for key, value in k_reads.items()))):
                 return result, published
         ctx = Context(values, shop)
