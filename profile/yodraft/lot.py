@@ -236,8 +236,11 @@ def _pinned(design: Design, values: Mapping[str, float]) -> Design:
 
 
 def _unit_props(design: Design, memo: BuildMemo | None = None) -> tuple[float, float] | None:
-    """(mass, Izz) of one half (every part with its catalog density), or None when it cannot be integrated."""
-    resolved = build(design, memo)
+    """(mass, Izz) of one half (every part with its catalog density), or None when it cannot be integrated.
+
+    Built verdict-only: the mass needs the loop and the checks it rests on, not the least wall's size or the
+    re-entrant regions."""
+    resolved = build(design, memo, verdict_only=True)
     if not resolved.can_analyse:
         return None
     props = combine_bodies([props for _, _, props in part_props(resolved)])
@@ -456,8 +459,9 @@ def _linearisation_error(design: Design, dims: Sequence[Band], deviations: np.nd
     mass_err: list[float] = []
     izz_err: list[float] = []
     failed = 0
+    memo = BuildMemo()  # the features no toleranced dimension reaches are resolved once
     for dev in deviations:
-        exact = _unit_props(_pinned(design, {b.key: b.nominal + d for b, d in zip(dims, dev)}))
+        exact = _unit_props(_pinned(design, {b.key: b.nominal + d for b, d in zip(dims, dev)}), memo)
         if exact is None:
             failed += 1
             continue
