@@ -221,3 +221,20 @@ def test_no_slide_share_with_a_coating_range_agrees_with_the_check() -> None:
     assert abs(lot["no_slide_wall_share"] - p_wall) <= _binomial_tolerance(p_wall, n)
     coating = next(b for b in lot["bands"] if b["key"] == "shop.coating_thickness")
     assert coating["plus_minus"] == pytest.approx((0.001 - 0.0002) * 25.4 / 2)  # 0.0002–0.001 in, as written
+
+
+@pytest.mark.parametrize("template", sorted(p.stem for p in (ROOT / "templates").glob("*.toml")))
+def test_a_rebuilt_half_weighs_what_a_full_build_weighs(template: str) -> None:
+    """The lot rebuilds halves verdict-only; each must weigh, to the bit, what the full build of the same design
+    weighs (reference: ``combine_bodies`` over the full build's ``part_props``)."""
+    from yodraft.analysis import part_props
+    from yodraft.lot import _unit_props
+    from yodraft.massprops import combine_bodies
+
+    design = yodraft.load(ROOT / "templates" / f"{template}.toml")
+    full = yodraft.build(design)
+    if not full.can_analyse:
+        assert _unit_props(design) is None
+        return
+    props = combine_bodies([p for _, _, p in part_props(full)])
+    assert _unit_props(design) == (props.mass_g, props.izz_g_mm2)
