@@ -27,11 +27,14 @@ is assembled with the bearing the lighter half met. A yo-yo is good when its
 gap lies within nominal ± ``gap_tolerance`` and its static unbalance within the
 permissible value of the design's ISO 21940-11 grade. The gap, mass and
 unbalance distributions are those of a random assembly (halves 2k and 2k+1).
-The same seed gives the same lot.
+The halves are drawn in blocks, each from a random stream of its own, on every core. The same seed gives
+the same lot, however many cores draw it.
 """
 from __future__ import annotations
 
 import math
+import os
+from concurrent.futures import ThreadPoolExecutor
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field, replace
 from typing import Any
@@ -374,11 +377,14 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     post_nom = v["bearing_seat.post_diameter"]
     wall_nom = v["bearing_seat.wall_bore"]
 
-    rng = np.random.default_rng(seed)
     keys = ("mass_g", "izz_g_mm2", "post_clearance_mm", "wall_clearance_mm", "wall_offset_mm", "bearing_width_mm",
             "unbalance_x_g_mm", "unbalance_y_g_mm")
     half = {k: np.empty(units) for k in keys}
-    for start in range(0, units, BLOCK):
+
+    def draw(start: int) -> None:
+        """Halves ``start`` … ``start + BLOCK - 1``, from a stream of their own (the lot is the same however
+        the blocks are shared out)."""
+        rng = np.random.default_rng([seed, 2, start // BLOCK])
         n = min(BLOCK, units - start)
         z = rng.standard_normal((n_draw, n)) if distribution == "normal" else rng.random((n_draw, n)) * 2.0 - 1.0
         post_d, wall_d, off_d, bore_d, od_d, width_d, coat_d, rho_d = (
@@ -412,6 +418,10 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
             offsets[0::2], offsets[1::2] = radius * np.cos(angle), radius * np.sin(angle)
         half["unbalance_x_g_mm"][s] = rho * (w_rim * offsets[0] + w_seat * offsets[2])
         half["unbalance_y_g_mm"][s] = rho * (w_rim * offsets[1] + w_seat * offsets[3])
+
+    # the blocks are drawn on every core (NumPy lets go of the interpreter while it fills an array)
+    with ThreadPoolExecutor(max_workers=max(1, min(4, os.cpu_count() or 1))) as pool:
+        list(pool.map(draw, range(0, units, BLOCK)))
     # a sample of halves drawn dimension by dimension from a stream of its own, rebuilt exactly
     sample_rng = np.random.default_rng([seed, 1])
     if distribution == "normal":
