@@ -34,13 +34,14 @@ from __future__ import annotations
 
 import math
 import os
-from concurrent.futures import ThreadPoolExecutor
-from collections.abc import Mapping, Sequence
+import threading
+from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass, field, replace
 from typing import Any
 
 import numpy as np
 
+from .tails import percentiles
 from .analysis import analyse, part_props
 from .balance import permissible_specific_unbalance_mm
 from .builder import BuildMemo, Resolved, build, loop_chunks
@@ -68,6 +69,8 @@ DENSITY_SPREAD = 0.005
 EXACT_SAMPLE = 48
 #: halves drawn per block (the draws depend on the block size, so it is fixed)
 BLOCK = 1 << 15
+#: halves worked out together within a block (a piece's arrays fit in a core's cache)
+PIECE = 8192
 #: feature keys that are assembled sizes: a half is dimensioned with half of each
 _ASSEMBLED = {"rim.overall_width"}
 
@@ -108,6 +111,40 @@ class LotResult:
     pairs: tuple[np.ndarray, np.ndarray] = field(repr=False)
     pair_good: np.ndarray = field(repr=False)
     linearisation: Mapping[str, float] = field(default_factory=dict)
+
+
+class _Background:
+    """``fn(item)`` for every item, on up to ``workers`` threads taking the next item in turn, while the caller's
+    thread goes on (NumPy lets go of the interpreter while it fills or sorts an array); ``join()`` waits for them
+    and raises the first error one of them met."""
+
+    def __init__(self, fn: Callable[[Any], Any], items: Sequence[Any], workers: int) -> None:
+        self._items = iter(list(enumerate(items)))
+        self._lock = threading.Lock()
+        self.results: list[Any] = [None] * len(items)
+        self._errors: list[BaseException] = []
+        self._fn = fn
+        self._threads = [threading.Thread(target=self._work, daemon=True) for _ in range(max(1, min(workers, len(items))))]
+        for t in self._threads:
+            t.start()
+
+    def _work(self) -> None:
+        while not self._errors:
+            with self._lock:
+                item = next(self._items, None)
+            if item is None:
+                return
+            try:
+                self.results[item[0]] = self._fn(item[1])
+            except BaseException as exc:  # raised again by join, in the caller's thread
+                self._errors.append(exc)
+
+    def join(self) -> list[Any]:
+        for t in self._threads:
+            t.join()
+        if self._errors:
+            raise self._errors[0]
+        return self.results
 
 
 def _gap_tolerance(resolved: Resolved) -> tuple[float, str]:
@@ -387,41 +424,43 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
         rng = np.random.default_rng([seed, 2, start // BLOCK])
         n = min(BLOCK, units - start)
         z = rng.standard_normal((n_draw, n)) if distribution == "normal" else rng.random((n_draw, n)) * 2.0 - 1.0
-        post_d, wall_d, off_d, bore_d, od_d, width_d, coat_d, rho_d = (
-            centre[rows, None] + scale[rows, None] * z[:len(rows)])
-        ex, others = z[len(rows):len(rows) + 4], z[len(rows) + 4:]
-        seat_d = (post_d, wall_d, off_d)
-        mass_u = lin0[0] + sum(sens[0, k] * d for k, d in zip(seat, seat_d))
-        izz_u = lin0[1] + sum(sens[1, k] * d for k, d in zip(seat, seat_d))
-        if joint is not None:
-            mass_u += joint[0, 0] * others[0] + joint[0, 1] * others[1]
-            izz_u += joint[1, 0] * others[0] + joint[1, 1] * others[1]
-        else:
-            for row, k in zip(others, rest):
-                mass_u += (sens[0, k] * scale[k]) * row
-                izz_u += (sens[1, k] * scale[k]) * row
-        rho = 1.0 + rho_d / rho0  # the half's density against the catalog's
-        growth = growth_per_mm * (coat_d - coat_mid)  # against the middle of the range the sizes are for
-        s = slice(start, start + n)
-        half["mass_g"][s] = rho * mass_u
-        half["izz_g_mm2"][s] = rho * izz_u
-        half["post_clearance_mm"][s] = (v["bearing.bore"] + bore_d) - (post_nom + post_d + growth)
-        half["wall_clearance_mm"][s] = (wall_nom + wall_d - growth) - (v["bearing.od"] + od_d)
-        half["wall_offset_mm"][s] = v["bearing_seat.wall_offset"] + off_d
-        half["bearing_width_mm"][s] = v["bearing.width"] + width_d
-        if distribution == "normal":
-            offsets = ex * (e_max / 3)  # each component ±3σ = the offset the runout allows
-        else:  # evenly over the disc of the allowed offset
-            radius = e_max * np.sqrt((ex[0::2] + 1) / 2)
-            angle = math.pi * ex[1::2]
-            offsets = np.empty_like(ex)
-            offsets[0::2], offsets[1::2] = radius * np.cos(angle), radius * np.sin(angle)
-        half["unbalance_x_g_mm"][s] = rho * (w_rim * offsets[0] + w_seat * offsets[2])
-        half["unbalance_y_g_mm"][s] = rho * (w_rim * offsets[1] + w_seat * offsets[3])
+        # worked out a piece at a time, so the piece's rows and every intermediate array stay in the core's cache
+        for c in range(0, n, PIECE):
+            zc = z[:, c:c + PIECE]
+            post_d, wall_d, off_d, bore_d, od_d, width_d, coat_d, rho_d = (
+                centre[rows, None] + scale[rows, None] * zc[:len(rows)])
+            ex, others = zc[len(rows):len(rows) + 4], zc[len(rows) + 4:]
+            seat_d = (post_d, wall_d, off_d)
+            mass_u = lin0[0] + sum(sens[0, k] * d for k, d in zip(seat, seat_d))
+            izz_u = lin0[1] + sum(sens[1, k] * d for k, d in zip(seat, seat_d))
+            if joint is not None:
+                mass_u += joint[0, 0] * others[0] + joint[0, 1] * others[1]
+                izz_u += joint[1, 0] * others[0] + joint[1, 1] * others[1]
+            else:
+                for row, k in zip(others, rest):
+                    mass_u += (sens[0, k] * scale[k]) * row
+                    izz_u += (sens[1, k] * scale[k]) * row
+            rho = 1.0 + rho_d / rho0  # the half's density against the catalog's
+            growth = growth_per_mm * (coat_d - coat_mid)  # against the middle of the range the sizes are for
+            s = slice(start + c, start + c + zc.shape[1])
+            half["mass_g"][s] = rho * mass_u
+            half["izz_g_mm2"][s] = rho * izz_u
+            half["post_clearance_mm"][s] = (v["bearing.bore"] + bore_d) - (post_nom + post_d + growth)
+            half["wall_clearance_mm"][s] = (wall_nom + wall_d - growth) - (v["bearing.od"] + od_d)
+            half["wall_offset_mm"][s] = v["bearing_seat.wall_offset"] + off_d
+            half["bearing_width_mm"][s] = v["bearing.width"] + width_d
+            if distribution == "normal":
+                offsets = ex * (e_max / 3)  # each component ±3σ = the offset the runout allows
+            else:  # evenly over the disc of the allowed offset
+                radius = e_max * np.sqrt((ex[0::2] + 1) / 2)
+                angle = math.pi * ex[1::2]
+                offsets = np.empty_like(ex)
+                offsets[0::2], offsets[1::2] = radius * np.cos(angle), radius * np.sin(angle)
+            half["unbalance_x_g_mm"][s] = rho * (w_rim * offsets[0] + w_seat * offsets[2])
+            half["unbalance_y_g_mm"][s] = rho * (w_rim * offsets[1] + w_seat * offsets[3])
 
-    # the blocks are drawn on every core (NumPy lets go of the interpreter while it fills an array)
-    with ThreadPoolExecutor(max_workers=max(1, min(4, os.cpu_count() or 1))) as pool:
-        list(pool.map(draw, range(0, units, BLOCK)))
+    # the blocks are drawn on every core
+    _Background(draw, range(0, units, BLOCK), min(4, os.cpu_count() or 1)).join()
     # a sample of halves drawn dimension by dimension from a stream of its own, rebuilt exactly
     sample_rng = np.random.default_rng([seed, 1])
     if distribution == "normal":
@@ -431,16 +470,26 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     sample_dev = centre[:n_dims] + scale[:n_dims] * sample_z
 
     slides = (half["post_clearance_mm"] >= 0) & (half["wall_clearance_mm"] >= 0)
-    even = slice(0, units - 1, 2)  # halves 0, 2, 4 … with 1, 3, 5 …: a random assembly
-    random_pairs = _assembled(half, even, slice(1, units, 2), parts_g, parts_izz)
-    pa, pb = pair_by_mass(half["mass_g"], pair_window_g, slides)
+    # the halves are sorted by mass on one thread while this one rebuilds the exact sample and assembles the
+    # random pairs
     u_per = nominal.assembly.total_g * e_per
-    formed_gap = half["bearing_width_mm"][pa] - half["wall_offset_mm"][pa] - half["wall_offset_mm"][pb]
-    formed_unbalance = np.hypot(half["unbalance_x_g_mm"][pa] + half["unbalance_x_g_mm"][pb],
-                                half["unbalance_y_g_mm"][pa] + half["unbalance_y_g_mm"][pb])
-    pair_good = (np.abs(formed_gap - v["bearing_seat.gap"]) <= gap_tol) & (formed_unbalance <= u_per)
+
+    def pair(_: Any) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        """The pairs by mass, and whether each assembled yo-yo's gap and unbalance are within their limits."""
+        pa, pb = pair_by_mass(half["mass_g"], pair_window_g, slides)
+        formed_gap = half["bearing_width_mm"][pa] - half["wall_offset_mm"][pa] - half["wall_offset_mm"][pb]
+        formed_unbalance = np.hypot(half["unbalance_x_g_mm"][pa] + half["unbalance_x_g_mm"][pb],
+                                    half["unbalance_y_g_mm"][pa] + half["unbalance_y_g_mm"][pb])
+        return pa, pb, (np.abs(formed_gap - v["bearing_seat.gap"]) <= gap_tol) & (formed_unbalance <= u_per)
+
+    pairing = _Background(pair, [None], 1)
+    even = slice(0, units - 1, 2)  # halves 0, 2, 4 … with 1, 3, 5 …: a random assembly
+    try:
+        linear = _linearisation_error(design, dims, sample_dev, unit0, sens)
+        random_pairs = _assembled(half, even, slice(1, units, 2), parts_g, parts_izz)
+    finally:
+        (pa, pb, pair_good), = pairing.join()
     target = v["envelope.target_mass"]
-    linear = _linearisation_error(design, dims, sample_dev, unit0, sens)
     return LotResult(
         design_name=design.name, units=units, seed=seed, distribution=distribution, pair_window_g=pair_window_g,
         mass_window_g=mass_window_g, target_mass_g=nominal.assembly.total_g if target is None else target,
@@ -486,7 +535,7 @@ def _linearisation_error(design: Design, dims: Sequence[Band], deviations: np.nd
 def _stats(x: np.ndarray) -> dict[str, float]:
     if len(x) == 0:
         return {"mean": None, "sd": None, "p01": None, "p99": None}  # type: ignore[dict-item]
-    p01, p99 = np.percentile(x, [1, 99])
+    p01, p99 = percentiles(x, [1, 99])
     return {"mean": float(x.mean()), "sd": float(x.std(ddof=1)) if len(x) > 1 else 0.0, "p01": float(p01),
             "p99": float(p99)}
 
@@ -526,7 +575,7 @@ def lot_summary(r: LotResult) -> dict[str, Any]:
                   "rejected_halves": int((~h["slides"]).sum())},
         "paired_share": 2 * len(r.pairs[0]) / r.units,
         "unbalance_g_mm": {"mean": float(rp["unbalance_g_mm"].mean()) if len(rp["unbalance_g_mm"]) else None,
-                           "p99": float(np.percentile(rp["unbalance_g_mm"], 99)) if len(rp["unbalance_g_mm"]) else None,
+                           "p99": percentiles(rp["unbalance_g_mm"], [99])[0] if len(rp["unbalance_g_mm"]) else None,
                            "permissible": r.permissible_unbalance_g_mm},
         "unbalance_over_share": _share(rp["unbalance_g_mm"] > r.permissible_unbalance_g_mm),
         "good_yoyos": good,
