@@ -81,3 +81,21 @@ def test_changing_one_feature_leaves_unrelated_ones(string_trick_text: str) -> N
     changed = {k for k in a.values if a.values[k] != b.values[k]}
     # the pad sits on the groove's bottom: how far it stands proud and the pads' distance follow the depth
     assert changed == {"pad_groove.depth", "pad_groove.bottom_z", "pad_groove.proud", "pad_groove.pad_gap"}
+
+
+@pytest.mark.parametrize("name", ["string-trick", "bimetal-ring", "arc-organic", "sketched", "undercut-rim", "undersized"])
+def test_judged_together_as_each_alone(name: str) -> None:
+    # judge_many (a sweep's variants, a lot's rebuilt halves) gives every design the checks, values and loop
+    # that its own verdict-only build gives, whether it passes or fails
+    from conftest import TEMPLATES
+    from yodraft.builder import build, compose, judge_many
+    from yodraft.design import with_values
+
+    base = yodraft.load(TEMPLATES / f"{name}.toml")
+    designs = [with_values(base, [("shop.min_wall", wall)]) for wall in (0.3, 1.0, 2.5, 6.0)]
+    together = judge_many([compose(d) for d in designs])
+    for design, judged in zip(designs, together):
+        alone = build(design, verdict_only=True)
+        assert judged.checks == alone.checks
+        assert dict(judged.values) == dict(alone.values)
+        assert judged.profile == alone.profile

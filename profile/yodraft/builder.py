@@ -4,7 +4,7 @@ from __future__ import annotations
 import math
 import operator
 from itertools import repeat
-from collections.abc import Callable, Mapping
+from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass
 from types import MappingProxyType, ModuleType
 from typing import Any, NamedTuple
@@ -14,7 +14,7 @@ from .catalog.materials import MATERIALS, lookup_material
 from .checks import (ANALYSIS_PREREQUISITES, WALL_CHUNKS, Check, loop_checks, radial_order, surface_walls, turning_checks,
                      wall_checks)
 from .design import Design
-from .errors import DesignInputError
+from .errors import DesignInputError, YodraftError
 from .features import FEATURES, LOOP_ORDER, OUTER_CHUNKS
 from .features.base import Context, FeatureInputError, FeatureResult, SeatCut
 from .geometry import GeometryError, Profile, fillet_loop
@@ -25,7 +25,7 @@ from .tolerances.general import general_tolerance_mm
 from .tolerances.stack import Link, Stack, stack
 from .tolerances.seat import SeatFit
 
-__all__ = ["Resolved", "BuildMemo", "Composed", "build", "compose", "judge", "resolve_bearing", "resolve_material", "loop_chunks"]
+__all__ = ["Resolved", "BuildMemo", "Composed", "build", "compose", "judge", "judge_many", "resolve_bearing", "resolve_material", "loop_chunks"]
 
 
 @dataclass(frozen=True)
@@ -285,6 +285,32 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
         values.update({"profile.outer_diameter": 2 * r_max, "profile.width": 2 * z_max,
                        "profile.gap": values["bearing_seat.gap"], "profile.post_length": values["bearing_seat.post_length"]})
     return Resolved(design, MappingProxyType(values), MappingProxyType(results), profile, tuple(checks), parts)
+
+
+def judge_many(composed: Sequence["Composed | Exception"]) -> list["Resolved | Exception"]:
+    """``judge(c, verdict_only=True)`` of many composed designs (a sweep's variants, a lot's rebuilt halves), the
+    checks over each whole loop (does it cross itself, is a wall too thin) answered for all the loops at once.
+
+    An item that is an input error, or whose checks raise one, stays (or becomes) that error.
+    """
+    from .checks import crossing_free, loop_stacks, prime_areas_and_bounds, thin_walls
+
+    looped = [n for n, c in enumerate(composed) if not isinstance(c, Exception) and c.profile is not None]
+    profiles = [composed[n].profile for n in looped]  # type: ignore[union-attr]
+    stacks = loop_stacks(profiles)  # every loop's surfaces read once, for the verdicts below and its figures
+    prime_areas_and_bounds(profiles, stacks)
+    uncrossed = dict(zip(looped, crossing_free(profiles) if profiles else []))
+    thin = dict(zip(looped, thin_walls(profiles, [composed[n].design["shop"]["min_wall"] - 1e-9  # type: ignore[union-attr]
+                                                  for n in looped], stacks)))
+    out: list[Resolved | Exception] = []
+    for n, c in enumerate(composed):
+        if not isinstance(c, Exception):
+            try:
+                c = judge(c, verdict_only=True, uncrossed=uncrossed.get(n), thin=thin.get(n))
+            except (YodraftError, ValueError) as exc:
+                c = exc
+        out.append(c)
+    return out
 
 
 def build(design: Design, memo: BuildMemo | None = None, *, verdict_only: bool = False) -> Resolved:

@@ -44,7 +44,7 @@ import numpy as np
 from .tails import percentiles
 from .analysis import analyse, part_props
 from .balance import permissible_specific_unbalance_mm
-from .builder import BuildMemo, Resolved, build, loop_chunks
+from .builder import BuildMemo, Resolved, build, compose, judge_many, loop_chunks
 from .design import Design, with_values
 from .features import FEATURES
 from .massprops import combine_bodies
@@ -276,15 +276,26 @@ def _pinned(design: Design, values: Mapping[str, float]) -> Design:
 
 
 def _unit_props(design: Design, memo: BuildMemo | None = None) -> tuple[float, float] | None:
-    """(mass, Izz) of one half (every part with its catalog density), or None when it cannot be integrated.
+    """(mass, Izz) of one half (every part with its catalog density), or None when it cannot be integrated."""
+    return _units_props([design], memo)[0]
+
+
+def _units_props(designs: Sequence[Design], memo: BuildMemo | None = None) -> list[tuple[float, float] | None]:
+    """``_unit_props`` of many halves, their loops judged together (``builder.judge_many``).
 
     Built verdict-only: the mass needs the loop and the checks it rests on, not the least wall's size or the
     re-entrant regions."""
-    resolved = build(design, memo, verdict_only=True)
-    if not resolved.can_analyse:
-        return None
-    props = combine_bodies([props for _, _, props in part_props(resolved)])
-    return props.mass_g, props.izz_g_mm2
+    memo = memo if memo is not None else BuildMemo()
+    out: list[tuple[float, float] | None] = []
+    for resolved in judge_many([compose(d, memo) for d in designs]):
+        if isinstance(resolved, Exception):
+            raise resolved
+        if not resolved.can_analyse:
+            out.append(None)
+            continue
+        props = combine_bodies([props for _, _, props in part_props(resolved)])
+        out.append((props.mass_g, props.izz_g_mm2))
+    return out
 
 
 def _sensitivities(design: Design, dims: Sequence[Band]) -> np.ndarray:
@@ -292,11 +303,17 @@ def _sensitivities(design: Design, dims: Sequence[Band]) -> np.ndarray:
     base = {b.key: b.nominal for b in dims}
     out = np.zeros((2, len(dims)))
     memo = BuildMemo()  # the features a dimension does not reach are resolved once
+    # every dimension's first pair of rebuilds at once; a smaller step only where one of them fails
+    first = iter(_units_props([_pinned(design, {**base, b.key: b.nominal + h}) for b in dims for h in (b.half, -b.half)],
+                              memo))
     nominal = None
     for k, b in enumerate(dims):
         for h in (b.half, b.half / 8, b.half / 64):
-            plus = _unit_props(_pinned(design, {**base, b.key: b.nominal + h}), memo)
-            minus = _unit_props(_pinned(design, {**base, b.key: b.nominal - h}), memo)
+            if h == b.half:
+                plus, minus = next(first), next(first)
+            else:
+                plus = _unit_props(_pinned(design, {**base, b.key: b.nominal + h}), memo)
+                minus = _unit_props(_pinned(design, {**base, b.key: b.nominal - h}), memo)
             if plus is not None and minus is not None:
                 out[:, k] = (np.asarray(plus) - np.asarray(minus)) / (2 * h)
                 break
@@ -519,8 +536,9 @@ def _linearisation_error(design: Design, dims: Sequence[Band], deviations: np.nd
     izz_err: list[float] = []
     failed = 0
     memo = BuildMemo()  # the features no toleranced dimension reaches are resolved once
-    for dev in deviations:
-        exact = _unit_props(_pinned(design, {b.key: b.nominal + d for b, d in zip(dims, dev)}), memo)
+    rebuilt = _units_props([_pinned(design, {b.key: b.nominal + d for b, d in zip(dims, dev)}) for dev in deviations],
+                           memo)
+    for dev, exact in zip(deviations, rebuilt):
         if exact is None:
             failed += 1
             continue

@@ -29,7 +29,7 @@ from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any
 
-from .builder import BuildMemo, compose, judge
+from .builder import BuildMemo, compose, judge_many
 from .design import with_values
 from .errors import DesignInputError, YodraftError
 from .units import DISPLAY_UNITS
@@ -191,32 +191,17 @@ def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[in
     over from the previous one); the checks over the whole loop (does it cross itself, is a wall too thin)
     are answered for all the variants' loops at once.
     """
-    from .checks import crossing_free, loop_stacks, prime_areas_and_bounds, thin_walls
-
     memo = memo if memo is not None else BuildMemo()
     keys = [a.key for a in axes]
-    done: list[tuple[int, tuple[float, ...], Any]] = []  # (index, shown inputs, Composed or the input error)
+    shown_inputs: list[tuple[float, ...]] = []
+    composed: list[Any] = []  # each variant's Composed, or the input error that stopped it
     for index, values in points:
-        shown = tuple(a.shown(v) for a, v in zip(axes, values))
+        shown_inputs.append(tuple(a.shown(v) for a, v in zip(axes, values)))
         try:
-            done.append((index, shown, compose(with_values(base, list(zip(keys, values))), memo)))
+            composed.append(compose(with_values(base, list(zip(keys, values))), memo))
         except (YodraftError, ValueError) as exc:
-            done.append((index, shown, exc))
-    looped = [n for n, (_, _, c) in enumerate(done) if not isinstance(c, Exception) and c.profile is not None]
-    profiles = [done[n][2].profile for n in looped]
-    stacks = loop_stacks(profiles)  # every loop's surfaces read once, for the verdicts and figures below
-    prime_areas_and_bounds(profiles, stacks)
-    uncrossed = dict(zip(looped, crossing_free(profiles) if profiles else []))
-    thin = dict(zip(looped, thin_walls(profiles, [done[n][2].design["shop"]["min_wall"] - 1e-9 for n in looped],
-                                       stacks)))
-    judged: list[tuple[int, tuple[float, ...], Any]] = []  # (index, shown inputs, Resolved or the input error)
-    for n, (index, shown, c) in enumerate(done):
-        if not isinstance(c, Exception):
-            try:
-                c = judge(c, verdict_only=True, uncrossed=uncrossed.get(n), thin=thin.get(n))
-            except (YodraftError, ValueError) as exc:
-                c = exc
-        judged.append((index, shown, c))
+            composed.append(exc)
+    judged = [(index, shown, r) for (index, _), shown, r in zip(points, shown_inputs, judge_many(composed))]
     resolved = [r for _, _, r in judged if not isinstance(r, Exception)]
     outputs = iter(_outputs_many(resolved))
     out = []
