@@ -11,6 +11,8 @@ from xml.sax.saxutils import escape
 
 import numpy as np
 
+from .tails import percentiles
+
 __all__ = ["Panel", "histogram_svg", "BINS"]
 
 BINS = 60
@@ -43,7 +45,7 @@ def _ticks(lo: float, hi: float, n: int = 6) -> list[float]:
 
 def _range(values: np.ndarray, limits: Sequence[tuple[float, str]]) -> tuple[float, float]:
     """The x range: the values' 0.1 to 99.9 percentiles widened to show every limit."""
-    lo, hi = (float(x) for x in np.percentile(values, [0.1, 99.9])) if len(values) else (0.0, 1.0)
+    lo, hi = percentiles(values, [0.1, 99.9]) if len(values) else (0.0, 1.0)
     for x, _ in limits:
         lo, hi = min(lo, x), max(hi, x)
     if hi - lo < 1e-12 * max(1.0, abs(hi)):
