@@ -41,13 +41,13 @@ from typing import Any
 
 import numpy as np
 
-from .tails import percentiles
 from .analysis import analyse, part_props
 from .balance import permissible_specific_unbalance_mm
 from .builder import BuildMemo, Resolved, build, compose, judge_many, loop_chunks
 from .design import Design, with_values
 from .features import FEATURES
 from .massprops import combine_bodies
+from .tails import percentiles
 from .tolerances.bearings import bearing_deviation_um
 from .tolerances.general import angle_tolerance_rad, general_tolerance_mm, radius_tolerance_mm
 
@@ -487,8 +487,6 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     sample_dev = centre[:n_dims] + scale[:n_dims] * sample_z
 
     slides = (half["post_clearance_mm"] >= 0) & (half["wall_clearance_mm"] >= 0)
-    # the halves are sorted by mass on one thread while this one rebuilds the exact sample and assembles the
-    # random pairs
     u_per = nominal.assembly.total_g * e_per
 
     def pair(_: Any) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
@@ -499,6 +497,8 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
                                     half["unbalance_y_g_mm"][pa] + half["unbalance_y_g_mm"][pb])
         return pa, pb, (np.abs(formed_gap - v["bearing_seat.gap"]) <= gap_tol) & (formed_unbalance <= u_per)
 
+    # the halves are sorted by mass and paired on a thread of their own while this one rebuilds the exact
+    # sample and assembles the random pairs
     pairing = _Background(pair, [None], 1)
     even = slice(0, units - 1, 2)  # halves 0, 2, 4 … with 1, 3, 5 …: a random assembly
     try:
