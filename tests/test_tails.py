@@ -48,3 +48,11 @@ def test_a_missed_bracket_falls_back_to_the_whole_sample(monkeypatch: pytest.Mon
 def test_an_empty_sample_is_refused() -> None:
     with pytest.raises(ValueError):
         percentiles(np.zeros(0), [50])
+
+
+@pytest.mark.parametrize("q", [-1, 100.5])
+def test_a_percentile_outside_0_to_100_is_refused(q: float) -> None:
+    with pytest.raises(ValueError):
+        percentiles(np.arange(5.0), [q])  # as np.percentile refuses it
+    with pytest.raises(ValueError):
+        np.percentile(np.arange(5.0), [q])

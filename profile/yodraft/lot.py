@@ -308,8 +308,8 @@ def _sensitivities(design: Design, dims: Sequence[Band]) -> np.ndarray:
                               memo))
     nominal = None
     for k, b in enumerate(dims):
-        for h in (b.half, b.half / 8, b.half / 64):
-            if h == b.half:
+        for step, h in enumerate((b.half, b.half / 8, b.half / 64)):
+            if step == 0:
                 plus, minus = next(first), next(first)
             else:
                 plus = _unit_props(_pinned(design, {**base, b.key: b.nominal + h}), memo)

@@ -68,8 +68,10 @@ def percentiles(x: np.ndarray, qs: Sequence[float]) -> list[float]:
     n = len(x)
     if n == 0:
         raise ValueError("percentiles of an empty sample")
+    if not all(0 <= q <= 100 for q in qs):
+        raise ValueError(f"percentiles must lie from 0 to 100, got {list(qs)}")
     virtual = [(n - 1) * (q / 100) for q in qs]  # NumPy's linear method: (n - 1) * quantile
-    below = [min(n - 1, max(0, math.floor(v))) for v in virtual]
+    below = [min(n - 1, math.floor(v)) for v in virtual]
     above = [min(n - 1, b + 1) if v < n - 1 else n - 1 for b, v in zip(below, virtual)]
     needed = sorted(set(below) | set(above))
     if n <= _SMALL:
@@ -81,9 +83,6 @@ def percentiles(x: np.ndarray, qs: Sequence[float]) -> list[float]:
     for v, b, a in zip(virtual, below, above):
         if v >= n - 1:
             out.append(value[n - 1])
-            continue
-        if v < 0:
-            out.append(value[0])
             continue
         lo, hi, t = value[b], value[a], v - b
         diff = hi - lo  # NumPy's _lerp: from the nearer end
