@@ -53,3 +53,18 @@ def test_memo_reuses_features_the_edit_does_not_reach(string_trick_text: str) ->
     third = build(loads(set_in(string_trick_text, "shop", "fit_clearance", "0.02 mm")), memo)
     assert third.features["bearing_seat"] is not second.features["bearing_seat"]  # it reads the shop settings
     assert third.values["bearing_seat.post_diameter"] != second.values["bearing_seat.post_diameter"]
+
+
+def test_memo_across_variants_of_one_design(string_trick_text: str) -> None:
+    """Variants made from one design share its unchanged tables, so the memo reuses features by the identity of
+    what they were resolved from; each must still equal a fresh build, whichever key moved last."""
+    from yodraft.design import with_values
+
+    base = loads(string_trick_text)
+    memo = BuildMemo()
+    steps = [[("features.rim.thickness", 3.5)], [("features.rim.thickness", 3.6)], [("features.pad_groove.depth", 1.1)],
+             [("shop.min_wall", 0.9)], [("features.rim.thickness", 3.6)], [], [("features.bearing_seat.wall_offset", 0.3)],
+             [("features.rim.band_width", 7.0), ("features.rim.thickness", 3.6)], []]
+    for assignments in steps:
+        variant = with_values(base, assignments)
+        _same(build(variant, memo), build(variant))

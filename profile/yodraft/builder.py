@@ -167,6 +167,8 @@ class BuildMemo:
     def __init__(self) -> None:
         self._features: dict[str, tuple[Mapping[str, Any], dict[str, Any], Mapping[str, Any] | None,
                                         FeatureResult, dict[str, Any]]] = {}
+        #: each feature's ``before`` when its kept result was last found good (see ``feature``)
+        self._before: dict[str, tuple[Any, ...]] = {}
         self._sources: dict[str, tuple[Any, dict[str, Any]]] = {}
 
     def source(self, name: str, inputs: Any, resolve: Callable[[], dict[str, Any]]) -> dict[str, Any]:
@@ -179,21 +181,32 @@ class BuildMemo:
         return values
 
     def feature(self, module: ModuleType, params: Mapping[str, Any], values: Mapping[str, Any],
-                shop: Mapping[str, Any]) -> tuple[FeatureResult, dict[str, Any]]:
-        """A feature's result and the values it publishes ("feature.param"), resolved or reused."""
-        kept = self._features.get(module.NAME)
+                shop: Mapping[str, Any], before: tuple[Any, ...] = ()) -> tuple[FeatureResult, dict[str, Any]]:
+        """A feature's result and the values it publishes ("feature.param"), resolved or reused.
+
+        ``before`` are the objects ``values`` was made from (the bearing's, the material's and the envelope's
+        values, then each earlier feature's published values): when they are the very objects they were when
+        the kept result was last found good, every value it read is too, and it is reused without reading them.
+        """
+        name = module.NAME
+        kept = self._features.get(name)
         if kept is not None:
             k_params, k_reads, k_shop, result, published = kept
             if ((k_params is params or _same(k_params, params))
-                    and (k_shop is None or k_shop is shop or _same(k_shop, shop))
-                    # the same objects (an earlier feature reused too) first, at C speed; then equal values
-                    and (all(map(operator.is_, map(values.get, k_reads, repeat(_MISSING)), k_reads.values()))
-                         or all(key in values and _same(values[key], value) for key, value in k_reads.items()))):
-                return result, published
+                    and (k_shop is None or k_shop is shop or _same(k_shop, shop))):
+                k_before = self._before[name]
+                if before and len(k_before) == len(before) and all(map(operator.is_, k_before, before)):
+                    return result, published
+                # the same objects (an earlier feature reused too) first, at C speed; then equal values
+                if (all(map(operator.is_, map(values.get, k_reads, repeat(_MISSING)), k_reads.values()))
+                        or all(key in values and _same(values[key], value) for key, value in k_reads.items())):
+                    self._before[name] = before
+                    return result, published
         ctx = Context(values, shop)
         result = module.resolve(ctx, params)
-        published = {f"{module.NAME}.{k}": v for k, v in result.dims.items()}
-        self._features[module.NAME] = (params, ctx.reads, shop if ctx.shop_read else None, result, published)
+        published = {f"{name}.{k}": v for k, v in result.dims.items()}
+        self._features[name] = (params, ctx.reads, shop if ctx.shop_read else None, result, published)
+        self._before[name] = before
         return result, published
 
 
@@ -221,17 +234,23 @@ def compose(design: Design, memo: BuildMemo | None = None) -> Composed:
     """Resolve every feature of ``design`` in order and compose the half-profile from their corners."""
     memo = memo if memo is not None else BuildMemo()
     values: dict[str, Any] = {}
-    values.update(memo.source("bearing", design["bearing"], lambda: resolve_bearing(design)))
-    values.update(memo.source("material", design["design"], lambda: resolve_material(design)))
-    values.update({f"envelope.{k}": v for k, v in design["envelope"].items()})
+    bearing = memo.source("bearing", design["bearing"], lambda: resolve_bearing(design))
+    material = memo.source("material", design["design"], lambda: resolve_material(design))
+    envelope = design["envelope"]
+    values.update(bearing)
+    values.update(material)
+    values.update({f"envelope.{k}": v for k, v in envelope.items()})
+    before: tuple[Any, ...] = (bearing, material, envelope)  # what ``values`` is made from so far
     results: dict[str, FeatureResult] = {}
     readable = MappingProxyType(values)  # features read earlier values, never write them
+    shop = design["shop"]
     for name, module in FEATURES.items():
         try:
-            results[name], published = memo.feature(module, design.features[name], readable, design["shop"])
+            results[name], published = memo.feature(module, design.features[name], readable, shop, before)
         except FeatureInputError as exc:
             raise DesignInputError(design.source, f"features.{name}.{exc.key}", exc.problem, exc.expected) from None
         values.update(published)
+        before += (published,)
     vertices = [v for feature, chunk in loop_chunks(results) for v in results[feature].chunks[chunk]]
     seats = [s for r in results.values() for s in r.seats]
     vertices, seat_failures = cut_seats(vertices, seats)
