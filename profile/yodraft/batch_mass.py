@@ -111,12 +111,11 @@ class _Columns:
         centres = np.fromiter(chain.from_iterable(map(attrgetter("center"), arcs)), float, 2 * len(arcs))
         fields = np.fromiter(chain.from_iterable(map(attrgetter("radius", "start_angle", "sweep"), arcs)), float,
                              3 * len(arcs))
-        self.zc, self.rc, self.a, self.t0, self.dt = self._place(
-            (centres[0::2], centres[1::2], fields[0::3], fields[1::3], fields[2::3]), variant[arc_mask], b)
+        trig = np.fromiter(chain.from_iterable(map(attrgetter("trig"), arcs)), float, 4 * len(arcs))  # Python's math
+        self.zc, self.rc, self.a, self.t0, self.dt, self.s0, self.c0, self.s1, self.c1 = self._place(
+            (centres[0::2], centres[1::2], fields[0::3], fields[1::3], fields[2::3],
+             trig[0::4], trig[1::4], trig[2::4], trig[3::4]), variant[arc_mask], b)
         self.t1 = self.t0 + self.dt  # Arc.end_angle
-        self.s0, self.c0, self.s1, self.c1 = (np.array([_each(fn, t) for t in angles]).reshape(angles.shape)
-                                              for fn, angles in ((math.sin, self.t0), (math.cos, self.t0),
-                                                                 (math.sin, self.t1), (math.cos, self.t1)))
 
     @staticmethod
     def _place(fields: Sequence["np.ndarray"], variant: "np.ndarray", b: int) -> "np.ndarray":

@@ -69,14 +69,21 @@ class Arc:
     #: the end points, worked out once from the fields above
     start: Point = field(init=False, repr=False, compare=False)
     end: Point = field(init=False, repr=False, compare=False)
+    #: the sine and cosine of the start and end angles, (sin θ0, cos θ0, sin θ1, cos θ1), that the end points
+    #: were worked out from (the mass integrals read them again)
+    trig: tuple[float, float, float, float] = field(init=False, repr=False, compare=False)
 
     def __post_init__(self) -> None:
         if not (self.radius > 0 and math.isfinite(self.radius)):
             raise GeometryError(f"arc radius must be positive, got {self.radius}")
         if not (0 < abs(self.sweep) <= 2 * math.pi):
             raise GeometryError(f"arc sweep must be in (0, 2π], got {self.sweep}")
-        object.__setattr__(self, "start", self.point_at(self.start_angle))
-        object.__setattr__(self, "end", self.point_at(self.end_angle))
+        t0, t1 = self.start_angle, self.end_angle
+        trig = (math.sin(t0), math.cos(t0), math.sin(t1), math.cos(t1))
+        (zc, rc), a = self.center, self.radius
+        object.__setattr__(self, "start", (zc + a * trig[1], rc + a * trig[0]))  # point_at(t0)
+        object.__setattr__(self, "end", (zc + a * trig[3], rc + a * trig[2]))  # point_at(t1)
+        object.__setattr__(self, "trig", trig)
 
     def point_at(self, angle: float) -> Point:
         return (self.center[0] + self.radius * math.cos(angle), self.center[1] + self.radius * math.sin(angle))
