@@ -3,7 +3,7 @@ from __future__ import annotations
 
 import math
 import operator
-from itertools import repeat
+from itertools import chain, filterfalse, repeat
 from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass
 from types import MappingProxyType, ModuleType
@@ -26,6 +26,10 @@ from .tolerances.stack import Link, Stack, stack
 from .tolerances.seat import SeatFit
 
 __all__ = ["Resolved", "BuildMemo", "Composed", "build", "compose", "judge", "judge_many", "resolve_bearing", "resolve_material", "loop_chunks"]
+
+#: a check's verdict and name, a feature result's checks, a corner's point, read in C
+_OK, _NAME, _CHECKS = operator.attrgetter("ok"), operator.attrgetter("name"), operator.attrgetter("checks")
+_POINT = operator.attrgetter("point")
 
 
 @dataclass(frozen=True)
@@ -51,16 +55,16 @@ class Resolved:
 
     @property
     def ok(self) -> bool:
-        return all(c.ok for c in self.checks)
+        return all(map(_OK, self.checks))
 
     @property
     def can_analyse(self) -> bool:
         """Whether the half's mass can be integrated: its loop exists and passes the prerequisite checks."""
-        return self.profile is not None and all(c.ok for c in self.checks if c.name in ANALYSIS_PREREQUISITES)
+        return self.profile is not None and ANALYSIS_PREREQUISITES.isdisjoint(map(_NAME, self.failed))
 
     @property
     def failed(self) -> tuple[Check, ...]:
-        return tuple(c for c in self.checks if not c.ok)
+        return tuple(filterfalse(_OK, self.checks))
 
     def __getitem__(self, key: str) -> Any:
         return self.values[key]
@@ -277,9 +281,9 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
     """
     design, values, results, profile, misfits, seats, seat_failures = composed
     shaped = bool(results["shape"].chunks["outer"])  # a given outer shape replaces the rim's and catch zone's
-    chunks = ({f"{feature}.{chunk}": [v.point for v in results[feature].chunks[chunk]] for feature, chunk in WALL_CHUNKS}
+    chunks = ({f"{feature}.{chunk}": list(map(_POINT, results[feature].chunks[chunk])) for feature, chunk in WALL_CHUNKS}
               if not shaped else {})  # the points wall_checks reads (none for a given outer shape)
-    checks: list[Check] = [c for r in results.values() for c in r.checks]
+    checks: list[Check] = list(chain.from_iterable(map(_CHECKS, results.values())))
     checks += radial_order(values, messages=not verdict_only)
     sketched = values["shape.kind"] == "sketch"
     if sketched:  # the rim's and catch zone's own sizes are only anchors of the sketch
