@@ -109,3 +109,19 @@ def test_a_loop_the_integrals_refuse_raises_as_the_scalar_path(by_template: dict
     with pytest.raises(ValueError) as batch_error:
         mass_outputs(rs)
     assert str(batch_error.value) == str(scalar_error.value)
+
+
+def test_loops_stacked_for_the_checks_weighed_from_their_stacks(by_template: dict) -> None:
+    """Loops stacked by ``checks.loop_stacks`` (a sweep's chunk, judged together) are weighed from the stacked
+    ends, each stack on its own: still the scalar path's floats, whatever the mix of loop runs."""
+    from yodraft.batch_mass import _one_stack
+    from yodraft.checks import loop_stacks
+
+    rng = random.Random(11)
+    mixed = [r for rs in by_template.values() for r in rs if len(r.parts) == 1]
+    rng.shuffle(mixed)
+    stacks = loop_stacks([r.parts[0].profile for r in mixed])
+    assert len(stacks) > 3 and max(len(s.members) for s in stacks) >= MIN_BATCH  # some stacks are weighed alone
+    big = next(s for s in stacks if len(s.members) >= MIN_BATCH)
+    assert _one_stack([mixed[b].parts[0].profile for b in big.members]) is not None  # not vacuous
+    assert [hexes(g) for g in mass_outputs(mixed)] == [hexes(scalar(r)) for r in mixed]

@@ -58,9 +58,18 @@ def mass_outputs(resolved: Sequence["Resolved"]) -> list[dict[str, float]]:
     """
     out: list[dict[str, float] | None] = [None] * len(resolved)
     single = [n for n, r in enumerate(resolved) if len(r.parts) == 1]
-    if len(single) >= MIN_BATCH:
-        for k in range(0, len(single), CHUNK):
-            chunk = single[k:k + CHUNK]
+    # loops stacked together for the checks are weighed together, from their stacked ends; the rest as one batch
+    by_stack: dict[int, list[int]] = {}
+    for n in single:
+        stacked = resolved[n].parts[0].profile.__dict__.get("_stacked")
+        by_stack.setdefault(id(stacked[0]) if stacked is not None else 0, []).append(n)
+    batches = [ns for ns in by_stack.values() if len(ns) >= MIN_BATCH]
+    rest = [n for ns in by_stack.values() if len(ns) < MIN_BATCH for n in ns]
+    if len(rest) >= MIN_BATCH:
+        batches.append(sorted(rest))
+    for batch in batches:
+        for k in range(0, len(batch), CHUNK):
+            chunk = batch[k:k + CHUNK]
             for n, figures in zip(chunk, _batch([resolved[n] for n in chunk])):
                 out[n] = figures
     for n, figures in enumerate(out):
@@ -89,6 +98,18 @@ def _each(fn: Any, x: "np.ndarray", where: "np.ndarray | None" = None) -> "np.nd
     return out
 
 
+def _one_stack(profiles: Sequence[Any]) -> "tuple[Any, list[int]] | None":
+    """The one ``checks.LoopStack`` every loop of ``profiles`` was stacked in for the checks (``loop_stacks``)
+    and each loop's row in it; None when they were not all stacked together."""
+    placed = [p.__dict__.get("_stacked") for p in profiles]
+    if not placed or placed[0] is None:
+        return None
+    stack = placed[0][0]
+    if not all(s is not None and s[0] is stack for s in placed):
+        return None
+    return stack, [row for _, row in placed]
+
+
 class _Columns:
     """The body loops of B variants side by side: the k-th line of every loop in row k of the line columns
     (z0, r0, z1, r1) and the k-th arc in row k of the arc columns, each of shape (k, B), zeros where a loop
@@ -99,22 +120,33 @@ class _Columns:
 
         self.b = b = len(profiles)
         seg_lists = [p.segments for p in profiles]
-        segs = list(chain.from_iterable(seg_lists))
-        is_arc = list(map(is_, map(type, segs), repeat(Arc)))
-        arcs = list(compress(segs, is_arc))
-        variant = np.repeat(np.arange(b), np.fromiter(map(len, seg_lists), np.intp, b))
-        arc_mask = np.array(is_arc, bool)
-        lines = list(compress(segs, map(not_, is_arc)))
-        ends = np.fromiter(chain.from_iterable(chain.from_iterable(lines)), float, 4 * len(lines))  # Line: (start, end)
-        self.z0, self.r0, self.z1, self.r1 = self._place(
-            (ends[0::4], ends[1::4], ends[2::4], ends[3::4]), variant[~arc_mask], b)
+        stacked = _one_stack(profiles)
+        if stacked is not None:  # the loops' ends already stacked for the checks (a sweep's usual case)
+            stack, rows = stacked
+            places = [i for i in range(stack.n) if i not in set(stack.arcs)]
+            starts, ends = stack.starts[rows][:, places], stack.ends[rows][:, places]  # (B, lines, 2)
+            self.z0, self.r0, self.z1, self.r1 = (np.ascontiguousarray(x.T) for x in (
+                starts[..., 0], starts[..., 1], ends[..., 0], ends[..., 1]))
+            arcs = [seg_list[i] for seg_list in seg_lists for i in stack.arcs]
+            arc_variant = np.repeat(np.arange(b), len(stack.arcs))
+        else:
+            segs = list(chain.from_iterable(seg_lists))
+            is_arc = list(map(is_, map(type, segs), repeat(Arc)))
+            arcs = list(compress(segs, is_arc))
+            variant = np.repeat(np.arange(b), np.fromiter(map(len, seg_lists), np.intp, b))
+            arc_mask = np.array(is_arc, bool)
+            lines = list(compress(segs, map(not_, is_arc)))
+            line_ends = np.fromiter(chain.from_iterable(chain.from_iterable(lines)), float, 4 * len(lines))  # (start, end)
+            self.z0, self.r0, self.z1, self.r1 = self._place(
+                (line_ends[0::4], line_ends[1::4], line_ends[2::4], line_ends[3::4]), variant[~arc_mask], b)
+            arc_variant = variant[arc_mask]
         centres = np.fromiter(chain.from_iterable(map(attrgetter("center"), arcs)), float, 2 * len(arcs))
         fields = np.fromiter(chain.from_iterable(map(attrgetter("radius", "start_angle", "sweep"), arcs)), float,
                              3 * len(arcs))
         trig = np.fromiter(chain.from_iterable(map(attrgetter("trig"), arcs)), float, 4 * len(arcs))  # Python's math
         self.zc, self.rc, self.a, self.t0, self.dt, self.s0, self.c0, self.s1, self.c1 = self._place(
             (centres[0::2], centres[1::2], fields[0::3], fields[1::3], fields[2::3],
-             trig[0::4], trig[1::4], trig[2::4], trig[3::4]), variant[arc_mask], b)
+             trig[0::4], trig[1::4], trig[2::4], trig[3::4]), arc_variant, b)
         self.t1 = self.t0 + self.dt  # Arc.end_angle
 
     @staticmethod

@@ -372,7 +372,11 @@ def loop_stacks(profiles: Sequence["Profile"]) -> list[LoopStack]:
         segs = [s for b in members for s in profiles[b].segments]
         starts = np.fromiter(chain.from_iterable(map(attrgetter("start"), segs)), float, 2 * len(segs)).reshape(-1, n, 2)
         ends = np.fromiter(chain.from_iterable(map(attrgetter("end"), segs)), float, 2 * len(segs)).reshape(-1, n, 2)
-        out.append(LoopStack(members, n, arcs, starts, ends))
+        starts.flags.writeable = ends.flags.writeable = False  # shared by the checks and the batched mass
+        stack = LoopStack(members, n, arcs, starts, ends)
+        for row, b in enumerate(members):  # where the batched mass finds the loop's ends again
+            profiles[b].__dict__["_stacked"] = (stack, row)
+        out.append(stack)
     return out
 
 
