@@ -1,6 +1,7 @@
 """The builder: resolves the features in order, composes the loop and runs every check."""
 from __future__ import annotations
 
+import functools
 import math
 import operator
 from itertools import chain, filterfalse, repeat
@@ -208,10 +209,16 @@ class BuildMemo:
                     return result, published
         ctx = Context(values, shop)
         result = module.resolve(ctx, params)
-        published = {f"{name}.{k}": v for k, v in result.dims.items()}
+        published = dict(zip(_published_keys(name, tuple(result.dims)), result.dims.values()))
         self._features[name] = (params, ctx.reads, shop if ctx.shop_read else None, result, published)
         self._before[name] = before
         return result, published
+
+
+@functools.lru_cache(maxsize=256)
+def _published_keys(feature: str, dims: tuple[str, ...]) -> tuple[str, ...]:
+    """The keys a feature's dimensions are published under ("feature.param"), made once for each set of dimensions."""
+    return tuple(f"{feature}.{k}" for k in dims)
 
 
 def loop_chunks(results: Mapping[str, FeatureResult]) -> list[tuple[str, str]]:

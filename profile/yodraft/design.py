@@ -8,7 +8,7 @@ import re
 import stat
 import tomllib
 from collections.abc import Mapping, Sequence
-from dataclasses import dataclass, field, replace
+from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
@@ -257,9 +257,7 @@ def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Desig
     >>> d.features["rim"]["thickness"], d.raw["features"]["rim"]["thickness"], d.is_given("features.rim.thickness")
     (5.0, '5 mm', True)
     """
-    sections = dict(base.sections)
-    features = dict(base.features)
-    raw = dict(base.raw)
+    changed: dict[tuple[str, ...], dict[str, tuple[float, Any]]] = {}  # table path → key → (value, as written)
     keys = []
     for key, value in assignments:
         found = _param_path(key)
@@ -268,16 +266,20 @@ def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Desig
                                    "a key path such as features.rim.band_width or shop.fit_clearance")
         parts, spec = found
         keys.append(".".join(parts))
-        written = spec.written(value)
-        if parts[0] == "features":
-            features[parts[1]] = {**features[parts[1]], parts[2]: value}
-            tables = dict(raw.get("features", {}))
-            tables[parts[1]] = {**tables.get(parts[1], {}), parts[2]: written}
-            raw["features"] = tables
+        changed.setdefault(parts[:-1], {})[parts[-1]] = (value, spec.written(value))
+    sections, features, raw = dict(base.sections), dict(base.features), dict(base.raw)
+    raw_features = dict(raw.get("features", {}))
+    for table, items in changed.items():  # each changed table copied once
+        values = {k: v for k, (v, _) in items.items()}
+        written = {k: w for k, (_, w) in items.items()}
+        if table[0] == "features":
+            features[table[1]] = {**features[table[1]], **values}
+            raw_features[table[1]] = {**raw_features.get(table[1], {}), **written}
+            raw["features"] = raw_features
         else:
-            sections[parts[0]] = {**sections[parts[0]], parts[1]: value}
-            raw[parts[0]] = {**raw.get(parts[0], {}), parts[1]: written}
-    return replace(base, sections=sections, features=features, given=base.given | frozenset(keys), raw=raw)
+            sections[table[0]] = {**sections[table[0]], **values}
+            raw[table[0]] = {**raw.get(table[0], {}), **written}
+    return Design(base.source, sections, features, base.given | frozenset(keys), base.revisions, raw)
 
 
 #: a design for doctests: everything but the envelope takes its default

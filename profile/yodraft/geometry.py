@@ -12,7 +12,8 @@ from __future__ import annotations
 
 import functools
 import math
-from itertools import chain, repeat
+import operator
+from itertools import chain, compress, repeat
 from operator import attrgetter
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, NamedTuple, Union
@@ -33,6 +34,7 @@ class GeometryError(ValueError):
 
 
 _new_tuple = tuple.__new__
+_START, _END = attrgetter("start"), attrgetter("end")  # a segment's ends, read in C
 _dist = math.dist  # distance between two points (the same sum as math.hypot of the differences)
 
 
@@ -154,7 +156,7 @@ class Profile:
         if len(self.segments) < 2:
             raise GeometryError("a profile needs at least two segments")
         segs = self.segments
-        ends, starts = [s.end for s in segs], [s.start for s in segs[1:] + segs[:1]]
+        ends, starts = list(map(_END, segs)), list(map(_START, segs[1:] + segs[:1]))
         if max(map(_dist, ends, starts)) > CLOSE_TOL_MM:
             end, start = next((a, b) for a, b in zip(ends, starts) if _dist(a, b) > CLOSE_TOL_MM)
             raise GeometryError(f"loop is open between {end} and {start}")
@@ -411,7 +413,7 @@ def _fillet_next_to_arc(prev: Point, here: Point, nxt: Point, arc_in: Arc | None
     return took_in, took_out, f_in, f_out, Arc(centre, radius, a0, sweep)
 
 
-_sweep = attrgetter("sweep")  # a corner's arc sweep, read in C
+_sweep, _radius, _point = attrgetter("sweep"), attrgetter("radius"), attrgetter("point")  # a corner's, read in C
 
 
 def _straight_loop(vertices: list[FilletVertex], pts: list[Point], edge: list[float]) -> tuple[Profile, list[str]] | None:
@@ -422,12 +424,12 @@ def _straight_loop(vertices: list[FilletVertex], pts: list[Point], edge: list[fl
     arc_after: list[Arc | None] = [None] * n  # the fillet at the end of edge i
     trim = [0.0] * n  # how much of each of its two edges the fillet at corner i takes
     rounded = []
-    for i, v in enumerate(vertices):
-        if v.radius > 0:
-            plan = _fillet(pts[i - 1], pts[i], ends[i], v.radius)
-            if plan is not None:
-                trim[i], ends[i - 1], starts[i], arc_after[i - 1] = plan
-                rounded.append(i)
+    radii = list(map(_radius, vertices))
+    for i in compress(range(n), map(operator.lt, repeat(0.0), radii)):  # the corners with a radius above 0
+        plan = _fillet(pts[i - 1], pts[i], ends[i], radii[i])
+        if plan is not None:
+            trim[i], ends[i - 1], starts[i], arc_after[i - 1] = plan
+            rounded.append(i)
     for i in rounded:  # the fillets at both ends of an edge must fit on it together
         if trim[i - 1] + trim[i] > edge[i - 1] + 1e-9 or trim[i] + trim[(i + 1) % n] > edge[i] + 1e-9:
             return None
@@ -449,7 +451,7 @@ def fillet_loop(vertices: list[FilletVertex]) -> tuple[Profile, list[str]]:
     tangent to both edges. Returns the profile and the owners of radii that do
     not fit on their edges (those corners are left sharp).
     """
-    pts = [v.point for v in vertices]
+    pts = list(map(_point, vertices))
     edge = list(map(_dist, pts, pts[1:] + pts[:1]))  # edge i runs from corner i to corner i + 1
     if min(edge, default=0.0) <= 1e-9:
         # drop repeated points so every edge has a direction
