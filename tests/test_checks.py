@@ -132,6 +132,16 @@ def test_thin_walls_give_the_closest_facing_pair_cut_at_the_limit(below: float) 
     assert any(expected) and not all(expected)
 
 
+def test_thin_walls_with_a_limit_of_each_loop_its_own() -> None:
+    # loops stacked together, each with its own least wall: the pairs first picked for the whole stack (at its
+    # largest limit) must not hide a pair from any loop, nor lend one to a loop of a smaller limit
+    loops = _loops()
+    below = [(0.3, 1.5, 0.5, 0.8)[k % 4] for k in range(len(loops))]
+    expected = [(full := _least_wall_by_definition(p)) is not None and full[0] < b for (_, p), b in zip(loops, below)]
+    assert thin_walls([p for _, p in loops], below) == expected
+    assert any(expected) and not all(expected)
+
+
 def test_crossing_free_is_shapely_simplicity_of_each_ring() -> None:
     # the loops' rings made all at once must be judged as each ring made alone (shapely's is_simple)
     loops = [p for _, p in _loops()]

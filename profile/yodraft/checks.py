@@ -431,16 +431,24 @@ def thin_walls(profiles: Sequence["Profile"], below: Sequence[float],
     for members, n, arcs, starts, ends in stacks if stacks is not None else loop_stacks(profiles):
         lo, hi = _box_corners([profiles[b] for b in members], starts, ends, arcs)
         keep = _off_axis(starts, ends, arcs)
-        # surfaces i (rows) and j (columns) can be closer than the limit only where their boxes are,
-        # along z and along r (the true distance is at least each); the few pairs left are measured
-        limit = np.array([below[b] for b in members])[:, None, None] + _BOX_SLACK
-        near_ij = _pair_mask(n) & keep[:, :, None] & keep[:, None, :]
+        # surfaces i and j can be closer than the limit only where their boxes are, along z and along r
+        # (the true distance is at least each); the few pairs left are measured
+        limit = np.array([below[b] for b in members]) + _BOX_SLACK
+        # first the pairs whose boxes, each grown to hold that surface in every loop of the stack, are that
+        # close (a sweep moves few surfaces), in row order: no other pair can be in any one loop
+        u_lo, u_hi, widest = lo.min(axis=0), hi.max(axis=0), limit.max()
+        ever = _pair_mask(n).copy()
+        for axis in (0, 1):
+            ever &= u_lo[None, :, axis] - u_hi[:, None, axis] < widest
+            ever &= u_lo[:, None, axis] - u_hi[None, :, axis] < widest
+        ci, cj = np.nonzero(ever)
+        near_ij = keep[:, ci] & keep[:, cj]  # (loops, candidate pairs)
         for axis in (0, 1):
             low, high = lo[..., axis], hi[..., axis]
-            near_ij &= low[:, None, :] - high[:, :, None] < limit
-            near_ij &= low[:, :, None] - high[:, None, :] < limit
-        at, i, j = np.nonzero(near_ij)
-        near += zip(np.array(members)[at].tolist(), i.tolist(), j.tolist())
+            near_ij &= low[:, cj] - high[:, ci] < limit[:, None]
+            near_ij &= low[:, ci] - high[:, cj] < limit[:, None]
+        at, pair = np.nonzero(near_ij)
+        near += zip(np.array(members)[at].tolist(), ci[pair].tolist(), cj[pair].tolist())
     thin = [False] * len(profiles)
     if not near:
         return thin
