@@ -4,7 +4,7 @@ from __future__ import annotations
 import functools
 import math
 from itertools import chain
-from operator import attrgetter
+from operator import attrgetter, itemgetter
 from collections.abc import Iterable, Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
@@ -369,9 +369,10 @@ def loop_stacks(profiles: Sequence["Profile"]) -> list[LoopStack]:
     for kinds, members in groups.items():
         n = len(kinds)
         arcs = [i for i, s in enumerate(profiles[members[0]].segments) if hasattr(s, "center")]
-        segs = [s for b in members for s in profiles[b].segments]
-        starts = np.fromiter(chain.from_iterable(map(attrgetter("start"), segs)), float, 2 * len(segs)).reshape(-1, n, 2)
-        ends = np.fromiter(chain.from_iterable(map(attrgetter("end"), segs)), float, 2 * len(segs)).reshape(-1, n, 2)
+        kept = [profiles[b].segment_ends for b in members]
+        count = 2 * n * len(members)
+        starts = np.fromiter(chain.from_iterable(chain.from_iterable(map(itemgetter(0), kept))), float, count).reshape(-1, n, 2)
+        ends = np.fromiter(chain.from_iterable(chain.from_iterable(map(itemgetter(1), kept))), float, count).reshape(-1, n, 2)
         starts.flags.writeable = ends.flags.writeable = False  # shared by the checks and the batched mass
         stack = LoopStack(members, n, arcs, starts, ends)
         for row, b in enumerate(members):  # where the batched mass finds the loop's ends again

@@ -148,18 +148,25 @@ Segment = Union[Line, Arc]
 
 @dataclass(frozen=True)
 class Profile:
-    """One closed loop of lines and arcs in the (z, r) half-plane."""
+    """One closed loop of lines and arcs in the (z, r) half-plane.
+
+    ``segment_ends`` are every segment's start points and end points, two lists in loop order, kept from the
+    check that the loop closes (the batched checks stack them).
+    """
 
     segments: tuple[Segment, ...]
+    segment_ends: tuple[list[Point], list[Point]] = field(init=False, repr=False, compare=False)
 
     def __post_init__(self) -> None:
         if len(self.segments) < 2:
             raise GeometryError("a profile needs at least two segments")
         segs = self.segments
-        ends, starts = list(map(_END, segs)), list(map(_START, segs[1:] + segs[:1]))
-        if max(map(_dist, ends, starts)) > CLOSE_TOL_MM:
-            end, start = next((a, b) for a, b in zip(ends, starts) if _dist(a, b) > CLOSE_TOL_MM)
+        starts, ends = list(map(_START, segs)), list(map(_END, segs))
+        following = starts[1:] + starts[:1]  # the start of the segment after each
+        if max(map(_dist, ends, following)) > CLOSE_TOL_MM:
+            end, start = next((a, b) for a, b in zip(ends, following) if _dist(a, b) > CLOSE_TOL_MM)
             raise GeometryError(f"loop is open between {end} and {start}")
+        self.__dict__["segment_ends"] = (starts, ends)  # not a field (equality ignores it): see the class docstring
 
     @classmethod
     def from_points(cls, points: list[Point]) -> "Profile":
