@@ -16,7 +16,11 @@ def V(z: float, r: float, radius: float = 0.0, owner: str = "") -> FilletVertex:
 
     A zero is always +0.0, so equal corners are equal keys for the fillet cache, sign of zero included.
     """
-    return FilletVertex((float(z) + 0.0, float(r) + 0.0), float(radius), owner)
+    # FilletVertex(point, radius, owner) made without the constructor's Python call (a sweep makes one per corner)
+    return _new_tuple(FilletVertex, ((float(z) + 0.0, float(r) + 0.0), float(radius), owner, 0.0))
+
+
+_new_tuple = tuple.__new__
 
 
 @dataclass
