@@ -202,9 +202,10 @@ class BuildMemo:
                 k_before = self._before[name]
                 if before and len(k_before) == len(before) and all(map(operator.is_, k_before, before)):
                     return result, published
-                # the same objects (an earlier feature reused too) first, at C speed; then equal values
-                if (all(map(operator.is_, map(values.get, k_reads, repeat(_MISSING)), k_reads.values()))
-                        or all(key in values and _same(values[key], value) for key, value in k_reads.items())):
+                # the same objects (an earlier feature reused too) first, at C speed; then equal values (a value
+                # no longer given reads as _MISSING, which equals nothing)
+                now = list(map(values.get, k_reads, repeat(_MISSING)))
+                if all(map(operator.is_, now, k_reads.values())) or all(map(_same, now, k_reads.values())):
                     self._before[name] = before
                     return result, published
         ctx = Context(values, shop)
