@@ -123,7 +123,8 @@ class _Columns:
         stacked = _one_stack(profiles)
         if stacked is not None:  # the loops' ends already stacked for the checks (a sweep's usual case)
             stack, rows = stacked
-            places = [i for i in range(stack.n) if i not in set(stack.arcs)]
+            arc_places = set(stack.arcs)
+            places = [i for i in range(stack.n) if i not in arc_places]
             starts, ends = stack.starts[rows][:, places], stack.ends[rows][:, places]  # (B, lines, 2)
             self.z0, self.r0, self.z1, self.r1 = (np.ascontiguousarray(x.T) for x in (
                 starts[..., 0], starts[..., 1], ends[..., 0], ends[..., 1]))
