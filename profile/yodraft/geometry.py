@@ -12,9 +12,8 @@ from __future__ import annotations
 
 import functools
 import math
-import operator
 from itertools import chain, compress, repeat
-from operator import attrgetter
+from operator import attrgetter, lt
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, NamedTuple, Union
 
@@ -151,7 +150,8 @@ class Profile:
     """One closed loop of lines and arcs in the (z, r) half-plane.
 
     ``segment_ends`` are every segment's start points and end points, two lists in loop order, kept from the
-    check that the loop closes (the batched checks stack them).
+    check that the loop closes (the batched checks stack them). ``checks.loop_stacks`` also leaves on the loop
+    the stack and row it put the loop in (``_stacked``), where the batched mass finds its ends again.
     """
 
     segments: tuple[Segment, ...]
@@ -432,7 +432,7 @@ def _straight_loop(vertices: list[FilletVertex], pts: list[Point], edge: list[fl
     trim = [0.0] * n  # how much of each of its two edges the fillet at corner i takes
     rounded = []
     radii = list(map(_radius, vertices))
-    for i in compress(range(n), map(operator.lt, repeat(0.0), radii)):  # the corners with a radius above 0
+    for i in compress(range(n), map(lt, repeat(0.0), radii)):  # the corners with a radius above 0
         plan = _fillet(pts[i - 1], pts[i], ends[i], radii[i])
         if plan is not None:
             trim[i], ends[i - 1], starts[i], arc_after[i - 1] = plan
