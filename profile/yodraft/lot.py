@@ -17,7 +17,8 @@ evaluated on that linear model as NumPy arrays (under the normal spread, the
 dimensions that move only the mass and Izz are drawn as the one joint normal
 effect they have on the linear model). A sample of halves, drawn dimension by
 dimension, is rebuilt exactly to measure how far the linear model is off
-(``linearisation_error``).
+(``linearisation_error``); a sampled half whose drawn sizes the builder refuses
+is counted as not rebuilt, with the first reason.
 Fit clearances, the gap and the unbalance are linear in the drawn values and
 are worked out exactly.
 
@@ -45,6 +46,7 @@ from .analysis import analyse, part_props
 from .balance import permissible_specific_unbalance_mm
 from .builder import BuildMemo, Resolved, build, compose, judge_many, loop_chunks
 from .design import Design, with_values
+from .errors import YodraftError
 from .features import FEATURES
 from .massprops import combine_bodies
 from .tails import percentiles
@@ -280,17 +282,26 @@ def _unit_props(design: Design, memo: BuildMemo | None = None) -> tuple[float, f
     return _units_props([design], memo)[0]
 
 
-def _units_props(designs: Sequence[Design], memo: BuildMemo | None = None) -> list[tuple[float, float] | None]:
+def _units_props(designs: Sequence[Design], memo: BuildMemo | None = None,
+                 refusals: list[str] | None = None) -> list[tuple[float, float] | None]:
     """``_unit_props`` of many halves, their loops judged together (``builder.judge_many``).
 
     Built verdict-only: the mass needs the loop and the checks it rests on, not the least wall's size or the
-    re-entrant regions."""
+    re-entrant regions. A half whose drawn sizes the builder refuses (a sketch point that a bore at the edge
+    of its band reaches past) cannot be integrated either: it is None, like a half whose loop fails, and the
+    builder's reason is added to ``refusals``."""
     memo = memo if memo is not None else BuildMemo()
+    composed: list[Any] = []
+    for d in designs:
+        try:
+            composed.append(compose(d, memo))
+        except (YodraftError, ValueError) as exc:
+            composed.append(exc)
     out: list[tuple[float, float] | None] = []
-    for resolved in judge_many([compose(d, memo) for d in designs]):
-        if isinstance(resolved, Exception):
-            raise resolved
-        if not resolved.can_analyse:
+    for resolved in judge_many(composed):
+        if isinstance(resolved, Exception) and refusals is not None:
+            refusals.append(str(resolved))
+        if isinstance(resolved, Exception) or not resolved.can_analyse:
             out.append(None)
             continue
         props = combine_bodies([props for _, _, props in part_props(resolved)])
@@ -536,8 +547,9 @@ def _linearisation_error(design: Design, dims: Sequence[Band], deviations: np.nd
     izz_err: list[float] = []
     failed = 0
     memo = BuildMemo()  # the features no toleranced dimension reaches are resolved once
+    refusals: list[str] = []
     rebuilt = _units_props([_pinned(design, {b.key: b.nominal + d for b, d in zip(dims, dev)}) for dev in deviations],
-                           memo)
+                           memo, refusals)
     for dev, exact in zip(deviations, rebuilt):
         if exact is None:
             failed += 1
@@ -545,7 +557,7 @@ def _linearisation_error(design: Design, dims: Sequence[Band], deviations: np.nd
         linear = np.asarray(unit0) + sens @ dev
         mass_err.append(abs(linear[0] - exact[0]) / exact[0])
         izz_err.append(abs(linear[1] - exact[1]) / exact[1])
-    return {"sample": len(deviations), "not_rebuilt": failed,
+    return {"sample": len(deviations), "not_rebuilt": failed, "first_refusal": refusals[0] if refusals else "",
             "mass_max_relative": max(mass_err, default=0.0), "izz_max_relative": max(izz_err, default=0.0),
             "mass_rms_relative": math.sqrt(sum(e * e for e in mass_err) / len(mass_err)) if mass_err else 0.0}
 
@@ -631,10 +643,21 @@ def lot_text(data: Mapping[str, Any]) -> str:
         f"  static unbalance mean {u['mean']:.3f} g·mm, p99 {u['p99']:.3f} g·mm, permissible {u['permissible']:.3f} g·mm; "
         f"over: {pct(data['unbalance_over_share'])}",
         f"  good yo-yos: {data['good_yoyos']} from {data['units']} halves",
-        f"  linear model against {lin['sample'] - lin['not_rebuilt']} exact rebuilds: mass within "
-        f"{lin['mass_max_relative']:.2e}, Izz within {lin['izz_max_relative']:.2e} (relative)",
+        _linearisation_line(lin),
     ]
     return "\n".join(lines) + "\n"
+
+
+def _linearisation_line(lin: Mapping[str, Any]) -> str:
+    """The report's line on the linear model against the exactly rebuilt halves, and how many could not be."""
+    rebuilt, sample = lin["sample"] - lin["not_rebuilt"], lin["sample"]
+    refused = (f"; {lin['not_rebuilt']} of the {sample} sampled halves do not rebuild"
+               + (f" (the first: {lin['first_refusal']})" if lin.get("first_refusal") else "")
+               if lin["not_rebuilt"] else "")
+    if not rebuilt:
+        return f"  linear model not checked against exact rebuilds{refused}"
+    return (f"  linear model against {rebuilt} exact rebuilds: mass within {lin['mass_max_relative']:.2e}, "
+            f"Izz within {lin['izz_max_relative']:.2e} (relative){refused}")
 
 
 def lot_csv(r: LotResult) -> str:
