@@ -108,6 +108,14 @@ def test_grade_out_of_range(grade: int) -> None:
         ("k", 6, 20.0, 15.0, 2.0),     # ISO 286-2, k6 18–30 mm
         ("k", 8, 8.0, 22.0, 0.0),      # ISO 286-1 Table 2: k above IT7 has ei = 0
         ("js", 6, 8.0, 4.5, -4.5),     # ISO 286-1: js = ± IT/2
+        ("u", 6, 25.0, 61.0, 48.0),    # ISO 286-2, u6 24–30 mm (from memory; the preferred fit 25 H7/u6: 0.027–0.061)
+        ("u", 6, 20.0, 54.0, 41.0),    # ISO 286-2, u6 18–24 mm (from memory)
+        ("u", 6, 24.0, 54.0, 41.0),    # the 18–24 mm step includes 24 mm (ISO 286-1: "over … up to and including")
+        ("u", 6, 40.0, 76.0, 60.0),    # ISO 286-2, u6 30–40 mm (from memory; the preferred fit 40 H7/u6)
+        ("u", 6, 60.0, 106.0, 87.0),   # ISO 286-2, u6 50–65 mm (from memory; the preferred fit 60 H7/u6)
+        ("u", 6, 120.0, 166.0, 144.0),  # ISO 286-2, u6 100–120 mm (from memory; the preferred fit 120 H7/u6)
+        ("u", 6, 6.0, 31.0, 23.0),     # ISO 286-2, u6 3–6 mm (from memory; the preferred fit 6 H7/u6)
+        ("s", 6, 50.0, 59.0, 43.0),    # ISO 286-2, s6 30–50 mm (the preferred fit 50 H7/s6)
     ],
 )
 def test_shaft_limits(letter: str, grade: int, size: float, upper: float, lower: float) -> None:
@@ -236,7 +244,7 @@ HOLES = [("E", g) for g in range(1, 13)] + [("F", g) for g in range(1, 13)] + [(
     + [(l, g) for l in ("K", "M", "N") for g in range(3, 9)] + [("N", g) for g in range(9, 12)] \
     + [(l, g) for l in ("K", "M") for g in range(9, 13)] \
     + [("P", g) for g in range(3, 13)]
-SHAFTS = [(l, g) for l in ("e", "f", "g", "h", "js", "k", "m", "n", "p") for g in range(1, 13)]
+SHAFTS = [(l, g) for l in ("e", "f", "g", "h", "js", "k", "m", "n", "p", "r", "s", "u") for g in range(1, 13)]
 
 
 @given(

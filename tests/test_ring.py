@@ -146,6 +146,14 @@ def test_iso_fit_code_gives_the_interference() -> None:
     assert g["interference_um"] == pytest.approx([18.0, 59.0])
 
 
+def test_the_force_fit_code_gives_its_interference() -> None:
+    text = BIMETAL.replace('interference_min = "0.05 mm"\n', "").replace('interference_max = "0.08 mm"\n', "")
+    g = yodraft.summary(_build(_with(text, fit="H7/u6", diameter="50 mm")))["ring"]
+    # ISO 286-2 preferred fits: 50 H7/u6 (force fit) gives an interference of 0.045 to 0.086 mm (from memory)
+    assert g["fit"] == "50 H7/u6"
+    assert g["interference_um"] == pytest.approx([45.0, 86.0])
+
+
 @pytest.mark.parametrize("seat", ["outer diameter", "cup wall", "face"])
 def test_every_seat_builds_and_keeps_the_parts_apart(seat: str) -> None:
     resolved = _build(_with(BIMETAL, seat=seat, hold_force="100 N"))

@@ -8,7 +8,7 @@ Supported tolerance classes
 ---------------------------
 Holes: E F G H JS (grades 1–12); K M N (grades 3–8, with Δ); K M (grades 9–12, without Δ); N (grades 9–11);
 P (grades 3–7 with Δ, 8–12 without); N9–N11 only over 1 mm. Shafts: e f g h js k m n p, and the
-interference letters r s (grades 1–12).
+interference letters r s u (grades 1–12; u is the force fit's shaft, as in H7/u6).
 Anything else (other letters, K/M/N/P below grade 3, N above 11, the grades IT01 and IT0,
 sizes over 120 mm) raises :class:`FitCodeError` naming what is not supported. A grade is
 written as the standard writes it ("7", "01"): "007" or "H07" is not read as IT7.
@@ -96,16 +96,20 @@ _DELTA: dict[int, tuple[float, ...]] = {
     8: (0.0, 6.0, 7.0, 9.0, 12.0, 14.0, 16.0, 19.0),
 }
 
-#: shaft lower deviation ei (µm) for the interference letters r and s (all grades), whose table splits the
-#: steps above 50 mm: over 0, 3, 6, 10, 18, 30, 50, 65, 80, 100 up to 120  # ISO 286-1, Table 2
-_FINE_STEPS = (3.0, 6.0, 10.0, 18.0, 30.0, 50.0, 65.0, 80.0, 100.0, 120.0)
-_SHAFT_EI_FINE: dict[str, tuple[float, ...]] = {
-    "r": (10.0, 15.0, 19.0, 23.0, 28.0, 34.0, 41.0, 43.0, 51.0, 54.0),
-    "s": (14.0, 19.0, 23.0, 28.0, 35.0, 43.0, 53.0, 59.0, 71.0, 79.0),
+#: shaft lower deviation ei (µm) for the interference letters r, s and u (all grades), whose table splits the
+#: size steps further: each letter's (steps' upper ends in mm, values); r and s split the steps above 50 mm
+#: (over 0, 3, 6, 10, 18, 30, 50, 65, 80, 100 up to 120), u also those from 18 to 50 mm (at 24 and 40)
+#: # ISO 286-1, Table 2
+_R_S_STEPS = (3.0, 6.0, 10.0, 18.0, 30.0, 50.0, 65.0, 80.0, 100.0, 120.0)
+_U_STEPS = (3.0, 6.0, 10.0, 18.0, 24.0, 30.0, 40.0, 50.0, 65.0, 80.0, 100.0, 120.0)
+_SHAFT_EI_FINE: dict[str, tuple[tuple[float, ...], tuple[float, ...]]] = {
+    "r": (_R_S_STEPS, (10.0, 15.0, 19.0, 23.0, 28.0, 34.0, 41.0, 43.0, 51.0, 54.0)),
+    "s": (_R_S_STEPS, (14.0, 19.0, 23.0, 28.0, 35.0, 43.0, 53.0, 59.0, 71.0, 79.0)),
+    "u": (_U_STEPS, (18.0, 23.0, 28.0, 33.0, 41.0, 48.0, 60.0, 70.0, 87.0, 102.0, 124.0, 144.0)),
 }
 
 _HOLE_LETTERS = ("E", "F", "G", "H", "JS", "K", "M", "N", "P")
-_SHAFT_LETTERS = ("e", "f", "g", "h", "js", "k", "m", "n", "p", "r", "s")
+_SHAFT_LETTERS = ("e", "f", "g", "h", "js", "k", "m", "n", "p", "r", "s", "u")
 
 
 class FitCodeError(ValueError):
@@ -203,7 +207,8 @@ def shaft_limits(letter: str, grade: int, size_mm: float) -> Limits:
         es = _SHAFT_ES[letter][i]
         return Limits(_round(es), _round(es - it))
     if letter in _SHAFT_EI_FINE:
-        ei = _SHAFT_EI_FINE[letter][next(j for j, top in enumerate(_FINE_STEPS) if size_mm <= top)]
+        tops, values = _SHAFT_EI_FINE[letter]
+        ei = values[next(j for j, top in enumerate(tops) if size_mm <= top)]
         return Limits(_round(ei + it), _round(ei))
     if letter == "k" and not 4 <= grade <= 7:
         ei = 0.0  # k above IT7 and up to IT3 sits on the zero line  # ISO 286-1, Table 2
