@@ -649,7 +649,7 @@ def lot_text(data: Mapping[str, Any]) -> str:
 
 
 def _linearisation_line(lin: Mapping[str, Any]) -> str:
-    """The report's line on the linear model against the exactly rebuilt halves, and how many could not be."""
+    """The lot's line on the linear model against the exactly rebuilt halves, and how many halves did not rebuild."""
     rebuilt, sample = lin["sample"] - lin["not_rebuilt"], lin["sample"]
     refused = (f"; {lin['not_rebuilt']} of the {sample} sampled halves do not rebuild"
                + (f" (the first: {lin['first_refusal']})" if lin.get("first_refusal") else "")

@@ -98,8 +98,7 @@ _DELTA: dict[int, tuple[float, ...]] = {
 
 #: shaft lower deviation ei (µm) for the interference letters r, s and u (all grades), whose table splits the
 #: size steps further: each letter's (steps' upper ends in mm, values); r and s split the steps above 50 mm
-#: (over 0, 3, 6, 10, 18, 30, 50, 65, 80, 100 up to 120), u also those from 18 to 50 mm (at 24 and 40)
-#: # ISO 286-1, Table 2
+#: (over 0, 3, 6, 10, 18, 30, 50, 65, 80, 100 up to 120), u also those from 18 to 50 mm (at 24 and 40)  # ISO 286-1, Table 2
 _R_S_STEPS = (3.0, 6.0, 10.0, 18.0, 30.0, 50.0, 65.0, 80.0, 100.0, 120.0)
 _U_STEPS = (3.0, 6.0, 10.0, 18.0, 24.0, 30.0, 40.0, 50.0, 65.0, 80.0, 100.0, 120.0)
 _SHAFT_EI_FINE: dict[str, tuple[tuple[float, ...], tuple[float, ...]]] = {
