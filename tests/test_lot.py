@@ -273,3 +273,21 @@ def test_a_half_the_builder_refuses_at_its_band_edges_is_not_rebuilt(tmp_path: P
     assert f"{lin['not_rebuilt']} of the {lin['sample']} sampled halves do not rebuild" in capsys.readouterr().out
     for command in ("bom", "report"):
         assert main([command, str(design_file)]) == 0
+
+
+def test_the_lot_plot_shows_every_bin_that_holds_a_unit_and_fits_its_title() -> None:
+    import re
+
+    from yodraft.lot_plot import BINS, Panel, _range, histogram_svg
+    from yodraft.pictures.svg import text_width
+
+    # one unit far out in the tail: its bin holds a millionth of the lot and must still be drawn
+    values = np.concatenate([np.random.default_rng(3).normal(0.0, 1.0, 1_000_000), [3.5]])
+    title = "a lot title long enough to run past the right edge of the page at the usual size " * 2
+    svg = histogram_svg(title, [Panel("x", values, ((0.0, "nominal"),))])
+    heights = [float(h) for h in re.findall(r'<rect x="[^"]+" y="[^"]+" width="[^"]+" height="([^"]+)" fill="#1f5fa8"', svg)]
+    lo, hi = _range(values, ((0.0, "nominal"),))
+    counts, _ = np.histogram(np.clip(values, lo, hi), bins=BINS, range=(lo, hi))
+    assert len(heights) == int((counts > 0).sum()) and min(heights) > 0
+    size = float(re.search(r'<text x="70" y="22" font-size="([^"]+)"', svg).group(1))
+    assert 70 + text_width(title, size) <= 720  # the page is 720 wide, the title starts at 70

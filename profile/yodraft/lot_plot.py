@@ -11,6 +11,7 @@ from xml.sax.saxutils import escape
 
 import numpy as np
 
+from .pictures.svg import FONT, text_width
 from .tails import percentiles
 
 __all__ = ["Panel", "histogram_svg", "BINS"]
@@ -55,13 +56,16 @@ def _range(values: np.ndarray, limits: Sequence[tuple[float, str]]) -> tuple[flo
 
 
 def histogram_svg(title: str, panels: Sequence[Panel]) -> str:
-    """The panels stacked in one SVG; bars in blue, limits as red lines labelled at the top."""
+    """The panels stacked in one SVG; bars in blue (every bin holding a unit at least a hairline high), limits as
+    red lines labelled at the top."""
     height = _TOP + len(panels) * (_PANEL_H + _GAP)
     pw = _WIDTH - _LEFT - _RIGHT
+    # the title set smaller when it would run past the page's right edge
+    title_size = min(13.0, 13.0 * (_WIDTH - _LEFT - 10) / max(text_width(title, 13.0), 1.0))
     out = [f'<svg xmlns="http://www.w3.org/2000/svg" width="{_WIDTH}" height="{height}" '
-           f'viewBox="0 0 {_WIDTH} {height}" font-family="sans-serif" font-size="11">',
+           f'viewBox="0 0 {_WIDTH} {height}" font-family="{escape(FONT)}" font-size="11">',
            f'<rect width="{_WIDTH}" height="{height}" fill="white"/>',
-           f'<text x="{_LEFT}" y="22" font-size="13">{escape(title)}</text>',
+           f'<text x="{_LEFT}" y="22" font-size="{title_size:.3g}">{escape(title)}</text>',
            f'<text x="{_LEFT}" y="38">share of units per bin; red lines: limits</text>']
     for p, panel in enumerate(panels):
         y0 = _TOP + p * (_PANEL_H + _GAP) + 14
@@ -84,7 +88,7 @@ def histogram_svg(title: str, panels: Sequence[Panel]) -> str:
         for c, (a, b) in zip(share.tolist(), zip(edges[:-1].tolist(), edges[1:].tolist())):
             if c <= 0:
                 continue
-            bar = c / top * (_PANEL_H - 4)
+            bar = max(c / top * (_PANEL_H - 4), 0.5)  # a bin with any unit in it stays visible (the tails)
             out.append(f'<rect x="{sx(a):.2f}" y="{y0 + _PANEL_H - bar:.2f}" width="{max(sx(b) - sx(a) - 0.5, 0.5):.2f}" '
                        f'height="{bar:.2f}" fill="#1f5fa8"/>')
         for i, (x, label) in enumerate(panel.limits):
@@ -92,7 +96,8 @@ def histogram_svg(title: str, panels: Sequence[Panel]) -> str:
                        'stroke-width="1.5"/>')
             right = sx(x) > _LEFT + pw / 2  # label on the side of the line with room
             anchor = ' text-anchor="end"' if right else ""
+            # on a white halo, so a label over the bars stays legible
             out.append(f'<text x="{sx(x) + (-3 if right else 3):.2f}" y="{y0 + 12 + 12 * (i % 3)}" fill="#c8102e"'
-                       f'{anchor}>{escape(label)} {x:.6g}</text>')
+                       f' stroke="white" stroke-width="3" paint-order="stroke"{anchor}>{escape(label)} {x:.6g}</text>')
     out.append("</svg>")
     return "\n".join(out) + "\n"
