@@ -201,3 +201,28 @@ def test_a_thin_undercut_fails_the_wall_check() -> None:
     r = yodraft.build(loads(text))
     wall = next(c for c in r.checks if c.name == "least wall across metal")
     assert not wall.ok and (wall.feature, wall.parameter) == ("shop", "min_wall")
+
+
+@pytest.mark.parametrize(("arc", "problem"), [
+    ('arc = "concave"\narc_radius = "25 mm"\n', "nothing of the loop lies on the outer face"),  # a dished face
+    ('arc = "convex"\narc_radius = "6 mm"\n', "stands out to z ="),  # a domed face, beyond the datum plane
+])
+def test_a_sketch_without_a_face_at_datum_b_fails_its_check(tmp_path: Path, arc: str, problem: str) -> None:
+    """Datum face B is the outer face: faced first, every axial size measured from it. A datum is established
+    from a real feature of the part (ISO 5459), so a sketch whose outer face is an arc, rounded at both ends,
+    fails a check naming the sketch's points (it used to pass the check and stop the build with an internal
+    error); the template, whose outer face is flat, passes it."""
+    lip = 'r = "-4 mm"\nradius = "0.8 mm"\n'
+    assert SKETCHED.count(lip) == 1
+    text = SKETCHED.replace(lip, 'r = "-4 mm"\n' + arc + 'radius = "1.5 mm"\n')
+    resolved = yodraft.build(loads(text, "dished.toml"))
+    datum = [c for c in resolved.checks if c.name == "outer face for datum B"]
+    assert len(datum) == 1 and not datum[0].ok and problem in datum[0].message
+    assert (datum[0].feature, datum[0].parameter) == ("shape", "points")
+    assert [c.name for c in resolved.failed] == ["outer face for datum B"]
+    design = tmp_path / "dished.toml"
+    design.write_text(text, encoding="utf-8")
+    assert main(["build", str(design), "-o", str(tmp_path / "out")]) == 1
+    assert not (tmp_path / "out").exists()
+    template = yodraft.build(loads(SKETCHED, "sketched.toml"))
+    assert next(c for c in template.checks if c.name == "outer face for datum B").ok

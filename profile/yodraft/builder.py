@@ -12,8 +12,8 @@ from typing import Any, NamedTuple
 
 from .catalog.bearings import BEARINGS, LETTER_SIZES, lookup_bearing
 from .catalog.materials import MATERIALS, lookup_material
-from .checks import (ANALYSIS_PREREQUISITES, WALL_CHUNKS, Check, loop_checks, radial_order, surface_walls, turning_checks,
-                     wall_checks)
+from .checks import (ANALYSIS_PREREQUISITES, WALL_CHUNKS, Check, datum_face_check, loop_checks, radial_order,
+                     surface_walls, turning_checks, wall_checks)
 from .design import Design
 from .errors import DesignInputError, YodraftError
 from .features import FEATURES, LOOP_ORDER, OUTER_CHUNKS
@@ -304,6 +304,8 @@ def judge(composed: Composed, *, verdict_only: bool = False, uncrossed: bool | N
         added, part_failures = feature_parts(tuple(results.values()))
         checks += part_failures + seat_checks(profile, seats, design["shop"]["min_wall"])
         checks += surface_walls(profile, design["shop"]["min_wall"], measure=not verdict_only, thin=thin)
+        checks.append(datum_face_check(profile, values["shape.face_z"], "shape.points" if sketched else "rim.overall_width",
+                                       messages=not verdict_only))
         if not verdict_only:
             checks += turning_checks(profile)
         parts = (Part(BODY, values["material.name"], values["material.density_g_cm3"], profile,

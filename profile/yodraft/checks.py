@@ -15,7 +15,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from .geometry import Point, Profile
 
 __all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "thin_walls",
-           "crossing_free", "turning_checks", "LoopStack", "loop_stacks", "prime_areas_and_bounds",
+           "crossing_free", "turning_checks", "datum_face_check", "LoopStack", "loop_stacks", "prime_areas_and_bounds",
            "reentrant_regions", "Reentrant"]
 
 
@@ -178,6 +178,30 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
 
 
 # ---------------------------------------------------------------- rules over any outer shape
+
+#: how near (mm) a loop's point must lie to the outer face's plane to be on datum face B (the drawing's own)
+DATUM_TOL = 1e-6
+
+
+def datum_face_check(profile: "Profile", face_z: float, where: str, messages: bool = True) -> Check:
+    """Datum face B: the outer face is faced first and every axial size is measured from it, so the loop must
+    reach the plane z = ``face_z`` and nothing may stand beyond it (a sketch's arc across the face, or the
+    corner radii at both its ends, can leave no face there)."""
+    starts = profile.segment_ends[0]  # in a closed loop every segment's end is the next one's start
+    reached = any(abs(z - face_z) < DATUM_TOL for z, _ in starts)
+    z_max = profile.bounds()[2]
+    ok = reached and z_max <= face_z + DATUM_TOL
+    if ok:
+        message = f"the loop reaches the outer face at z = {face_z:.3f} mm" if messages else ""
+    elif z_max > face_z + DATUM_TOL:
+        message = (f"the loop stands out to z = {z_max:.3f} mm, beyond the outer face at z = {face_z:.3f} mm: "
+                   f"datum face B is faced first and would cut it")
+    else:
+        message = (f"nothing of the loop lies on the outer face at z = {face_z:.3f} mm (the loop reaches "
+                   f"z = {z_max:.3f} mm): datum face B needs a face there; give it a straight stretch or smaller "
+                   f"corner radii")
+    return check("outer face for datum B", where, ok, message)
+
 
 #: how far (degrees) the line across a wall may lean from each surface's normal and still
 #: count as the two surfaces facing each other across metal (a 90° corner's fillet leans 45°)

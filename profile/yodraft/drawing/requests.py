@@ -421,9 +421,11 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
                 out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
         if c.sweep and arc_key:
             whole = arc_through(c.point, corners[k + 1].point, c.sweep)  # fillets at its ends may trim it
-            arc = next(s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - whole.radius) < 1e-6
-                       and math.dist(s.center, whole.center) < 1e-6)
-            out.append(DimensionRequest((arc_key,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
+            arc = next((s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - whole.radius) < 1e-6
+                        and math.dist(s.center, whole.center) < 1e-6), None)
+            if arc is not None:  # None: the corner radii at its ends take the whole arc, and they are dimensioned
+                out.append(DimensionRequest((arc_key,), "radius",
+                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
     start_d = round(v["shape.start_diameter"], 6)
     for d, (keys, at) in sorted(diameters.items()):
         first = d == start_d
