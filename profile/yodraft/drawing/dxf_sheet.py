@@ -132,8 +132,12 @@ def _dimension(dim: Dimension, t: _Target, doc: Drawing) -> None:
                                override=override, dxfattribs={"layer": "dimension"})
     elif req.kind == "radius":
         c, m = pts[:2]
+        # the measured point is where the leader's arrow touches the arc (its first stroke starts there), not the
+        # direction of its knee (``base``), which may lie on the centre or past it: a concave arc's leader runs
+        # toward the centre, and the radius would turn the wrong way or divide by zero
+        tip = t.p(dim.items[0].points[0])
         d = lay.add_radius_dim(center=c, radius=math.dist(c, m),
-                               angle=math.degrees(math.atan2(m[1] - c[1], m[0] - c[0])), location=base, text=text,
+                               angle=math.degrees(math.atan2(tip[1] - c[1], tip[0] - c[0])), text=text,
                                dimstyle=DIMSTYLE, override=override, dxfattribs={"layer": "dimension"})
     else:
         o, p1, p2 = pts
