@@ -179,7 +179,7 @@ def loop_checks(profile: "Profile | None", envelope: Mapping[str, Any], misfits:
 
 # ---------------------------------------------------------------- rules over any outer shape
 
-#: how near (mm) a loop's point must lie to the outer face's plane to be on datum face B (the drawing's own)
+#: how near (mm) a loop's point must lie to the outer face's plane to be on datum face B (the sheet finds its faces with it)
 DATUM_TOL = 1e-6
 
 

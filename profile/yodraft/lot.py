@@ -652,7 +652,7 @@ def _linearisation_line(lin: Mapping[str, Any]) -> str:
     """The lot's line on the linear model against the exactly rebuilt halves, and how many halves did not rebuild."""
     rebuilt, sample = lin["sample"] - lin["not_rebuilt"], lin["sample"]
     refused = (f"; {lin['not_rebuilt']} of the {sample} sampled halves do not rebuild"
-               + (f" (the first: {lin['first_refusal']})" if lin.get("first_refusal") else "")
+               + (f" (the first: {lin['first_refusal']})" if lin["first_refusal"] else "")
                if lin["not_rebuilt"] else "")
     if not rebuilt:
         return f"  linear model not checked against exact rebuilds{refused}"

@@ -3,11 +3,13 @@ from __future__ import annotations
 
 import math
 
+from ..checks import DATUM_TOL
 from ..geometry import Arc, Line, Point, Profile
 
 __all__ = ["LocateError", "Outline", "outline_of", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "intersection", "TOL"]
 
-TOL = 1e-6
+#: how near (mm) a point must lie to be on an edge: the datum-face check's own, so a loop it passes has a face B here
+TOL = DATUM_TOL
 
 
 class LocateError(LookupError):
