@@ -13,7 +13,7 @@ from pathlib import Path
 from typing import Any
 
 from .catalog.finishes import FINISHES, check_finish
-from .errors import DesignInputError
+from .errors import DesignInputError, toml_shown
 from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, current_names, read_table
 from .units import MM_PER_INCH as IN
@@ -313,7 +313,7 @@ def from_dict(raw: Mapping[str, Any], source: str = "<design>") -> Design:
     check_finish(sections["shop"]["coating"], sections["design"]["material"], source, "shop.coating")
     feature_tables = raw.get("features", {})
     if not isinstance(feature_tables, Mapping):
-        raise DesignInputError(source, "features", f"got {type(feature_tables).__name__}", "a table of feature tables")
+        raise DesignInputError(source, "features", f"got {toml_shown(feature_tables)}", "a table of feature tables")
     check_unknown(feature_tables, list(FEATURES), source, "features", "feature")
     # a key written under its earlier name is read, and kept in ``raw``, under its current one
     feature_tables = {fname: current_names(table, FEATURES[fname].PARAMS, source, f"features.{fname}")
@@ -382,7 +382,7 @@ def _check_catalog_names(sections: Mapping[str, Mapping[str, Any]], source: str)
 def _read_array(items: Any, specs: tuple[ParamSpec, ...], source: str, path: str) -> tuple[dict[str, Any], ...]:
     """An array of tables (``[[features.shape.points]]``), each read against ``specs``."""
     if not isinstance(items, list):
-        raise DesignInputError(source, path, f"got {type(items).__name__}", f"an array of [[{path}]] tables")
+        raise DesignInputError(source, path, f"got {toml_shown(items)}", f"an array of [[{path}]] tables")
     if len(items) > MAX_ARRAY:
         raise DesignInputError(source, path, f"has {len(items)} tables", f"at most {MAX_ARRAY}")
     return tuple(read_table(item, specs, source, f"{path}[{i}]") for i, item in enumerate(items))
@@ -390,7 +390,7 @@ def _read_array(items: Any, specs: tuple[ParamSpec, ...], source: str, path: str
 
 def _read_revisions(items: Any, source: str) -> tuple[Revision, ...]:
     if not isinstance(items, list):
-        raise DesignInputError(source, "revisions", f"got {type(items).__name__}", "an array of [[revisions]] tables")
+        raise DesignInputError(source, "revisions", f"got {toml_shown(items)}", "an array of [[revisions]] tables")
     out = []
     for i, item in enumerate(items):
         path = f"revisions[{i}]"

@@ -1,15 +1,17 @@
 """The error family: bad input (exit 2) and a failed design rule (exit 1)."""
 from __future__ import annotations
 
+import datetime
 import re
 import unicodedata
-from collections.abc import Sequence
+from collections.abc import Mapping, Sequence
 from typing import TYPE_CHECKING
 
 if TYPE_CHECKING:  # pragma: no cover
     from .checks import Check
 
-__all__ = ["YodraftError", "DesignInputError", "UsageError", "CheckFailure", "one_line", "shortened", "terminal_safe"]
+__all__ = ["YodraftError", "DesignInputError", "UsageError", "CheckFailure", "one_line", "shortened", "terminal_safe",
+           "toml_shown"]
 
 
 def one_line(text: str) -> str:
@@ -24,6 +26,28 @@ def one_line(text: str) -> str:
     return "".join(
         (f"\\x{ord(c):02x}" if ord(c) < 0x100 else f"\\u{ord(c):04x}") if unicodedata.category(c) in ("Cc", "Cf") else c
         for c in text)
+
+
+def toml_shown(raw: object) -> str:
+    """A value read from a design file, named as TOML writes it (for "got ..." in a message).
+
+    >>> [toml_shown(v) for v in (True, 5, "5 kg", [1, 2], {"a": 1})]
+    ['the boolean true', 'the bare number 5', "'5 kg'", 'an array [1, 2]', 'a table {a = 1}']
+    """
+    if isinstance(raw, bool):
+        return f"the boolean {str(raw).lower()}"
+    if isinstance(raw, (int, float)):
+        return f"the bare number {raw!r}"
+    if isinstance(raw, str):
+        return repr(raw[:60])
+    if isinstance(raw, Mapping):
+        inner = ", ".join(f"{k} = {v!r}" for k, v in list(raw.items())[:4])
+        return f"a table {{{inner[:40]}}}"
+    if isinstance(raw, (list, tuple)):
+        return f"an array {str(list(raw))[:40]}"
+    if isinstance(raw, (datetime.date, datetime.time)):
+        return f"the unquoted date {raw.isoformat()}"
+    return f"{raw!r}"[:40]
 
 
 #: characters that act on a terminal instead of showing: C0 controls but tab, newline and carriage return, DEL,

@@ -13,7 +13,7 @@ from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass
 from typing import Any
 
-from .errors import DesignInputError
+from .errors import DesignInputError, toml_shown
 from .units import DISPLAY_UNITS, KINDS, UnitError, parse_quantity, written
 
 __all__ = ["ParamSpec", "read_table", "current_names", "check_unknown", "check_name", "DISPLAY_UNITS"]
@@ -88,15 +88,15 @@ class ParamSpec:
             return value
         if self.kind == "number":
             if isinstance(raw, bool) or not isinstance(raw, (int, float)) or not math.isfinite(raw):
-                raise DesignInputError(file, key, f"got {raw!r}", self.expected())
+                raise DesignInputError(file, key, f"got {toml_shown(raw)}", self.expected())
             self._check_bounds(float(raw), file, key, raw)
             return float(raw)
         if self.kind == "bool":
             if not isinstance(raw, bool):
-                raise DesignInputError(file, key, f"got {raw!r}", self.expected())
+                raise DesignInputError(file, key, f"got {toml_shown(raw)}", self.expected())
             return raw
         if not isinstance(raw, str):
-            raise DesignInputError(file, key, f"got {type(raw).__name__} {str(raw)[:40]!r}", self.expected())
+            raise DesignInputError(file, key, f"got {toml_shown(raw)}", self.expected())
         if _CONTROL.search(raw):
             raise DesignInputError(file, key, "contains a control character", self.expected())
         if len(raw) > self.max_length:
@@ -198,7 +198,7 @@ def read_table(table: Any, specs: Sequence[ParamSpec], file: str, path: str) -> 
     Returns a dict with every spec's name; optional keys left out are None.
     """
     if not isinstance(table, Mapping):
-        raise DesignInputError(file, path, f"got {type(table).__name__}", "a table of keys")
+        raise DesignInputError(file, path, f"got {toml_shown(table)}", "a table of keys")
     check_unknown(table, [s.name for s in specs], file, path)
     out: dict[str, Any] = {}
     for spec in specs:

@@ -18,6 +18,8 @@ import re
 from pathlib import Path
 from typing import TYPE_CHECKING
 
+from .errors import toml_shown
+
 if TYPE_CHECKING:  # pragma: no cover
     import pint
 
@@ -127,10 +129,8 @@ def parse_quantity(text: object, kind: str) -> float:
     Raises UnitError with a short description of what was wrong.
     """
     base, expected = KINDS[kind]
-    if isinstance(text, bool) or not isinstance(text, str):
-        if isinstance(text, (int, float)):
-            raise UnitError(f"got the bare number {text!r}")
-        raise UnitError(f"got {type(text).__name__} {str(text)[:40]!r}")
+    if not isinstance(text, str):
+        raise UnitError(f"got {toml_shown(text)}")
     match = _PATTERN.match(text)
     if not match:
         raise UnitError(f"cannot read {text[:60]!r} as a number followed by a unit")
