@@ -488,3 +488,31 @@ def test_cam_profiles_open_on_their_loop(template: str) -> None:
         (poly,) = doc.modelspace().query("LWPOLYLINE")
         for x, y, *_ in poly.get_points():
             assert lo.x - 1e-9 <= x <= hi.x + 1e-9 and lo.y - 1e-9 <= y <= hi.y + 1e-9
+
+
+def test_an_inch_axle_thread_is_called_out_by_its_unified_designation(tmp_path):
+    # 10-32 UNF: major diameter 0.190 in, 32 threads per inch (ASME B1.1, from memory); class 2B for the tapped
+    # hole; tap drill #21 = 0.1590 in = 4.039 mm (tap-drill table of the machinists' handbooks, from memory)
+    path = _edited(tmp_path, [('thread = "M4x0.7"', 'thread = "10-32 UNF"')])
+    resolved = build(load(path))
+    files = render_files(resolved, STEM)
+    doc, auditor = _read(files[f"{STEM}.dxf"])
+    assert not auditor.has_errors
+    (thread_dim,) = _dims(doc)["axle_bore.major_diameter"]
+    assert thread_dim.dxf.text == "10-32 UNF-2B ↧8"  # no metric "M" put in front of an inch diameter
+    assert thread_dim.get_measurement() == pytest.approx(0.190 * 25.4, abs=1e-9)  # still measures the major diameter
+    text = _paper_texts(doc)
+    assert "10-32 UNF-2B ↧8, tap drill #21 (Ø4.039) ↧10.4" in text  # 8 + 3 pitches of 0.79375 = 10.38, up to 0.1
+    svg = files[f"{STEM}.svg"].decode()
+    assert "10-32 UNF-2B ↧8" in svg and "M4.83" not in svg
+
+
+def test_derived_hole_depths_are_rounded_up_to_a_tenth(tmp_path):
+    # 2 × Ø4.826 = 9.652 → 9.7 full thread; 9.7 + 3 × 0.79375 = 12.08 → 12.1 drilled (10-32 UNF, ASME B1.1, from memory)
+    path = _edited(tmp_path, [('thread = "M4x0.7"\nthread_depth = "8 mm"', 'thread = "10-32 UNF"')])
+    d = build(load(path)).features["axle_bore"].dims
+    assert (d["thread_depth"], d["drill_depth"]) == (9.7, 12.1)
+    # M4×0.7: 2 × 4 = 8 and 8 + 3 × 0.7 = 10.1 are already on a tenth and stay as they are
+    path = _edited(tmp_path, [('thread_depth = "8 mm"\n', "")])
+    d = build(load(path)).features["axle_bore"].dims
+    assert d["thread_depth"] == 8.0 and d["drill_depth"] == pytest.approx(10.1, abs=1e-12)

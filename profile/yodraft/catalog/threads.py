@@ -18,6 +18,13 @@ class Thread:
     tap_drill_mm: float
     tolerance_class: str
     source: str
+    #: the tap drill's number size where it is bought by one (an inch drill, e.g. "#21"); "" for a drill bought by its diameter
+    drill_size: str = ""
+
+    @property
+    def metric(self) -> bool:
+        """An ISO metric thread (designated "M<diameter>×<pitch>"), not an inch one."""
+        return self.name.startswith("M")
 
     @property
     def minor_mm(self) -> float:
@@ -36,8 +43,10 @@ THREADS: dict[str, Thread] = {
         _metric(3, 0.5),
         _metric(4, 0.7),
         _metric(5, 0.8),
-        Thread("8-32 UNC", 0.164 * IN, IN / 32, 0.1360 * IN, "2B", "ASME B1.1 (from memory); tap drill #29 (from memory)"),
-        Thread("10-32 UNF", 0.190 * IN, IN / 32, 0.1590 * IN, "2B", "ASME B1.1 (from memory); tap drill #21 (from memory)"),
+        Thread("8-32 UNC", 0.164 * IN, IN / 32, 0.1360 * IN, "2B", "ASME B1.1 (from memory); tap drill #29 (from memory)",
+               "#29"),
+        Thread("10-32 UNF", 0.190 * IN, IN / 32, 0.1590 * IN, "2B", "ASME B1.1 (from memory); tap drill #21 (from memory)",
+               "#21"),
     )
 }
 

@@ -55,7 +55,7 @@ def seat_corner_passing_mm(resolved: Resolved) -> float:
 def thread_designation(resolved: Resolved) -> str:
     """The axle thread with its tolerance class and full-thread depth, e.g. ``M4×0.7-6H ↧8``."""
     d = resolved.features["axle_bore"].dims
-    return f"{str(d['thread']).replace('x', '×')}-{d['tolerance_class']} ↧{d['thread_depth']:g}"
+    return f"{str(d['thread']).replace('x', '×')}-{d['tolerance_class']} ↧{size_text(d['thread_depth'])}"
 
 
 def numbered(groups: list[tuple[str, list[str]]]) -> list[tuple[str, list[str]]]:
@@ -135,7 +135,9 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     out.append(f"Edges ISO 13715: external -{brk:g}, internal -{brk:g}; post/seat-face corner "
                f"+{passing:g}/-{brk:g} (bearing bore chamfer {size_text(resolved['bearing.chamfer'])})")
     d = resolved.features["axle_bore"].dims
-    out.append(f"{thread_designation(resolved)}, tap drill Ø{d['tap_drill']:g} ↧{d['drill_depth']:g}, 118° point, from post face; "
+    size = resolved.features["axle_bore"].extra["thread"].drill_size  # an inch drill is bought by its number
+    drill = f"{size} (Ø{size_text(d['tap_drill'])})" if size else f"Ø{d['tap_drill']:g}"
+    out.append(f"{thread_designation(resolved)}, tap drill {drill} ↧{size_text(d['drill_depth'])}, 118° point, from post face; "
                f"{back_wall_mm(resolved):.2f} left to hub face (min {shop['min_wall']:g})")
     out.append(f"Post, seat face and wall bore Ra {shop['seat_roughness']:g} µm; elsewhere Ra 3.2 µm")
     out.append(f"Runout {data.runout_mm:.3f} to A: G{data.balance_grade:g} (ISO 21940-11), "

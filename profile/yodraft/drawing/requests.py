@@ -277,10 +277,10 @@ def _main_requests(resolved: Resolved) -> list[DimensionRequest]:
     r_t = v["axle_bore.major_diameter"] / 2
     r_d = v["axle_bore.tap_drill"] / 2
     thread = thread_callout(resolved)
+    if resolved.features["axle_bore"].extra["thread"].metric:  # M<measured diameter>×pitch-class
+        thread = "M<>" + thread[len(f"M{v['axle_bore.major_diameter']:g}"):]
     out.append(DimensionRequest(("axle_bore.major_diameter", "axle_bore.thread_depth"), "diameter", ((z_post, r_t),),
-                                side="left", lower=True,
-                                text="M<>" + thread[len(f"M{v['axle_bore.major_diameter']:g}"):]
-                                + f" ↧{size_text(v['axle_bore.thread_depth'])}"))
+                                side="left", lower=True, text=f"{thread} ↧{size_text(v['axle_bore.thread_depth'])}"))
     out.append(DimensionRequest(("axle_bore.tap_drill", "axle_bore.drill_depth"), "diameter", ((z_post, r_d),),
                                 side="left", text=f"Ø<> ↧{size_text(v['axle_bore.drill_depth'])}"))
     if cone:

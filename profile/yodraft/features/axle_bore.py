@@ -13,18 +13,30 @@ from .base import Context, FeatureResult, V, pick
 NAME = "axle_bore"
 PARAMS = (
     ParamSpec("thread", "text", "axle thread from the catalog", "M4x0.7", choices=tuple(THREADS)),
-    ParamSpec("thread_depth", "length", "full-thread depth from the post face; default 2 × thread diameter", None, 0.5, 60.0),
-    ParamSpec("drill_depth", "length", "tap-drill depth (full diameter) from the post face; default thread depth + 3 pitches",
+    ParamSpec("thread_depth", "length", "full-thread depth from the post face; default 2 × thread diameter, "
+              "rounded up to 0.1 mm", None, 0.5, 60.0),
+    ParamSpec("drill_depth", "length", "tap-drill depth (full diameter) from the post face; default thread depth + 3 pitches, "
+              "rounded up to 0.1 mm",
               None, 0.5, 60.0),
 )
 DRILL_POINT_ANGLE = math.radians(118.0)  # common twist-drill point, from memory
 
 
+def up_to_tenth(mm: float) -> float:
+    """A derived depth as a print writes it: rounded up to 0.1 mm (one already on 0.1 mm stays as it is).
+
+    >>> up_to_tenth(2 * 4.826), up_to_tenth(8.0 + 3 * 0.7)
+    (9.7, 10.1)
+    """
+    tenths = mm * 10
+    return mm if abs(tenths - round(tenths)) < 1e-6 else math.ceil(tenths) / 10
+
+
 def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
     thread = lookup_thread(p["thread"])
     derived: set[str] = set()
-    depth = pick(p, "thread_depth", 2.0 * thread.major_mm, derived)
-    drill = pick(p, "drill_depth", depth + 3 * thread.pitch_mm, derived)
+    depth = pick(p, "thread_depth", up_to_tenth(2.0 * thread.major_mm), derived)
+    drill = pick(p, "drill_depth", up_to_tenth(depth + 3 * thread.pitch_mm), derived)
     z0 = ctx["bearing_seat.post_face_z"]
     r = thread.tap_drill_mm / 2
     bottom_z = z0 + drill
