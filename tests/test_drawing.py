@@ -52,6 +52,8 @@ EDGES = {
     "cup floor turning flat at the cup wall": [('hub_height = "8 mm"', 'hub_height = "8 mm"\nfloor_diameter = "49 mm"')],
     "wide pad groove": [("[features.pad_groove]", '[features.pad_groove]\nouter_diameter = "40 mm"')],
     "small envelope": [('diameter = "56 mm"', 'diameter = "30 mm"'), ('width = "44 mm"', 'width = "30 mm"')],
+    # a solid face: the view is narrower than its label, which stood past the frame's left edge
+    "flat outer shape": [("[features.catch_zone]", '[features.shape]\nkind = "flat"\n\n[features.catch_zone]')],
 }
 
 
@@ -516,3 +518,39 @@ def test_derived_hole_depths_are_rounded_up_to_a_tenth(tmp_path):
     path = _edited(tmp_path, [('thread_depth = "8 mm"\n', "")])
     d = build(load(path)).features["axle_bore"].dims
     assert d["thread_depth"] == 8.0 and d["drill_depth"] == pytest.approx(10.1, abs=1e-12)
+
+
+# crowded sections found by fuzzing the starter designs: (template, edits, what went wrong before)
+CROWDED = {
+    # the hub face stands 0.3 mm from the cup floor's corner: the auxiliary hub height, placed first, ran its
+    # extension line past the corner and left the cup depth no lane at any scale (the sheet fell to A2 at 1:5)
+    "hub face beside the cup corner": ("arc-organic", [('kind = "arc"', 'kind = "cone"'),
+                                                       ('diameter = "56 mm"', 'diameter = "60 mm"'),
+                                                       ('thread_depth = "8 mm"', 'thread_depth = "8.8 mm"')]),
+    # an arrowhead of the hub-face dimension touched the thread callout (the line cleared it, its width did not)
+    "arrowhead beside the thread callout": ("undercut-rim", [('kind = "undercut"', 'kind = "cone"')]),
+}
+
+
+@pytest.mark.parametrize("case", sorted(CROWDED), ids=str)
+def test_crowded_sections_keep_every_functional_size_on_a_clean_sheet(case, tmp_path):
+    template, edits = CROWDED[case]
+    text = (ROOT / "templates" / f"{template}.toml").read_text(encoding="utf-8")
+    for old, new in edits:
+        assert text.count(old) == 1, old
+        text = text.replace(old, new)
+    path = tmp_path / "design.toml"
+    path.write_text(text, encoding="utf-8")
+    resolved = build(load(path))
+    assert resolved.ok, resolved.failed
+    sheet = compose_sheet(resolved)
+    assert sheet.notes["paper"] == "A3" and sheet.notes["scale"] == 2.0  # the scale the templates are drawn at
+    files = render_files(resolved, "x")
+    _check_sheet(files["x.dxf"])
+    doc, _ = _read(files["x.dxf"])
+    placed = _dims(doc)
+    from yodraft.drawing.requests import section_requests
+
+    for req in section_requests(resolved):
+        if not req.auxiliary:  # every functional size is drawn; an auxiliary one may be left out
+            assert req.keys[0] in placed, req.keys

@@ -268,16 +268,27 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
     marker = _rect(a[0], a[1], b[0], b[1], "detail")
     items.append(marker)
-    ob = _obstacles(items, section + [i for i in part_items(resolved, view) if isinstance(i, Stroke)])
     bbox = (view.to_paper((z_min, -R))[0], view.to_paper((z_min, -R))[1], view.to_paper((z_max, R))[0],
             view.to_paper((z_max, R))[1])
-    placer = Placer(view, font, ob, _solid_test(profile, view, tuple(p.profile for p in resolved.parts[1:])), bbox)
-    dims = placer.place(section_requests(resolved))
+    solid = _solid_test(profile, view, tuple(p.profile for p in resolved.parts[1:]))
+    requests = section_requests(resolved)
+    outline = section + [i for i in part_items(resolved, view) if isinstance(i, Stroke)]
+    ob = _obstacles(items, outline)
+    placer = Placer(view, font, ob, solid, bbox)
+    dims = placer.place(requests)
+    if any(not r.auxiliary for r in placer.failed):
+        # a functional size found no room: placed again with the auxiliary dimensions last, which may then be
+        # left out (each follows from the sizes drawn)
+        ob = _obstacles(items, outline)
+        placer = Placer(view, font, ob, solid, bbox)
+        dims = placer.place(requests, auxiliary_last=True)
+        placer.failed[:] = [r for r in placer.failed if not r.auxiliary]
     items += dims
     # the detail letter beside its frame, in open paper
     letter = _place_text(font, ob, "C", [(a[0] - 1.5, (a[1] + b[1]) / 2, "right"), (a[0] - 1.5, b[1] + 1.0, "right"),
                                          ((a[0] + b[0]) / 2, b[1] + 1.5, "center"), (b[0] + 1.5, b[1] + 1.0, "left"),
-                                         (a[0] - 1.5, b[1] + 4.0, "right"), (a[0] - 5.0, b[1] + 6.0, "right")])
+                                         (a[0] - 1.5, b[1] + 4.0, "right"), (a[0] - 5.0, b[1] + 6.0, "right")]
+                          + _around(a, b))
     items.append(letter)
     ob.add_item(letter)
     # datum A on the dimension line of the datum feature; datum B on the outer face itself
@@ -287,6 +298,18 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     z_od = v["catch_zone.end_z"] + 0.25 * (v["rim.face_z"] - v["catch_zone.end_z"])
     items += _runout(font, ob, view.to_paper((z_od, R)), data.runout_mm, up=True)
     return _Group(items, _bbox(items)), view, placer.failed
+
+
+def _around(a: tuple[float, float], b: tuple[float, float]) -> list[tuple[float, float, str]]:
+    """Spots (x, y, align) for a frame's letter round the frame from corner ``a`` to ``b``, farther out each ring."""
+    mid_x, mid_y = (a[0] + b[0]) / 2, (a[1] + b[1]) / 2
+    out = []
+    for d in (1.5, 3.0, 5.0, 8.0, 12.0):
+        out += [(a[0] - d, b[1] + d, "right"), (mid_x, b[1] + d, "center"), (b[0] + d, b[1] + d, "left"),
+                (b[0] + d, mid_y, "left"), (b[0] + d, a[1] - d - TEXT_HEIGHT, "left"),
+                (mid_x, a[1] - d - TEXT_HEIGHT, "center"), (a[0] - d, a[1] - d - TEXT_HEIGHT, "right"),
+                (a[0] - d, mid_y, "right")]
+    return out
 
 
 def _place_text(font: Lettering, ob: Obstacles, s: str, spots, h: float = TEXT_HEIGHT) -> Text:  # type: ignore[no-untyped-def]
@@ -670,8 +693,9 @@ def _fit_main(group: _Group, frame, left: float) -> tuple[float, float]:  # type
 
 
 def _choices(resolved: Resolved) -> list[tuple[str, float]]:
-    # A3 at the largest scale that fits; A2 only where it keeps a scale A3 would have to reduce below 2:1
-    out = [("A3", 5.0), ("A3", 2.0), ("A2", 2.0), ("A3", 1.0), ("A2", 1.0)]
+    # A3 at the largest scale that fits; A2 only where it keeps a scale A3 would have to reduce below 2:1, or
+    # where a step too small to dimension at 2:1 (its extension lines closer than ISO 128-2 allows) needs 5:1
+    out = [("A3", 5.0), ("A3", 2.0), ("A2", 2.0), ("A2", 5.0), ("A3", 1.0), ("A2", 1.0)]
     out += [(paper, s) for s in SCALES if s < 1.0 for paper in ("A3", "A2")]
     return out
 
@@ -713,7 +737,9 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     main, mview, failed = views["main", scale]
     if failed and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
-    dx, dy = _fit_main(main, frame, frame[0] + GAP)
+    label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
+    reach = max(0.0, (font.width(label, TEXT_HEIGHT) - (main.box[2] - main.box[0])) / 2)  # a label wider than the view
+    dx, dy = _fit_main(main, frame, frame[0] + GAP + reach)
     main = main.moved(dx, dy)
     label_y = main.box[1] - GAP - TEXT_HEIGHT
     mview = View("main", scale, (mview.origin[0] + dx, mview.origin[1] + dy),
@@ -721,7 +747,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     if label_y < frame[1] + 2.0 or main.box[3] > frame[3] - 2.0:
         if not force:
             raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: main view too tall")
-    right_x = main.box[2] + GAP + 2.0
+    right_x = main.box[2] + reach + GAP + 2.0  # clear of the view and of its label
     if frame[2] - right_x < TITLE_WIDTH and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room right of the view")
     # the detail, framed, under the top edge

@@ -298,6 +298,11 @@ def _arrow(tip: tuple[float, float], toward: tuple[float, float], layer: str, vi
                 layer, view)
 
 
+def _edges(fills: list[Fill]) -> list[Seg]:
+    """The edges of filled shapes (arrowheads): as wide as they are drawn, not only the line they sit on."""
+    return [(f.points[i - 1], f.points[i]) for f in fills for i in range(len(f.points))]
+
+
 @dataclass
 class Placer:
     """Places the dimension requests of one view, against the obstacles already on the sheet."""
@@ -532,7 +537,7 @@ class Placer:
                 continue
             for texts, lines, ext, arrows, dline in self._linear_candidates(fr, pts[0], pts[1], c, half, lines_txt,
                                                                             w, lane, spots[lower, mode]):
-                if self._linear_ok(texts, lines, dline, half):
+                if self._linear_ok(texts, lines, dline, half) and not ob.crosses_text(_edges(arrows)):
                     strokes = [Stroke(s, "dimension", v.name) for s in lines]
                     text = " / ".join(t.text for t in texts)
                     dim = Dimension(req, tuple(strokes + arrows + texts), dline[0], texts[0].at, text, v.name,
@@ -562,14 +567,18 @@ class Placer:
             sides = list(edges)
         else:
             sides = [side, opposite[side]]
-        for s in sides:
-            base = edges[s]
-            direction = 1.0 if s in ("left", "above") else -1.0
-            lower = req.lower if vertical else (s == "below")
-            k = 0.0
-            while k <= self.limit:
-                yield base + direction * (FIRST + k), lower
-                k += 1.0
+        # a half-shown diameter whose half has no room (its extension line would run beside another's, two
+        # nearly equal diameters) is shown on the other half of the section, the part's mirror image
+        halves = (req.lower, not req.lower) if req.kind == "diameter" else (req.lower,)
+        for half in halves:
+            for s in sides:
+                base = edges[s]
+                direction = 1.0 if s in ("left", "above") else -1.0
+                lower = half if vertical else (s == "below")
+                k = 0.0
+                while k <= self.limit:
+                    yield base + direction * (FIRST + k), lower
+                    k += 1.0
 
     # ---------------------------------------------------------------- radius
     def radius(self, req: DimensionRequest) -> Dimension | None:
@@ -675,14 +684,17 @@ class Placer:
         self.failed.append(req)
         return None
 
-    def place(self, requests: list[DimensionRequest]) -> list[Dimension]:
-        """Place every request; nearest-to-the-part first on each side so lanes nest without crossings."""
+    def place(self, requests: list[DimensionRequest], auxiliary_last: bool = False) -> list[Dimension]:
+        """Place every request; nearest-to-the-part first on each side so lanes nest without crossings.
+        ``auxiliary_last``: the auxiliary dimensions after all the others (they follow from them, and
+        one placed early can take the only room a functional size has)."""
         def order(req: DimensionRequest) -> tuple:  # type: ignore[type-arg]
+            last = auxiliary_last and req.auxiliary
             if req.kind == "diameter":
-                return (0, req.side, abs(req.points[0][1]))
+                return (last, 0, req.side, abs(req.points[0][1]))
             if req.kind == "linear":
-                return (2 if not req.side else 1, req.side, measure(req))
-            return (3 if req.kind == "radius" else 4, "", 0.0)
+                return (last, 2 if not req.side else 1, req.side, measure(req))
+            return (last, 3 if req.kind == "radius" else 4, "", 0.0)
         out = []
         for req in sorted(requests, key=order):
             if req.kind in ("linear", "diameter"):
