@@ -16,7 +16,7 @@ import shapely
 from ..builder import Resolved
 from ..geometry import Arc, Line, Profile
 from .clip import clip_segments
-from .layout import CLEAR, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
+from .layout import CLEAR, EXT_MIN_GAP, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, sheet_number, shop_lines
 from .requests import DATUM_A_KEY, datum_face_z, detail_region, detail_requests, section_requests
@@ -245,7 +245,11 @@ def _obstacles(items: list[Item], outline: list[Item]) -> Obstacles:
     return ob
 
 
-def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData) -> tuple[_Group, View, list]:
+def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData,
+               relaxed: bool = False) -> tuple[_Group, View, list]:
+    """The section with its dimensions, datums and runout; and the requests that found no room. ``relaxed``:
+    a size that finds no room otherwise may run its extension lines closer than ISO 128-2's 0.7 mm (a last
+    resort, better than a size left off the sheet)."""
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
@@ -283,6 +287,12 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
         placer = Placer(view, font, ob, solid, bbox)
         dims = placer.place(requests, auxiliary_last=True)
         placer.failed[:] = [r for r in placer.failed if not r.auxiliary]
+    if relaxed and placer.failed:
+        waived = placer.failed[:]
+        placer.failed.clear()
+        ob.ext_min_gap = 0.0
+        dims += placer.place(waived)
+        ob.ext_min_gap = EXT_MIN_GAP
     items += dims
     # the detail letter beside its frame, in open paper
     letter = _place_text(font, ob, "C", [(a[0] - 1.5, (a[1] + b[1]) / 2, "right"), (a[0] - 1.5, b[1] + 1.0, "right"),
@@ -705,13 +715,14 @@ def compose(resolved: Resolved, data: SheetData) -> Sheet:
     font = lettering()
     last: SheetTooSmall | None = None
     views: dict = {}  # a view at a scale is the same on either paper: composed once
-    for paper, scale in _choices(resolved):
-        try:
-            return _compose(resolved, data, font, paper, scale, views=views)
-        except SheetTooSmall as exc:
-            last = exc
+    for relaxed in (False, True):  # ISO 128-2's spacing of extension lines waived only when nothing fits with it
+        for paper, scale in _choices(resolved):
+            try:
+                return _compose(resolved, data, font, paper, scale, views=views, relaxed=relaxed)
+            except SheetTooSmall as exc:
+                last = exc
     assert last is not None
-    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views)
+    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, relaxed=True)
 
 
 def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
@@ -723,7 +734,7 @@ def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
 
 
 def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, scale: float,
-             force: bool = False, views: dict | None = None) -> Sheet:
+             force: bool = False, views: dict | None = None, relaxed: bool = False) -> Sheet:
     views = {} if views is None else views
     paper = PAPERS[paper_name]
     frame = frame_of(paper)
@@ -732,9 +743,9 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     z_min, _, z_max, R = profile.bounds()
     if not force and ((z_max - z_min) * scale > 0.45 * (frame[2] - frame[0]) or 2 * R * scale > frame[3] - frame[1] - 90):
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}")
-    if ("main", scale) not in views:
-        views["main", scale] = _main_view(resolved, scale, font, data)
-    main, mview, failed = views["main", scale]
+    if ("main", scale, relaxed) not in views:
+        views["main", scale, relaxed] = _main_view(resolved, scale, font, data, relaxed)
+    main, mview, failed = views["main", scale, relaxed]
     if failed and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
@@ -752,8 +763,9 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room right of the view")
     # the detail, framed, under the top edge
     largest = _detail_scale(resolved, 0.32 * (frame[2] - right_x), 0.45 * (frame[3] - frame[1]))
-    # a smaller enlargement leaves the notes more room: tried before a larger sheet
-    scales = [s for s in DETAIL_SCALES if s <= largest]
+    # a smaller enlargement leaves the notes more room: tried before a larger sheet; a detail is an
+    # enlargement of the view (ISO 128-3), never at the view's own scale
+    scales = [s for s in DETAIL_SCALES if scale < s <= largest] or ([DETAIL_SCALES[-1]] if force else [])
     for i, dscale in enumerate(scales):
         try:
             return _right_side(resolved, data, font, paper_name, paper, frame, scale, dscale, main, mview, label_y,

@@ -138,6 +138,8 @@ class Obstacles:
     box_grid: dict[tuple[int, int], list[int]] = field(default_factory=dict)
     ext: _Parallels = field(default_factory=_Parallels)  # extension lines and leaders
     dimlines: _Parallels = field(default_factory=_Parallels)
+    #: least gap between parallel extension lines (ISO 128-2); 0 waives it, a last resort (see ``Placer.relaxed``)
+    ext_min_gap: float = EXT_MIN_GAP
 
     def add_box(self, box: Box) -> None:
         i = len(self.boxes)
@@ -253,8 +255,9 @@ class Obstacles:
     def ext_too_close(self, segs: Iterable[Seg]) -> bool:
         """Whether a new extension line runs parallel to an existing one closer than 0.7 mm (a line on the
         very same place, a shared extension line, is fine)."""
-        return any(self.ext.close(a, b, 1e-6, EXT_MIN_GAP) or self.dimlines.close(a, b, 1e-6, EXT_MIN_GAP)
-                   for a, b in segs)
+        gap = self.ext_min_gap
+        return gap > 1e-6 and any(self.ext.close(a, b, 1e-6, gap) or self.dimlines.close(a, b, 1e-6, gap)
+                                  for a, b in segs)
 
 
 def _cells(box: Box) -> list[tuple[int, int]]:
