@@ -565,3 +565,29 @@ def test_crowded_sections_keep_every_functional_size_on_a_clean_sheet(case, tmp_
     for req in section_requests(resolved):
         if not req.auxiliary:  # every functional size is drawn; an auxiliary one may be left out
             assert req.keys[0] in placed, req.keys
+
+
+def test_a_step_too_small_for_iso_128_spacing_is_still_dimensioned_at_a_legible_scale(tmp_path):
+    # a convex catch zone ending 0.08 mm from face B: at 5:1 its extension lines stand 0.4 mm apart, under the
+    # 0.7 mm ISO 128-2 asks, at every scale the sheet offers; the spacing is waived for that size alone rather
+    # than the size left off or the view shrunk to 1:5 (what the sheet did before)
+    text = (ROOT / "templates" / "sketched.toml").read_text(encoding="utf-8")
+    for old, new in (('z_from = "wall face"\nr = "11.5 mm"\n',
+                      'z_from = "wall face"\nr = "11.5 mm"\narc = "convex"\narc_radius = "60 mm"\nradius = "0.3 mm"\n'),
+                     ('r_from = "outer diameter"\narc = "convex"\narc_radius = "36 mm"\n', 'r_from = "outer diameter"\n'),
+                     ('r = "-4 mm"\nradius = "0.8 mm"', 'r = "-4 mm"\narc = "concave"\narc_radius = "25 mm"')):
+        assert text.count(old) == 1, old
+        text = text.replace(old, new)
+    path = tmp_path / "design.toml"
+    path.write_text(text, encoding="utf-8")
+    resolved = build(load(path))
+    assert resolved.ok, resolved.failed
+    assert compose_sheet(resolved).notes["scale"] >= 2.0
+    files = render_files(resolved, "x")
+    doc, auditor = _read(files["x.dxf"])
+    assert not auditor.has_errors and not collisions(doc)
+    placed = _dims(doc)
+    from yodraft.drawing.requests import section_requests
+
+    missing = [r.keys for r in section_requests(resolved) if not r.auxiliary and r.keys[0] not in placed]
+    assert not missing
