@@ -542,9 +542,8 @@ CROWDED = {
 SCALE_OF = {"a step of 0.17 mm at the outer face": ("A2", 5.0)}
 
 
-@pytest.mark.parametrize("case", sorted(CROWDED), ids=str)
-def test_crowded_sections_keep_every_functional_size_on_a_clean_sheet(case, tmp_path):
-    template, edits = CROWDED[case]
+def _built_template(template: str, edits, tmp_path: Path):  # type: ignore[no-untyped-def]
+    """A starter design with ``edits`` (each old text found once) built; it must pass its checks."""
     text = (ROOT / "templates" / f"{template}.toml").read_text(encoding="utf-8")
     for old, new in edits:
         assert text.count(old) == 1, old
@@ -553,41 +552,40 @@ def test_crowded_sections_keep_every_functional_size_on_a_clean_sheet(case, tmp_
     path.write_text(text, encoding="utf-8")
     resolved = build(load(path))
     assert resolved.ok, resolved.failed
+    return resolved
+
+
+def _functional_sizes_missing(resolved, doc) -> list:  # type: ignore[no-untyped-def]
+    """The keys of every functional (not auxiliary) size the sheet should carry and does not."""
+    from yodraft.drawing.requests import section_requests
+
+    placed = _dims(doc)
+    return [r.keys for r in section_requests(resolved) if not r.auxiliary and r.keys[0] not in placed]
+
+
+@pytest.mark.parametrize("case", sorted(CROWDED), ids=str)
+def test_crowded_sections_keep_every_functional_size_on_a_clean_sheet(case, tmp_path):
+    resolved = _built_template(*CROWDED[case], tmp_path)
     sheet = compose_sheet(resolved)
     # the scale the templates are drawn at, or an enlargement (ISO 5455) where a step is too small for it
     assert (sheet.notes["paper"], sheet.notes["scale"]) == SCALE_OF.get(case, ("A3", 2.0))
     files = render_files(resolved, "x")
     _check_sheet(files["x.dxf"])
     doc, _ = _read(files["x.dxf"])
-    placed = _dims(doc)
-    from yodraft.drawing.requests import section_requests
-
-    for req in section_requests(resolved):
-        if not req.auxiliary:  # every functional size is drawn; an auxiliary one may be left out
-            assert req.keys[0] in placed, req.keys
+    assert not _functional_sizes_missing(resolved, doc)  # an auxiliary one may be left out
 
 
 def test_a_step_too_small_for_iso_128_spacing_is_still_dimensioned_at_a_legible_scale(tmp_path):
     # a convex catch zone ending 0.08 mm from face B: at 5:1 its extension lines stand 0.4 mm apart, under the
     # 0.7 mm ISO 128-2 asks, at every scale the sheet offers; the spacing is waived for that size alone rather
     # than the size left off or the view shrunk to 1:5 (what the sheet did before)
-    text = (ROOT / "templates" / "sketched.toml").read_text(encoding="utf-8")
-    for old, new in (('z_from = "wall face"\nr = "11.5 mm"\n',
-                      'z_from = "wall face"\nr = "11.5 mm"\narc = "convex"\narc_radius = "60 mm"\nradius = "0.3 mm"\n'),
-                     ('r_from = "outer diameter"\narc = "convex"\narc_radius = "36 mm"\n', 'r_from = "outer diameter"\n'),
-                     ('r = "-4 mm"\nradius = "0.8 mm"', 'r = "-4 mm"\narc = "concave"\narc_radius = "25 mm"')):
-        assert text.count(old) == 1, old
-        text = text.replace(old, new)
-    path = tmp_path / "design.toml"
-    path.write_text(text, encoding="utf-8")
-    resolved = build(load(path))
-    assert resolved.ok, resolved.failed
+    edits = (('z_from = "wall face"\nr = "11.5 mm"\n',
+              'z_from = "wall face"\nr = "11.5 mm"\narc = "convex"\narc_radius = "60 mm"\nradius = "0.3 mm"\n'),
+             ('r_from = "outer diameter"\narc = "convex"\narc_radius = "36 mm"\n', 'r_from = "outer diameter"\n'),
+             ('r = "-4 mm"\nradius = "0.8 mm"', 'r = "-4 mm"\narc = "concave"\narc_radius = "25 mm"'))
+    resolved = _built_template("sketched", edits, tmp_path)
     assert compose_sheet(resolved).notes["scale"] >= 2.0
     files = render_files(resolved, "x")
     doc, auditor = _read(files["x.dxf"])
     assert not auditor.has_errors and not collisions(doc)
-    placed = _dims(doc)
-    from yodraft.drawing.requests import section_requests
-
-    missing = [r.keys for r in section_requests(resolved) if not r.auxiliary and r.keys[0] not in placed]
-    assert not missing
+    assert not _functional_sizes_missing(resolved, doc)
