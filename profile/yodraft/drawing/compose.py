@@ -245,11 +245,15 @@ def _obstacles(items: list[Item], outline: list[Item]) -> Obstacles:
     return ob
 
 
+#: how much a view may give up to fit: everything drawn; an auxiliary dimension left out (it follows from
+#: the others); and, a last resort better than a size left off, ISO 128-2's 0.7 mm between parallel extension
+#: lines waived for a size that finds no room otherwise
+ALL, WITHOUT_AUXILIARY, SPACING_WAIVED = 0, 1, 2
+
+
 def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData,
-               relaxed: bool = False) -> tuple[_Group, View, list]:
-    """The section with its dimensions, datums and runout; and the requests that found no room. ``relaxed``:
-    a size that finds no room otherwise may run its extension lines closer than ISO 128-2's 0.7 mm (a last
-    resort, better than a size left off the sheet)."""
+               level: int = ALL) -> tuple[_Group, View, list]:
+    """The section with its dimensions, datums and runout; and the requests that found no room at ``level``."""
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
@@ -281,13 +285,14 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     placer = Placer(view, font, ob, solid, bbox)
     dims = placer.place(requests)
     if any(not r.auxiliary for r in placer.failed):
-        # a functional size found no room: placed again with the auxiliary dimensions last, which may then be
-        # left out (each follows from the sizes drawn)
+        # a functional size found no room: placed again with the auxiliary dimensions last (an early one can
+        # take the only lane a functional size has)
         ob = _obstacles(items, outline)
         placer = Placer(view, font, ob, solid, bbox)
         dims = placer.place(requests, auxiliary_last=True)
+    if level >= WITHOUT_AUXILIARY:
         placer.failed[:] = [r for r in placer.failed if not r.auxiliary]
-    if relaxed and placer.failed:
+    if level >= SPACING_WAIVED and placer.failed:
         waived = placer.failed[:]
         placer.failed.clear()
         ob.ext_min_gap = 0.0
@@ -715,14 +720,21 @@ def compose(resolved: Resolved, data: SheetData) -> Sheet:
     font = lettering()
     last: SheetTooSmall | None = None
     views: dict = {}  # a view at a scale is the same on either paper: composed once
-    for relaxed in (False, True):  # ISO 128-2's spacing of extension lines waived only when nothing fits with it
-        for paper, scale in _choices(resolved):
+    # a view gives up as little as it can (``ALL`` … ``SPACING_WAIVED``), and at full size or larger before it
+    # is reduced (a reduction is for a part too big for the paper, not for a crowded one)
+    choices = _choices(resolved)
+    full = [c for c in choices if c[1] >= 1.0]
+    reduced = [c for c in choices if c[1] < 1.0]
+    for group in (full, reduced):
+        # an auxiliary dimension is left out before a larger paper is taken; the spacing is waived last
+        tries = [(c, level) for c in group for level in (ALL, WITHOUT_AUXILIARY)] + [(c, SPACING_WAIVED) for c in group]
+        for (paper, scale), level in tries:
             try:
-                return _compose(resolved, data, font, paper, scale, views=views, relaxed=relaxed)
+                return _compose(resolved, data, font, paper, scale, views=views, level=level)
             except SheetTooSmall as exc:
                 last = exc
     assert last is not None
-    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, relaxed=True)
+    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, level=SPACING_WAIVED)
 
 
 def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
@@ -734,7 +746,7 @@ def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
 
 
 def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, scale: float,
-             force: bool = False, views: dict | None = None, relaxed: bool = False) -> Sheet:
+             force: bool = False, views: dict | None = None, level: int = ALL) -> Sheet:
     views = {} if views is None else views
     paper = PAPERS[paper_name]
     frame = frame_of(paper)
@@ -743,9 +755,9 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     z_min, _, z_max, R = profile.bounds()
     if not force and ((z_max - z_min) * scale > 0.45 * (frame[2] - frame[0]) or 2 * R * scale > frame[3] - frame[1] - 90):
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}")
-    if ("main", scale, relaxed) not in views:
-        views["main", scale, relaxed] = _main_view(resolved, scale, font, data, relaxed)
-    main, mview, failed = views["main", scale, relaxed]
+    if ("main", scale, level) not in views:
+        views["main", scale, level] = _main_view(resolved, scale, font, data, level)
+    main, mview, failed = views["main", scale, level]
     if failed and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"

@@ -585,8 +585,18 @@ class Placer:
 
     # ---------------------------------------------------------------- radius
     def radius(self, req: DimensionRequest) -> Dimension | None:
+        """A radius: a leader from the arc with the value on its shoulder; on the section's other half (the
+        part's mirror image) when its own half has no room."""
+        for lower in (req.lower, not req.lower):
+            dim = self._radius_on(req, lower)
+            if dim is not None:
+                return dim
+        self.failed.append(req)
+        return None
+
+    def _radius_on(self, req: DimensionRequest, lower: bool) -> Dimension | None:
         v = self.view
-        flip = (lambda p: (p[0], -p[1])) if req.lower else (lambda p: p)
+        flip = (lambda p: (p[0], -p[1])) if lower else (lambda p: p)
         c = v.to_paper(flip(req.points[0]))
         r = math.dist(req.points[0], req.points[1]) * v.scale
         a_mid = math.atan2(flip(req.points[1])[1] - flip(req.points[0])[1], flip(req.points[1])[0] - flip(req.points[0])[0])
@@ -629,9 +639,8 @@ class Placer:
                         arrow = _arrow(tip, knee, "dimension", v.name)
                         strokes = [Stroke(s, "dimension", v.name) for s in lines]
                         dim = Dimension(req, tuple(strokes + [arrow] + texts), knee, texts[0].at,
-                                        " / ".join(t.text for t in texts), v.name, req.lower)
+                                        " / ".join(t.text for t in texts), v.name, lower)
                         return self._commit(dim, [shoulder, leader])
-        self.failed.append(req)
         return None
 
     # ---------------------------------------------------------------- angle
