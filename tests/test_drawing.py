@@ -409,6 +409,8 @@ def test_designs_at_the_edges_build_a_clean_sheet(case, tmp_path):
     assert main(["build", str(design), "-o", str(tmp_path / "out")]) == 0
     (dxf,) = (tmp_path / "out").glob("*[!e].dxf")  # the sheet, not the CAM profile
     _check_sheet(dxf.read_bytes())
+    # A3 at 2:1, as the template: a 30 mm envelope and a wide pad groove fell to a forced A2 at 1:5 before
+    assert compose_sheet(build(load(design))).notes["scale"] == 2.0
     # every title-block and revision text is on the sheet in full (wrapped lines rejoined without spaces)
     doc, _ = _read(dxf.read_bytes())
     shown = "".join(t.plain_text() for t in doc.paperspace("sheet").query("TEXT")).replace(" ", "")
