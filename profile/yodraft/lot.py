@@ -364,6 +364,31 @@ def _chunk_moment(resolved: Resolved, feature: str, chunk: str) -> float:
     return total
 
 
+def _mass_order(mass: np.ndarray) -> np.ndarray:
+    """``np.argsort(mass, kind="stable")``, in about half its time for a lot's positive masses: the masses' bit
+    patterns (in the order of the masses, for positive numbers) with each one's index in their lowest bits are
+    sorted as integers at once, then the few neighbours that share every other bit are put in order by mass.
+
+    >>> _mass_order(np.array([3.0, 1.0, 2.0, 1.0])).tolist()
+    [1, 3, 2, 0]
+    """
+    n = len(mass)
+    if n < 2 or not np.all(mass > 0) or not np.all(np.isfinite(mass)):
+        return np.argsort(mass, kind="stable")
+    bits = (n - 1).bit_length()
+    low = np.int64((1 << bits) - 1)
+    key = (mass.view(np.int64) & ~low) | np.arange(n, dtype=np.int64)
+    key.sort()
+    order = key & low
+    high = key >> bits
+    tied = np.flatnonzero(high[1:] == high[:-1])  # neighbours the index bits alone put in order
+    if tied.size:
+        at = np.union1d(tied, tied + 1)  # positions of every shared group, each group contiguous
+        members = order[at]
+        order[at] = members[np.lexsort((members, mass[members], high[at]))]
+    return order
+
+
 def pair_by_mass(mass: np.ndarray, window: float, eligible: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Pair halves by mass: sort the eligible ones and pair neighbours at most ``window`` apart.
 
@@ -376,7 +401,7 @@ def pair_by_mass(mass: np.ndarray, window: float, eligible: np.ndarray) -> tuple
     ([0, 2], [1, 3])
     """
     idx = np.flatnonzero(eligible)
-    order = idx[np.argsort(mass[idx])] if len(idx) < len(mass) else np.argsort(mass)
+    order = idx[_mass_order(mass[idx])] if len(idx) < len(mass) else _mass_order(mass)
     m = mass[order]
     if len(m) < 2:
         return np.zeros(0, np.int64), np.zeros(0, np.int64)
@@ -438,7 +463,11 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     joint = _joint_factor(sens[:, rest] * scale[rest]) if distribution == "normal" else None
     rows = seat + list(range(n_dims, n_dims + 5))  # post, wall, offset, bore, od, width, coating, density
     coat_mid = centre[n_dims + 3]
-    n_draw = len(rows) + 4 + (2 if joint is not None else len(rest))
+    # the static unbalance: each setup's offset (rim and seat) x and y; under a normal spread the two setups'
+    # x (and y) add up to one normal of their combined spread (the same distribution, 2 draws a half, not 4)
+    n_offsets = 2 if distribution == "normal" else 4
+    n_draw = len(rows) + n_offsets + (2 if joint is not None else len(rest))
+    w_both = math.hypot(w_rim, w_seat)
     post_nom = v["bearing_seat.post_diameter"]
     wall_nom = v["bearing_seat.wall_bore"]
 
@@ -457,7 +486,7 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
             zc = z[:, c:c + PIECE]
             post_d, wall_d, off_d, bore_d, od_d, width_d, coat_d, rho_d = (
                 centre[rows, None] + scale[rows, None] * zc[:len(rows)])
-            ex, others = zc[len(rows):len(rows) + 4], zc[len(rows) + 4:]
+            ex, others = zc[len(rows):len(rows) + n_offsets], zc[len(rows) + n_offsets:]
             seat_d = (post_d, wall_d, off_d)
             mass_u = lin0[0] + sum(sens[0, k] * d for k, d in zip(seat, seat_d))
             izz_u = lin0[1] + sum(sens[1, k] * d for k, d in zip(seat, seat_d))
@@ -477,15 +506,16 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
             half["wall_clearance_mm"][s] = (wall_nom + wall_d - growth) - (v["bearing.od"] + od_d)
             half["wall_offset_mm"][s] = v["bearing_seat.wall_offset"] + off_d
             half["bearing_width_mm"][s] = v["bearing.width"] + width_d
-            if distribution == "normal":
-                offsets = ex * (e_max / 3)  # each component ±3σ = the offset the runout allows
+            if distribution == "normal":  # each offset component ±3σ = the offset the runout allows
+                half["unbalance_x_g_mm"][s] = rho * ((w_both * e_max / 3) * ex[0])
+                half["unbalance_y_g_mm"][s] = rho * ((w_both * e_max / 3) * ex[1])
             else:  # evenly over the disc of the allowed offset
                 radius = e_max * np.sqrt((ex[0::2] + 1) / 2)
                 angle = math.pi * ex[1::2]
                 offsets = np.empty_like(ex)
                 offsets[0::2], offsets[1::2] = radius * np.cos(angle), radius * np.sin(angle)
-            half["unbalance_x_g_mm"][s] = rho * (w_rim * offsets[0] + w_seat * offsets[2])
-            half["unbalance_y_g_mm"][s] = rho * (w_rim * offsets[1] + w_seat * offsets[3])
+                half["unbalance_x_g_mm"][s] = rho * (w_rim * offsets[0] + w_seat * offsets[2])
+                half["unbalance_y_g_mm"][s] = rho * (w_rim * offsets[1] + w_seat * offsets[3])
 
     # the blocks are drawn on every core
     _Background(draw, range(0, units, BLOCK), min(4, os.cpu_count() or 1)).join()
