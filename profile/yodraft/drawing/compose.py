@@ -252,8 +252,9 @@ ALL, WITHOUT_AUXILIARY, SPACING_WAIVED = 0, 1, 2
 
 
 def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData,
-               level: int = ALL) -> tuple[_Group, View, list]:
-    """The section with its dimensions, datums and runout; and the requests that found no room at ``level``."""
+               waive_spacing: bool = False) -> tuple[_Group, View, list]:
+    """The section with its dimensions, datums and runout; and the requests that found no room (with
+    ``waive_spacing``, only functional ones: the auxiliary ones are left out, see ``SPACING_WAIVED``)."""
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
@@ -290,10 +291,8 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
         ob = _obstacles(items, outline)
         placer = Placer(view, font, ob, solid, bbox)
         dims = placer.place(requests, auxiliary_last=True)
-    if level >= WITHOUT_AUXILIARY:
-        placer.failed[:] = [r for r in placer.failed if not r.auxiliary]
-    if level >= SPACING_WAIVED and placer.failed:
-        waived = placer.failed[:]
+    if waive_spacing:
+        waived = [r for r in placer.failed if not r.auxiliary]
         placer.failed.clear()
         ob.ext_min_gap = 0.0
         dims += placer.place(waived)
@@ -755,9 +754,12 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     z_min, _, z_max, R = profile.bounds()
     if not force and ((z_max - z_min) * scale > 0.45 * (frame[2] - frame[0]) or 2 * R * scale > frame[3] - frame[1] - 90):
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}")
-    if ("main", scale, level) not in views:
-        views["main", scale, level] = _main_view(resolved, scale, font, data, level)
-    main, mview, failed = views["main", scale, level]
+    waive = level >= SPACING_WAIVED
+    if ("main", scale, waive) not in views:
+        views["main", scale, waive] = _main_view(resolved, scale, font, data, waive)
+    main, mview, failed = views["main", scale, waive]
+    if level >= WITHOUT_AUXILIARY:  # the same view, its auxiliary dimensions that found no room left out
+        failed = [r for r in failed if not r.auxiliary]
     if failed and not force:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
