@@ -138,7 +138,7 @@ class Obstacles:
     box_grid: dict[tuple[int, int], list[int]] = field(default_factory=dict)
     ext: _Parallels = field(default_factory=_Parallels)  # extension lines and leaders
     dimlines: _Parallels = field(default_factory=_Parallels)
-    #: least gap between parallel extension lines (ISO 128-2); 0 waives it, a last resort (see ``Placer.relaxed``)
+    #: least gap between parallel extension lines (ISO 128-2); 0 waives it, a last resort (``compose.SPACING_WAIVED``)
     ext_min_gap: float = EXT_MIN_GAP
 
     def add_box(self, box: Box) -> None:
