@@ -372,6 +372,7 @@ def _mass_order(mass: np.ndarray) -> np.ndarray:
     >>> _mass_order(np.array([3.0, 1.0, 2.0, 1.0])).tolist()
     [1, 3, 2, 0]
     """
+    mass = np.ascontiguousarray(mass, dtype=np.float64)
     n = len(mass)
     if n < 2 or not np.all(mass > 0) or not np.all(np.isfinite(mass)):
         return np.argsort(mass, kind="stable")
