@@ -15,7 +15,8 @@ nominal design: each dimension's sensitivity is a central difference of two
 real rebuilds (builder.build and the exact mass integrals), and the lot is
 evaluated on that linear model as NumPy arrays (under the normal spread, the
 dimensions that move only the mass and Izz are drawn as the one joint normal
-effect they have on the linear model). A sample of halves, drawn dimension by
+effect they have on the linear model, and the two setups' offsets as one normal
+unbalance on each axis). A sample of halves, drawn dimension by
 dimension, is rebuilt exactly to measure how far the linear model is off
 (``linearisation_error``); a sampled half whose drawn sizes the builder refuses
 is counted as not rebuilt, with the first reason.
