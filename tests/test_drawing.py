@@ -599,3 +599,17 @@ def test_a_step_too_small_for_iso_128_spacing_is_still_dimensioned_at_a_legible_
     doc, auditor = _read(files["x.dxf"])
     assert not auditor.has_errors and not collisions(doc)
     assert not _functional_sizes_missing(resolved, doc)
+
+
+def test_a_detail_of_one_half_dimensions_only_that_half(tmp_path):
+    # a 0.12 mm wall offset crowds the detail's top: the post length went below the part, and there it was
+    # measured on the mirror half, which detail C does not draw (extension lines from nothing)
+    from yodraft.drawing.sheetdata import Dimension
+
+    resolved = _built_template("wide-heavy", [('wall_offset = "0.2 mm"', 'wall_offset = "0.12 mm"')], tmp_path)
+    sheet = compose_sheet(resolved)
+    detail = [d for d in sheet.items if isinstance(d, Dimension) and d.view == "detail"]
+    assert any(d.request.keys == ("bearing_seat.post_length",) for d in detail)
+    assert not [d.request.keys for d in detail if d.lower]
+    # (the 0.12 mm offset's own extension lines stand 0.6 mm apart at 5:1, under ISO 128-2's 0.7 mm)
+    _check_sheet(render_files(resolved, "x")["x.dxf"], spacing=False)

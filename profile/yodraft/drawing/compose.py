@@ -525,7 +525,7 @@ def _detail(resolved: Resolved, scale: float, font: Lettering, data: SheetData) 
     items.append(Stroke((view.to_paper((region[0], 0.0)), view.to_paper((region[2], 0.0))), "centre", "detail"))
     ob = _obstacles(items, outline)
     a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
-    placer = Placer(view, font, ob, _solid_test(profile, view), (a[0], a[1], b[0], b[1]))
+    placer = Placer(view, font, ob, _solid_test(profile, view), (a[0], a[1], b[0], b[1]), mirrored=False)
     dims = placer.place(detail_requests(resolved))
     items += dims
     items += _datum(font, ob, [d for d in dims if DATUM_A_KEY in d.request.keys], "A")

@@ -316,6 +316,7 @@ class Placer:
     solid: Callable[[tuple[float, float]], bool]  # whether a paper point lies in the section's material
     bbox: Box  # the drawn part on paper (both halves)
     limit: float = 60.0  # how far out (mm) lanes are searched
+    mirrored: bool = True  # the view shows the mirror half below the axis (a detail of one half does not)
     placed: list[Dimension] = field(default_factory=list)
     failed: list[DimensionRequest] = field(default_factory=list)
 
@@ -572,12 +573,13 @@ class Placer:
             sides = [side, opposite[side]]
         # a half-shown diameter whose half has no room (its extension line would run beside another's, two
         # nearly equal diameters) is shown on the other half of the section, the part's mirror image
-        halves = (req.lower, not req.lower) if req.kind == "diameter" else (req.lower,)
+        halves = (req.lower, not req.lower) if req.kind == "diameter" and self.mirrored else (req.lower,)
         for half in halves:
             for s in sides:
                 base = edges[s]
                 direction = 1.0 if s in ("left", "above") else -1.0
-                lower = half if vertical else (s == "below")
+                # below the part: on the mirror half, where the view shows one (else from this half's points)
+                lower = half if vertical else (s == "below" and self.mirrored)
                 k = 0.0
                 while k <= self.limit:
                     yield base + direction * (FIRST + k), lower
@@ -587,7 +589,7 @@ class Placer:
     def radius(self, req: DimensionRequest) -> Dimension | None:
         """A radius: a leader from the arc with the value on its shoulder; on the section's other half (the
         part's mirror image) when its own half has no room."""
-        for lower in (req.lower, not req.lower):
+        for lower in (req.lower, not req.lower) if self.mirrored else (req.lower,):
             dim = self._radius_on(req, lower)
             if dim is not None:
                 return dim

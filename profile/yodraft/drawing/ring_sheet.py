@@ -178,7 +178,7 @@ def _detail(part, scale: float, font: Lettering, requests: list[DimensionRequest
     items: list[Item] = [up, hatch]
     ob = _obstacles(items, [up])
     a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
-    placer = Placer(view, font, ob, _solid_test(profile, view), (a[0], a[1], b[0], b[1]))
+    placer = Placer(view, font, ob, _solid_test(profile, view), (a[0], a[1], b[0], b[1]), mirrored=False)
     items += placer.place([r for r in requests if r.view == "detail"])
     return _Group(items, _bbox(items)), view, placer.failed
 
