@@ -523,7 +523,7 @@ def test_derived_hole_depths_are_rounded_up_to_a_tenth(tmp_path):
     assert d["thread_depth"] == 8.0 and d["drill_depth"] == pytest.approx(10.1, abs=1e-12)
 
 
-# crowded sections found by fuzzing the starter designs: (template, edits, what went wrong before)
+# crowded sections found by fuzzing the starter designs: (template, edits), what went wrong before above each
 CROWDED = {
     # the hub face stands 0.3 mm from the cup floor's corner: the auxiliary hub height, placed first, ran its
     # extension line past the corner and left the cup depth no lane at any scale (the sheet fell to A2 at 1:5)
