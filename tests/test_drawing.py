@@ -547,9 +547,15 @@ CROWDED = {
     "a radius with no room on its half": ("sketched", [
         ('r = "-4 mm"\nradius = "0.8 mm"', 'r = "-4 mm"\narc = "concave"\narc_radius = "25 mm"'),
         ('r = "-5 mm"\nradius = "1.5 mm"', 'r = "-5 mm"\narc = "concave"\narc_radius = "25 mm"\nradius = "0.8 mm"')]),
+    # three diameters round the hub within 0.3 mm of each other: at 2:1 every lane out to 60 mm lies on another
+    # dimension line; with the spacing waived, lanes are sought farther out (the view fell to 1:2 before)
+    "near-equal diameters round the hub": ("sketched", [
+        ('z = "-9 mm"\nr = "6 mm"\nradius = "1 mm"',
+         'z = "-9 mm"\nr = "6 mm"\narc = "concave"\narc_radius = "25 mm"\nradius = "1.5 mm"'),
+        ('z = "-2 mm"\nr = "5 mm"\n', 'z = "-2 mm"\nr = "5 mm"\narc = "convex"\narc_radius = "12 mm"\nradius = "0.8 mm"\n')]),
 }
-SCALE_OF = {"a step of 0.17 mm at the outer face": ("A2", 5.0)}
-SPACING_WAIVED = {"a radius with no room on its half"}
+SCALE_OF = {"a step of 0.17 mm at the outer face": ("A2", 5.0), "near-equal diameters round the hub": ("A2", 2.0)}
+SPACING_WAIVED = {"a radius with no room on its half", "near-equal diameters round the hub"}
 
 
 def _built_template(template: str, edits, tmp_path: Path):  # type: ignore[no-untyped-def]

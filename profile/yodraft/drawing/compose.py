@@ -247,7 +247,7 @@ def _obstacles(items: list[Item], outline: list[Item]) -> Obstacles:
 
 #: how much a view may give up to fit: everything drawn; an auxiliary dimension left out (it follows from
 #: the others); and, a last resort better than a size left off, ISO 128-2's 0.7 mm between parallel extension
-#: lines waived for a size that finds no room otherwise
+#: lines waived for a size that finds no room otherwise, its lanes sought half as far out again
 ALL, WITHOUT_AUXILIARY, SPACING_WAIVED = 0, 1, 2
 
 
@@ -294,7 +294,7 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     if waive_spacing:
         waived = [r for r in placer.failed if not r.auxiliary]
         placer.failed.clear()
-        ob.ext_min_gap = 0.0
+        ob.ext_min_gap, placer.limit = 0.0, 1.5 * placer.limit  # and lanes sought farther out
         dims += placer.place(waived)
         ob.ext_min_gap = EXT_MIN_GAP
     items += dims
