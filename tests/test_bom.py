@@ -10,7 +10,7 @@ import pytest
 import yodraft
 from yodraft.bom import bill_of_materials, bom_data, choose_set_screw
 from yodraft.catalog.bar_stock import BAR_DIAMETERS_MM, next_bar_diameter
-from yodraft.catalog.setscrews import standard_lengths
+from yodraft.catalog.setscrews import inch_length, standard_lengths, standard_of
 from yodraft.cli import main
 from yodraft.report import report_data, report_markdown
 
@@ -24,7 +24,7 @@ def test_iso_4026_lengths() -> None:
     assert standard_lengths("M4x0.7") == (4.0, 5.0, 6.0, 8.0, 10.0, 12.0, 16.0, 20.0)
     assert standard_lengths("M3x0.5") == (3.0, 4.0, 5.0, 6.0, 8.0, 10.0, 12.0, 16.0)
     assert standard_lengths("M5x0.8") == (5.0, 6.0, 8.0, 10.0, 12.0, 16.0, 20.0, 25.0)
-    assert standard_lengths("8-32 UNC") == ()  # an inch thread: not an ISO 4026 size
+    assert standard_lengths("M6x1") == ()  # a thread the table does not hold
 
 
 @pytest.mark.parametrize(("depth", "wanted", "expected"), [
@@ -88,9 +88,26 @@ def test_report_carries_the_bill() -> None:
     assert "## Bill of materials and stock" in text and "ISO 4026 M4x0.7 × 16" in text
 
 
-def test_an_inch_axle_thread_has_no_iso_4026_size(string_trick_text: str) -> None:
+def test_inch_set_screw_lengths() -> None:
+    # stocked inch set-screw lengths 1/8 to 1/2 in by sixteenths, then to 1 in by eighths (common practice, no
+    # published source); 1 in = 25.4 mm exactly (international inch, 1959)
+    assert standard_lengths("10-32 UNF") == (3.175, 4.7625, 6.35, 7.9375, 9.525, 11.1125, 12.7, 15.875, 19.05,
+                                             22.225, 25.4)
+    assert standard_lengths("8-32 UNC") == standard_lengths("10-32 UNF")
+    assert standard_of("10-32 UNF") == "ASME B18.3" and standard_of("M4x0.7") == "ISO 4026"
+    assert [inch_length(x) for x in (3.175, 11.1125, 15.875, 25.4)] == ["1/8 in", "7/16 in", "5/8 in", "1 in"]
+
+
+def test_an_inch_axle_thread_is_bought_by_the_inch(string_trick_text: str) -> None:
     text = string_trick_text.replace('thread = "M4x0.7"', 'thread = "10-32 UNF"')
-    bom = bill_of_materials(yodraft.build(yodraft.design.loads(text, "x.toml")), 10, lot_halves=200)
-    assert bom.axle.length_mm is None
+    resolved = yodraft.build(yodraft.design.loads(text, "x.toml"))
+    bom = bill_of_materials(resolved, 10, lot_halves=200)
+    v = resolved.values
+    # the screw reaches 1.5 × 0.190 in into each half (aluminium, common practice, no published source) and
+    # no further than the full thread, across the post spacing
+    least = v["bearing_seat.spacing"] + 2 * 1.5 * 0.190 * 25.4
+    most = v["bearing_seat.spacing"] + 2 * v["axle_bore.thread_depth"]
+    assert bom.axle.standard == "ASME B18.3" and least - 1e-9 <= bom.axle.length_mm <= most + 1e-9
+    assert bom.axle.length_mm == 15.875  # 5/8 in: of the stocked lengths, only 5/8 in lies in the window here
     axle = next(i for i in bom.items if i.name == "axle")
-    assert "inch thread" in axle.description and "ISO 4026" in axle.description
+    assert "ASME B18.3 10-32 UNF × 5/8 in (15.875 mm)" in axle.description

@@ -1,8 +1,8 @@
 """Bill of materials and stock: what to buy for N yo-yos, with the scrap a production lot expects.
 
 Per yo-yo: two turned halves (and any parts pressed into them), one bearing, two
-response pads and the axle, bought as an ISO 4026 set screw. The set screw is the
-standard length nearest the axle the mass budget assumes among those that fit
+response pads and the axle, bought as a set screw (ISO 4026 for a metric thread,
+ASME B18.3 for an inch one). The set screw is the standard length nearest the axle the mass budget assumes among those that fit
 into both halves' full threads and engage each by at least the material's thread
 engagement. Each half is turned from round bar: the next stocked diameter at or
 above the outer diameter plus ``shop.stock_turning_allowance``, cut to the half's
@@ -19,7 +19,7 @@ from typing import Any
 from .analysis import analyse
 from .builder import Resolved
 from .catalog.bar_stock import next_bar_diameter
-from .catalog.setscrews import STANDARD, standard_lengths
+from .catalog.setscrews import INCH_STANDARD, inch_length, standard_lengths, standard_of
 
 __all__ = ["BomItem", "SetScrew", "Stock", "Bom", "choose_set_screw", "bar_stock", "bill_of_materials", "bom_data",
            "bom_text", "DEFAULT_UNITS", "SCRAP_LOT_HALVES", "SCRAP_LOT_SEED"]
@@ -79,7 +79,7 @@ class Bom:
 
 def choose_set_screw(thread: str, spacing_mm: float, thread_depth_mm: float, engagement_mm: float,
                      wanted_mm: float) -> SetScrew:
-    """The ISO 4026 length nearest ``wanted_mm`` that engages both halves' threads fully.
+    """The set-screw length nearest ``wanted_mm`` that engages both halves' threads fully (``standard_lengths``).
 
     It must reach at least ``engagement_mm`` into each half's thread and no further than the full thread
     (``thread_depth_mm``), across the post spacing: spacing + 2 × engagement ≤ L ≤ spacing + 2 × thread depth.
@@ -91,7 +91,7 @@ def choose_set_screw(thread: str, spacing_mm: float, thread_depth_mm: float, eng
     lengths = standard_lengths(thread)
     fitting = [x for x in lengths if least - 1e-9 <= x <= most + 1e-9]
     length = min(fitting, key=lambda x: (abs(x - wanted_mm), x)) if fitting else None
-    return SetScrew(STANDARD, thread, length, lengths, least, most, wanted_mm)
+    return SetScrew(standard_of(thread), thread, length, lengths, least, most, wanted_mm)
 
 
 def bar_stock(resolved: Resolved, kept_g: float) -> Stock:
@@ -155,11 +155,14 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
 
 def _axle_text(axle: SetScrew) -> str:
     if axle.length_mm is not None:
-        return f"set screw {STANDARD} {axle.thread} × {axle.length_mm:g}, flat point"
+        if axle.standard == INCH_STANDARD:  # ordered by its fractional-inch length
+            return (f"set screw {axle.standard} {axle.thread} × {inch_length(axle.length_mm)} "
+                    f"({axle.length_mm:.3f} mm), flat point")
+        return f"set screw {axle.standard} {axle.thread} × {axle.length_mm:g}, flat point"
     need = f"needs {axle.least_mm:.1f} to {axle.most_mm:.1f} mm"
     if not axle.lengths_mm:
-        return f"set screw {axle.thread}: an inch thread, not an {STANDARD} size; {need}"
-    return f"set screw {axle.thread}: no {STANDARD} length fits; {need}"
+        return f"set screw {axle.thread}: a thread with no stocked set-screw lengths held; {need}"
+    return f"set screw {axle.thread}: no {axle.standard} length fits; {need}"
 
 
 def bom_data(bom: Bom) -> dict[str, Any]:
