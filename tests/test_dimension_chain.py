@@ -3,8 +3,8 @@ face B or the axis, no closed chain, a tolerance on every dimension that sets th
 ring's own sheet, its corners located from its outer face (flush with face B) and the axis.
 
 This test reads the built DXF with ezdxf alone: the half's corners come from the outline polyline in model space
-(fillets tangent to two lines stand for the sharp corner their lines meet at, the point ISO 129-1 dimensions
-to), and the dimensions from the DIMENSION entities (their definition points, their YODRAFT xdata keys, their
+(a fillet stands for the sharp corner it rounds, where its two neighbouring lines or arcs meet, the point
+ISO 129-1 dimensions to), and the dimensions from the DIMENSION entities (their definition points, their YODRAFT xdata keys, their
 text). Nothing of yodraft's own geometry is used to judge the drawing.
 
 Rules checked (ISO 129-1 dimensioning; common practice for turned parts, no published source for the rest):
@@ -137,38 +137,72 @@ def _meet(a: dict, b: dict) -> tuple[float, float] | None:
     return (x1 + t * (x2 - x1), y1 + t * (y2 - y1))
 
 
+def _crossings(a: dict, b: dict) -> list[tuple[float, float]]:
+    """Where the curves two pieces lie on (a line's infinite line, an arc's full circle) cross."""
+    if "centre" not in a and "centre" not in b:
+        p = _meet(a, b)
+        return [] if p is None else [p]
+    if "centre" not in a:
+        a, b = b, a
+    (cx, cy), r = a["centre"], a["radius"]
+    if "centre" not in b:  # circle and line: p + t·u with |p + t·u − c| = r
+        (px, py), (qx, qy) = b["start"], b["end"]
+        d = math.dist((px, py), (qx, qy))
+        ux, uy = (qx - px) / d, (qy - py) / d
+        fx, fy = px - cx, py - cy
+        half = fx * ux + fy * uy
+        disc = half * half - (fx * fx + fy * fy - r * r)
+        if disc < -1e-9:
+            return []
+        root = math.sqrt(max(disc, 0.0))
+        return [(px + t * ux, py + t * uy) for t in (-half - root, -half + root)]
+    (ex, ey), q = b["centre"], b["radius"]  # two circles
+    d = math.dist((cx, cy), (ex, ey))
+    if d < 1e-12 or d > r + q + 1e-9 or d < abs(r - q) - 1e-9:
+        return []
+    along = (d * d + r * r - q * q) / (2 * d)
+    h = math.sqrt(max(r * r - along * along, 0.0))
+    mx, my = cx + along * (ex - cx) / d, cy + along * (ey - cy) / d
+    return [(mx - h * (ey - cy) / d, my + h * (ex - cx) / d), (mx + h * (ey - cy) / d, my - h * (ex - cx) / d)]
+
+
 def corners_and_edges(segs: list[dict]) -> tuple[list[tuple[float, float]], list[tuple[int, int, str]], list[dict]]:
-    """The half's corners (a fillet between two lines stands for their sharp corner), the straight edges
-    between corners (``axial``: constant r, ``radial``: constant z, ``slant``), and the arcs."""
+    """The half's corners, the straight edges between corners (``axial``: constant r, ``radial``: constant z,
+    ``slant``), and the arcs. A fillet (an arc tangent to both its neighbours, of smaller radius than a
+    neighbour that is an arc) stands for the sharp corner it rounds: where its neighbours' lines or circles
+    meet, the crossing nearest the fillet."""
     n = len(segs)
     fillet = [False] * n
     for i, s in enumerate(segs):
         if "centre" in s:
             a, b = segs[i - 1], segs[(i + 1) % n]
-            if "centre" not in a and "centre" not in b:
-                ta, tb = _direction(a, False), _direction(s, True)
-                tc, td = _direction(s, False), _direction(b, True)
-                fillet[i] = math.dist(ta, tb) < 1e-6 and math.dist(tc, td) < 1e-6
+            ta, tb = _direction(a, False), _direction(s, True)
+            tc, td = _direction(s, False), _direction(b, True)
+            smaller = all(s["radius"] < x["radius"] for x in (a, b) if "centre" in x)
+            fillet[i] = smaller and math.dist(ta, tb) < 1e-6 and math.dist(tc, td) < 1e-6
     corners: list[tuple[float, float]] = []
     edges: list[tuple[int, int, str]] = []
     # walk the loop; every non-fillet segment end is a corner, a fillet's two ends merge into the sharp corner
     points: list[tuple[float, float]] = []
     for i, s in enumerate(segs):
         if fillet[i]:
-            points.append(_meet(segs[i - 1], segs[(i + 1) % n]))  # type: ignore[arg-type]
-        elif not fillet[i - 1]:
+            mid = ((s["start"][0] + s["end"][0]) / 2, (s["start"][1] + s["end"][1]) / 2)
+            found = _crossings(segs[i - 1], segs[(i + 1) % n])
+            if found:
+                points.append(min(found, key=lambda p: math.dist(p, mid)))
+                continue
+            fillet[i] = False  # neighbours that never meet: the fillet's ends stay corners
+        if not fillet[i - 1]:
             points.append(s["start"])
-    # straight edges between consecutive corners that are lines (or a line with a fillet at either end)
+    # the edges between consecutive corners (lines, or arcs that are not fillets)
     for p in points:
         if all(math.dist(p, c) > EPS for c in corners):
             corners.append(p)
     index = {i: min(range(len(corners)), key=lambda j: math.dist(corners[j], p)) for i, p in enumerate(points)}
-    lines_between = [s for i, s in enumerate(segs) if not fillet[i]]
     for k in range(len(points)):
         a, b = corners[index[k]], corners[index[(k + 1) % len(points)]]
         kind = "radial" if abs(a[0] - b[0]) < EPS else "axial" if abs(a[1] - b[1]) < EPS else "slant"
         edges.append((index[k], index[(k + 1) % len(points)], kind))
-    del lines_between
     arcs = [s for s in segs if "centre" in s]
     return corners, edges, arcs
 
@@ -257,6 +291,7 @@ def analyse(sheet: dict) -> dict:
     closed: list[str] = []
     untoleranced: list[str] = []
     radius_dims: list[tuple[tuple[float, float], float, str]] = []
+    stray: list[str] = []
     for dim in sheet["dims"]:
         keys = _tags(dim)
         text = _text(dim)
@@ -273,6 +308,12 @@ def analyse(sheet: dict) -> dict:
             continue  # angles locate nothing here (they may be given, as auxiliary information)
         p2, p3 = dim.dxf.defpoint2, dim.dxf.defpoint3
         angle = round(dim.dxf.get("angle", 0.0)) % 180
+        # what it measures is a corner's position (z) or radius: a fillet's tangent point follows from its
+        # corner and radius and is no size of its own
+        measured = [p2.x, p3.x] if angle == 0 else [abs(p2.y), abs(p3.y)]
+        thread = re.match(r"\s*(M\d|\d+-\d+\s*UN)", text)  # a thread's major diameter is drawn thin, not outline
+        if not thread and not all(any(abs(m - (c[0] if angle == 0 else abs(c[1]))) < 1e-4 for c in corners) for m in measured):
+            stray.append(",".join(keys) or text)
         if angle == 0:
             joined = z.join(z.node(p2.x), z.node(p3.x))
         elif abs(p2.y + p3.y) < EPS and abs(p2.x - p3.x) < EPS:  # a (half-shown) diameter: 2r across the axis
@@ -299,7 +340,10 @@ def analyse(sheet: dict) -> dict:
     unsized = []
     general_radii = re.search(r"unspecified radii", sheet["words"], re.IGNORECASE) is not None
     for arc in arcs:
-        own = [t for c, rad, t in radius_dims if math.dist(c, arc["centre"]) < 1e-4 and abs(rad - arc["radius"]) < 1e-4]
+        # on the half drawn or its mirror image (the section shows both halves of the turned surface)
+        mirror = (arc["centre"][0], -arc["centre"][1])
+        own = [t for c, rad, t in radius_dims if min(math.dist(c, arc["centre"]), math.dist(c, mirror)) < 1e-4
+               and abs(rad - arc["radius"]) < 1e-4]
         shared = [t for c, rad, t in radius_dims if abs(rad - arc["radius"]) < 1e-4 and re.match(r"\(?\d+×", t)]
         if not (own or shared or general_radii):
             unsized.append((round(arc["centre"][0], 3), round(arc["centre"][1], 3), round(arc["radius"], 3)))
@@ -307,7 +351,7 @@ def analyse(sheet: dict) -> dict:
                if "centre" not in s and abs(s["start"][1]) < EPS and abs(s["end"][1]) < EPS]
     on_axis += [ln for ln in sheet["lines"] if abs(ln[0][1]) < EPS and abs(ln[1][1]) < EPS]
     return {"corners": corners, "undetermined": undetermined, "closed": closed, "untoleranced": untoleranced,
-            "unsized": unsized, "on_axis": on_axis, "face_b": face_b}
+            "unsized": unsized, "on_axis": on_axis, "face_b": face_b, "stray": stray}
 
 
 # ----------------------------------------------------------------------------- the tests
@@ -355,6 +399,13 @@ def sheets(tmp_path_factory: pytest.TempPathFactory) -> dict[str, dict]:
 def test_every_corner_is_located(sheets: dict[str, dict], name: str) -> None:
     found = sheets[name]
     assert found["undetermined"] == [], f"{name}: corners with no dimension chain to datum B and the axis"
+
+
+@pytest.mark.parametrize("name", [d.name for d in DESIGNS])
+def test_every_size_measures_a_corner(sheets: dict[str, dict], name: str) -> None:
+    # a fillet's tangent points follow from the corner it rounds and its radius (ISO 129-1 dimensions to the
+    # sharp corner): a size measured to one is a second, untoleranced location of that surface
+    assert sheets[name]["stray"] == [], f"{name}: sizes that measure no corner of the outline"
 
 
 @pytest.mark.parametrize("name", [d.name for d in DESIGNS])

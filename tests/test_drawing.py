@@ -538,8 +538,10 @@ CROWDED = {
                                                  'z = "-9 mm"\nr = "6 mm"\narc = "convex"\narc_radius = "60 mm"'),
                                                 ('z = "-2 mm"\nr = "5 mm"\n',
                                                  'z = "-2 mm"\nr = "5 mm"\narc = "convex"\narc_radius = "25 mm"\n')]),
-    # a concave lip ends 0.17 mm from face B: no lane at 2:1 for what is measured from B beyond it; drawn at 5:1
-    "a step of 0.17 mm at the outer face": ("sketched", [('r = "-4 mm"\nradius = "0.8 mm"',
+    # a concave outer face dipping 0.17 mm below face B, rounded into the rim band: the fillet's tangent point
+    # on it was dimensioned from B, 0.34 mm on paper at 2:1 (the sheet went to A2 at 5:1); the arc's ends and
+    # radius locate it
+    "a concave outer face": ("sketched", [('r = "-4 mm"\nradius = "0.8 mm"',
                                                            'r = "-4 mm"\narc = "concave"\narc_radius = "12 mm"')]),
     # two concave R25 arcs (lip and cup wall) share one radius dimension, which finds no room on the upper
     # half inside the cup (crossed by the diameters' extension lines): it goes on the lower half (the lip
@@ -547,15 +549,18 @@ CROWDED = {
     "a radius with no room on its half": ("sketched", [
         ('r = "-4 mm"\nradius = "0.8 mm"', 'r = "-4 mm"\narc = "concave"\narc_radius = "25 mm"'),
         ('r = "-5 mm"\nradius = "1.5 mm"', 'r = "-5 mm"\narc = "concave"\narc_radius = "25 mm"\nradius = "0.8 mm"')]),
-    # three diameters round the hub within 0.3 mm of each other: at 2:1 every lane out to 60 mm lies on another
-    # dimension line; with the spacing waived, lanes are sought farther out (the view fell to 1:2 before)
-    "near-equal diameters round the hub": ("sketched", [
+    # a 40 mm wide-heavy half: the hub face's position from B finds no room at 2:1 among the cup's sizes; the
+    # section is drawn at 5:1 on A2 (it fell to 1:5 before)
+    "a small wide-heavy half": ("wide-heavy", [('diameter = "60 mm"', 'diameter = "40 mm"')]),
+    # the hub's fillets beside a concave floor and a convex hub top: their tangent points were dimensioned as
+    # corners, three diameters within 0.3 mm of each other and no lane for them at 2:1 (the view fell to 1:2)
+    "fillets round the hub": ("sketched", [
         ('z = "-9 mm"\nr = "6 mm"\nradius = "1 mm"',
          'z = "-9 mm"\nr = "6 mm"\narc = "concave"\narc_radius = "25 mm"\nradius = "1.5 mm"'),
         ('z = "-2 mm"\nr = "5 mm"\n', 'z = "-2 mm"\nr = "5 mm"\narc = "convex"\narc_radius = "12 mm"\nradius = "0.8 mm"\n')]),
 }
-SCALE_OF = {"a step of 0.17 mm at the outer face": ("A2", 5.0), "near-equal diameters round the hub": ("A2", 2.0)}
-SPACING_WAIVED = {"a radius with no room on its half", "near-equal diameters round the hub"}
+SCALE_OF = {"a small wide-heavy half": ("A2", 5.0)}
+SPACING_WAIVED = {"a radius with no room on its half"}
 
 
 def _built_template(template: str, edits, tmp_path: Path):  # type: ignore[no-untyped-def]

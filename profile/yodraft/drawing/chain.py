@@ -1,7 +1,7 @@
 """The dimension chain: each turned surface located once, from datum face B or the axis, with no closed loop.
 
-A half's corners (a fillet between two straight edges stands for the sharp corner they meet at, the point
-ISO 129-1 dimensions to) have an axial position z and a radius r. A flat face makes its corners share one
+A half's corners (a fillet stands for the sharp corner it rounds, the point ISO 129-1 dimensions to: where
+its two straight edges meet, or the sketch's corner where an edge is an arc) have an axial position z and a radius r. A flat face makes its corners share one
 z, a cylinder its corners one r. Each linear dimension ties two z (axial) or two r (radial), a diameter
 ties an r to the axis. Walking the requests in order of importance, a dimension that ties two values
 already tied closes a loop: it is kept for the reader as an auxiliary dimension, in parentheses and
@@ -44,23 +44,51 @@ def _tangent(seg: Line | Arc, at_start: bool) -> tuple[float, float]:
     return (-s * math.sin(a), s * math.cos(a))
 
 
-def corners_of(profile: Profile) -> tuple[list[Point], list[tuple[Point, Point]]]:
-    """The loop's corners in order (fillets between two lines as their sharp corner) and the edges between them."""
+def _smooth(a: Line | Arc, b: Line | Arc) -> bool:
+    """Whether ``a`` runs into ``b`` without a kink (tangent where they meet)."""
+    return math.dist(_tangent(a, False), _tangent(b, True)) < 1e-6
+
+
+def _fillet_corners(segs: tuple[Line | Arc, ...], rounded: tuple[tuple[Point, float], ...]) -> dict[int, Point]:
+    """The sharp corner each fillet next to an arc edge stands for: the rounded corner (point, radius) of that
+    radius whose point is nearest the arc's centre, where that arc is also the arc of that radius nearest the
+    point (a sketch's corner radius where a curved edge meets another edge)."""
+    out: dict[int, Point] = {}
+    n = len(segs)
+    for i, s in enumerate(segs):
+        a, b = segs[i - 1], segs[(i + 1) % n]
+        if not isinstance(s, Arc) or not (_smooth(a, s) and _smooth(s, b)):
+            continue
+        same = [(p, r) for p, r in rounded if abs(r - s.radius) < 1e-9]
+        if not same:
+            continue
+        p = min((p for p, _ in same), key=lambda q: math.dist(q, s.center))
+        arcs = [k for k, t in enumerate(segs) if isinstance(t, Arc) and abs(t.radius - s.radius) < 1e-9]
+        if min(arcs, key=lambda k: math.dist(segs[k].center, p)) == i:  # type: ignore[union-attr]
+            out[i] = p
+    return out
+
+
+def corners_of(profile: Profile, rounded: tuple[tuple[Point, float], ...] = ()) -> tuple[list[Point], list[tuple[Point, Point]]]:
+    """The loop's corners in order and the edges between them. A fillet stands for the sharp corner it
+    rounds: between two lines, the point they meet at; next to an arc edge, the corner among ``rounded``
+    (point, radius) it was made from, when given."""
     segs = profile.segments
     n = len(segs)
     points: list[Point] = []
-    fillet = [False] * n
+    sharp: dict[int, Point] = {}
     for i, s in enumerate(segs):
         a, b = segs[i - 1], segs[(i + 1) % n]
-        if isinstance(s, Arc) and isinstance(a, Line) and isinstance(b, Line):
-            fillet[i] = (math.dist(_tangent(a, False), _tangent(s, True)) < 1e-6
-                         and math.dist(_tangent(s, False), _tangent(b, True)) < 1e-6)
-    for i, s in enumerate(segs):
-        if fillet[i]:
-            p = intersection(segs[i - 1], segs[(i + 1) % n])  # type: ignore[arg-type]
+        if isinstance(s, Arc) and isinstance(a, Line) and isinstance(b, Line) and _smooth(a, s) and _smooth(s, b):
+            p = intersection(a, b)
             if p is not None:
-                points.append(p)
-        elif not fillet[i - 1]:
+                sharp[i] = p
+    if rounded:
+        sharp = {**_fillet_corners(segs, rounded), **sharp}
+    for i, s in enumerate(segs):
+        if i in sharp:
+            points.append(sharp[i])
+        elif (i - 1) % n not in sharp:
             points.append(s.start)
     edges = [(points[k], points[(k + 1) % len(points)]) for k in range(len(points))]
     return points, edges
@@ -101,8 +129,8 @@ class _Levels:
 class Chain:
     """The half's axial positions (rooted at datum face B) and radii (rooted at the axis), as dimensions tie them."""
 
-    def __init__(self, profile: Profile, face_b: float) -> None:
-        self.corners, edges = corners_of(profile)
+    def __init__(self, profile: Profile, face_b: float, rounded: tuple[tuple[Point, float], ...] = ()) -> None:
+        self.corners, edges = corners_of(profile, rounded)
         self.edges = edges
         self.z = _Levels(face_b)
         self.r = _Levels(0.0)
@@ -139,10 +167,11 @@ class Chain:
         return out
 
 
-def settle(requests: list[Any], profile: Profile, face_b: float) -> tuple[list[Any], Chain]:
+def settle(requests: list[Any], profile: Profile, face_b: float,
+           rounded: tuple[tuple[Point, float], ...] = ()) -> tuple[list[Any], Chain]:
     """The dimension requests (``requests.DimensionRequest``) with every one that would close a loop (and every angle) made auxiliary, in the given
     order of importance; and the chain they leave."""
-    chain = Chain(profile, face_b)
+    chain = Chain(profile, face_b, rounded)
     out = []
     direct: set[tuple[float, float]] = set()
     for req in requests:

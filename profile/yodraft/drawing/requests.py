@@ -173,13 +173,23 @@ def sheet_requests(resolved: Resolved) -> list[DimensionRequest]:
     # a length of zero (a hub standing up to datum face B) is no dimension
     wanted = [r for r in _seat_requests(resolved) + ring_seat_requests(resolved) + _main_requests(resolved)
               if r.kind != "linear" or measure(r) > 1e-9]
-    settled, chain = settle(wanted, profile, datum_face_z(resolved))
+    settled, chain = settle(wanted, profile, datum_face_z(resolved), rounded_corners(resolved))
     # the tap drill's depth, written with its diameter (Ø3.3 ↧10.1), locates the drill's end from the post face
     v = resolved.values
     r_d = v["axle_bore.tap_drill"] / 2
     chain.tie("axial", (v["bearing_seat.post_face_z"], r_d), (v["axle_bore.bottom_z"], r_d))
     settled += _complete(resolved, chain)
     return _radii(resolved, settled)
+
+
+def rounded_corners(resolved: Resolved) -> tuple[tuple[Point, float], ...]:
+    """Every corner of the half's loop that carries a radius, as (sharp corner, radius): the point a fillet
+    stands for on the sheet."""
+    from ..builder import loop_chunks
+
+    results = resolved.features
+    return tuple((v.point, v.radius) for feature, chunk in loop_chunks(results) for v in results[feature].chunks[chunk]
+                 if v.radius > 0)
 
 
 def ring_seat_requests(resolved: Resolved) -> list[DimensionRequest]:
