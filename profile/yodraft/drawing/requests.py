@@ -384,7 +384,7 @@ def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[Dimensi
             shown[value] = replace(shown[value], keys=tuple(dict.fromkeys(shown[value].keys + req.keys)))
         else:
             shown[value] = req
-    for arc in (s for s in profile.segments if isinstance(s, Arc)):
+    for arc in (s for s in outline_of(resolved).segments if isinstance(s, Arc)):  # a ring's arcs too
         value = round(arc.radius, 6)
         if value not in shown:
             shown[value] = DimensionRequest(("profile.radius",), "radius",
@@ -393,12 +393,12 @@ def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[Dimensi
 
 
 def unspecified_radii(resolved: Resolved) -> list[float]:
-    """The radii of arcs drawn without a dimension of their own (another arc of that size carries it)."""
-    profile = resolved.profile
-    if profile is None:
+    """The radii of arcs drawn in the section (a ring's too) without a dimension of their own (another arc
+    of that size carries it)."""
+    if resolved.profile is None:
         return []
     dimensioned = [r.points[0] for r in sheet_requests(resolved) if r.kind == "radius"]
-    return sorted({round(s.radius, 6) for s in profile.segments
+    return sorted({round(s.radius, 6) for s in outline_of(resolved).segments
                    if isinstance(s, Arc) and all(math.dist(s.center, c) > 1e-6 for c in dimensioned)})
 
 
@@ -410,6 +410,7 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
     v = resolved.values
     shape = resolved.features["shape"]
     corners, labels = shape.chunks["outer"], shape.extra["labels"]
+    drawn = outline_of(resolved)  # a ring may carry a corner's radius
     zb = datum_face_z(resolved)
     b = on_face(profile, zb)
     wall_z = v["bearing_seat.wall_face_z"]
@@ -426,7 +427,7 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
             keys, _ = positions.setdefault(round(z, 6), ([], at))
             keys.append(f"{key}_z")
         if c.radius > 0:
-            arc = _arc_near(profile, c.radius, at)
+            arc = _arc_near(drawn, c.radius, at)
             if arc is not None:
                 out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
         if c.sweep and arc_key:
