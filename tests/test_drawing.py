@@ -596,6 +596,20 @@ def test_crowded_sections_keep_every_functional_size_on_a_clean_sheet(case, tmp_
     assert not _functional_sizes_missing(resolved, doc)  # an auxiliary one may be left out
 
 
+def test_an_angle_with_no_room_on_its_half_goes_on_the_mirror_half(tmp_path):
+    # a pad groove out to Ø28.8 crowds the upper half's cup floor: the floor's cone angle (30°) finds no room
+    # there and is drawn on the lower half, turning the other way (it was left off before)
+    resolved = _built_template("undersized", [('pad_class = "19 mm"\n', 'pad_class = "19 mm"\nouter_diameter = "28.8 mm"\n')],
+                               tmp_path)
+    doc, _ = _read(render_files(resolved, "x")["x.dxf"])
+    (dim,) = _dims(doc)["rim.floor_angle"]
+    # ezdxf's own measurement of the entity (degrees): the angle between the floor and the radial line, 30° as
+    # designed, not the 330° outside it
+    assert dim.get_measurement() == pytest.approx(math.degrees(resolved.values["rim.floor_angle"]), abs=1e-6)
+    assert dim.dxf.defpoint4.y < 0  # its vertex on the mirror half
+    _check_sheet(render_files(resolved, "x")["x.dxf"])
+
+
 def test_a_step_too_small_for_iso_128_spacing_is_still_dimensioned_at_a_legible_scale(tmp_path):
     # a convex catch zone ending 0.08 mm from face B: at 5:1 its extension lines stand 0.4 mm apart, under the
     # 0.7 mm ISO 128-2 asks, at every scale the sheet offers; the spacing is waived for that size alone rather

@@ -647,14 +647,23 @@ class Placer:
 
     # ---------------------------------------------------------------- angle
     def angle(self, req: DimensionRequest) -> Dimension | None:
+        """An angle between a part's edge and a plane: the arc across it with its value; on the section's
+        other half (the part's mirror image, the angle turning the other way) when its own half has no room."""
+        for lower in (req.lower, not req.lower) if self.mirrored else (req.lower,):
+            dim = self._angle_on(req, lower)
+            if dim is not None:
+                return dim
+        self.failed.append(req)
+        return None
+
+    def _angle_on(self, req: DimensionRequest, lower: bool) -> Dimension | None:
         v = self.view
-        pts = [v.to_paper(p) for p in req.points]
-        if req.lower:
-            pts = [v.to_paper((p[0], -p[1])) for p in req.points]
+        pts = [v.to_paper((p[0], -p[1]) if lower else p) for p in req.points]
         o, p1, p2 = pts
         a1 = math.atan2(p1[1] - o[1], p1[0] - o[0])
         a2 = math.atan2(p2[1] - o[1], p2[0] - o[0])
-        sweep = (a2 - a1) % (2 * math.pi)
+        # the angle runs counter-clockwise from the edge to the plane as given; its mirror image the other way
+        a_start, sweep = (a2, (a1 - a2) % (2 * math.pi)) if lower else (a1, (a2 - a1) % (2 * math.pi))
         edge1 = math.dist(o, p1)  # the first ray is an edge of the part this long; the second is a plane
         lines_txt = self._lines(req)
         w, depth = self._block(lines_txt)
@@ -664,7 +673,7 @@ class Placer:
             if rho < 2 * ARROW + 2:
                 continue
             steps = max(4, int(math.degrees(sweep) / 5))
-            arc_pts = tuple((o[0] + rho * math.cos(a1 + sweep * k / steps), o[1] + rho * math.sin(a1 + sweep * k / steps))
+            arc_pts = tuple((o[0] + rho * math.cos(a_start + sweep * k / steps), o[1] + rho * math.sin(a_start + sweep * k / steps))
                             for k in range(steps + 1))
             arc_segs = list(zip(arc_pts, arc_pts[1:]))
             ext: list[Seg] = []
@@ -674,7 +683,7 @@ class Placer:
                     ext.append(((o[0] + start * math.cos(a), o[1] + start * math.sin(a)),
                                 (o[0] + (rho + EXT_OVER) * math.cos(a), o[1] + (rho + EXT_OVER) * math.sin(a))))
             for frac in (0.5, 0.35, 0.65, 0.2, 0.8, 0.1, 0.9):
-                am = a1 + sweep * frac
+                am = a_start + sweep * frac
                 for extra in (1.0, 3.0, 6.0, 10.0, 15.0, -1.5, -4.0):
                     # the text's centre outside the arc, far enough that its box clears it
                     cx = o[0] + (rho + extra) * math.cos(am)
@@ -693,9 +702,8 @@ class Placer:
                         arc = Stroke((arc_pts[0], arc_pts[-1]), "dimension", v.name, bulges=(bulge,))
                         strokes = [arc] + [Stroke(s, "dimension", v.name) for s in ext]
                         dim = Dimension(req, tuple(strokes + arrows + texts), arc_pts[len(arc_pts) // 2],
-                                        texts[0].at, " / ".join(t.text for t in texts), v.name, req.lower)
+                                        texts[0].at, " / ".join(t.text for t in texts), v.name, lower)
                         return self._commit(dim, ext)
-        self.failed.append(req)
         return None
 
     def place(self, requests: list[DimensionRequest], auxiliary_last: bool = False) -> list[Dimension]:
