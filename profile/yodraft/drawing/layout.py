@@ -589,8 +589,14 @@ class Placer:
     def radius(self, req: DimensionRequest) -> Dimension | None:
         """A radius: a leader from the arc with the value on its shoulder; on the section's other half (the
         part's mirror image) when its own half has no room."""
+        return self._either_half(req, self._radius_on)
+
+    def _either_half(self, req: DimensionRequest,
+                     place_on: Callable[[DimensionRequest, bool], Dimension | None]) -> Dimension | None:
+        """``place_on(req, lower)`` on the request's own half, then on the mirror half where the view draws
+        one; the request is recorded as failed when neither has room."""
         for lower in (req.lower, not req.lower) if self.mirrored else (req.lower,):
-            dim = self._radius_on(req, lower)
+            dim = place_on(req, lower)
             if dim is not None:
                 return dim
         self.failed.append(req)
@@ -649,12 +655,7 @@ class Placer:
     def angle(self, req: DimensionRequest) -> Dimension | None:
         """An angle between a part's edge and a plane: the arc across it with its value; on the section's
         other half (the part's mirror image, the angle turning the other way) when its own half has no room."""
-        for lower in (req.lower, not req.lower) if self.mirrored else (req.lower,):
-            dim = self._angle_on(req, lower)
-            if dim is not None:
-                return dim
-        self.failed.append(req)
-        return None
+        return self._either_half(req, self._angle_on)
 
     def _angle_on(self, req: DimensionRequest, lower: bool) -> Dimension | None:
         v = self.view
