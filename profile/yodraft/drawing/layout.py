@@ -32,6 +32,9 @@ EXT_OVER = 2.0  # extension line beyond the dimension line (ISO 129-1: about 2 m
 EXT_MIN_GAP = 0.7  # ISO 128-2: parallel lines at least 0.7 mm apart
 FIRST = 8.0  # outline to the first dimension line
 DIMLINE_GAP = 5.0  # parallel dimension lines side by side at least this far apart
+#: how far (mm) an angle's value stands outside its arc (negative: inside it): beside it first, farther off only
+#: when no arc radius leaves room beside it
+ANGLE_TEXT_NEAR, ANGLE_TEXT_FAR = (1.0, 3.0, -1.5), (6.0, 10.0, 15.0, -4.0)
 CELL = 10.0  # side of the grid squares that lines and text boxes are filed in (mm; measured best of 3.5–15)
 
 Box = tuple[float, float, float, float]
@@ -591,14 +594,16 @@ class Placer:
         part's mirror image) when its own half has no room."""
         return self._either_half(req, self._radius_on)
 
-    def _either_half(self, req: DimensionRequest,
-                     place_on: Callable[[DimensionRequest, bool], Dimension | None]) -> Dimension | None:
-        """``place_on(req, lower)`` on the request's own half, then on the mirror half where the view draws
-        one; the request is recorded as failed when neither has room."""
-        for lower in (req.lower, not req.lower) if self.mirrored else (req.lower,):
-            dim = place_on(req, lower)
-            if dim is not None:
-                return dim
+    def _either_half(self, req: DimensionRequest, place_on: Callable[..., Dimension | None],
+                     tiers: tuple[tuple, ...] = ((),)) -> Dimension | None:  # type: ignore[type-arg]
+        """``place_on(req, lower, *tier)`` on the request's own half, then on the mirror half where the view
+        draws one, for each tier in turn (a better tier on either half before a worse one); the request is
+        recorded as failed when none has room."""
+        for tier in tiers:
+            for lower in (req.lower, not req.lower) if self.mirrored else (req.lower,):
+                dim = place_on(req, lower, *tier)
+                if dim is not None:
+                    return dim
         self.failed.append(req)
         return None
 
@@ -655,9 +660,11 @@ class Placer:
     def angle(self, req: DimensionRequest) -> Dimension | None:
         """An angle between a part's edge and a plane: the arc across it with its value; on the section's
         other half (the part's mirror image, the angle turning the other way) when its own half has no room."""
-        return self._either_half(req, self._angle_on)
+        # the value beside its arc (ISO 129-1: next to its dimension line) on either half before it stands
+        # farther off
+        return self._either_half(req, self._angle_on, ((ANGLE_TEXT_NEAR,), (ANGLE_TEXT_FAR,)))
 
-    def _angle_on(self, req: DimensionRequest, lower: bool) -> Dimension | None:
+    def _angle_on(self, req: DimensionRequest, lower: bool, offsets: tuple[float, ...]) -> Dimension | None:
         v = self.view
         pts = [v.to_paper((p[0], -p[1]) if lower else p) for p in req.points]
         o, p1, p2 = pts
@@ -685,7 +692,7 @@ class Placer:
                                 (o[0] + (rho + EXT_OVER) * math.cos(a), o[1] + (rho + EXT_OVER) * math.sin(a))))
             for frac in (0.5, 0.35, 0.65, 0.2, 0.8, 0.1, 0.9):
                 am = a_start + sweep * frac
-                for extra in (1.0, 3.0, 6.0, 10.0, 15.0, -1.5, -4.0):
+                for extra in offsets:
                     # the text's centre outside the arc, far enough that its box clears it
                     cx = o[0] + (rho + extra) * math.cos(am)
                     cy = o[1] + (rho + extra) * math.sin(am)
