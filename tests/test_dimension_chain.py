@@ -4,8 +4,8 @@ ring's own sheet, its corners located from its outer face (flush with face B) an
 
 This test reads the built DXF with ezdxf alone: the half's corners come from the outline polyline in model space
 (a fillet stands for the sharp corner it rounds, where its two neighbouring lines or arcs meet, the point
-ISO 129-1 dimensions to), and the dimensions from the DIMENSION entities (their definition points, their YODRAFT xdata keys, their
-text). Nothing of yodraft's own geometry is used to judge the drawing.
+ISO 129-1 dimensions to), and the dimensions from the DIMENSION entities (their definition points, their
+YODRAFT xdata keys, their text). Nothing of yodraft's own geometry is used to judge the drawing.
 
 Rules checked (ISO 129-1 dimensioning; common practice for turned parts, no published source for the rest):
 - every axial position of a corner is tied to datum face B (the outer face, the largest z) and every radius to
@@ -312,7 +312,8 @@ def analyse(sheet: dict) -> dict:
         # corner and radius and is no size of its own
         measured = [p2.x, p3.x] if angle == 0 else [abs(p2.y), abs(p3.y)]
         thread = re.match(r"\s*(M\d|\d+-\d+\s*UN)", text)  # a thread's major diameter is drawn thin, not outline
-        if not thread and not all(any(abs(m - (c[0] if angle == 0 else abs(c[1]))) < 1e-4 for c in corners) for m in measured):
+        values = [c[0] if angle == 0 else abs(c[1]) for c in corners]
+        if not thread and not all(any(abs(m - x) < 1e-4 for x in values) for m in measured):
             stray.append(",".join(keys) or text)
         if angle == 0:
             joined = z.join(z.node(p2.x), z.node(p3.x))

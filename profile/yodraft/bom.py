@@ -2,9 +2,9 @@
 
 Per yo-yo: two turned halves (and any parts pressed into them), one bearing, two
 response pads and the axle, bought as a set screw (ISO 4026 for a metric thread,
-ASME B18.3 for an inch one). The set screw is the standard length nearest the axle the mass budget assumes among those that fit
-into both halves' full threads and engage each by at least the material's thread
-engagement. Each half is turned from round bar: the next stocked diameter at or
+ASME B18.3 for an inch one). The set screw is the standard length nearest the
+axle the mass budget assumes among those that fit into both halves' full threads
+and engage each by at least the material's thread engagement. Each half is turned from round bar: the next stocked diameter at or
 above the outer diameter plus ``shop.stock_turning_allowance``, cut to the half's
 length plus ``shop.stock_facing_allowance`` and ``shop.stock_parting_allowance``.
 The halves to turn for N good yo-yos follow from a lot of the design

@@ -10,7 +10,6 @@ from __future__ import annotations
 
 from fractions import Fraction
 
-
 __all__ = ["STANDARD", "INCH_STANDARD", "LENGTH_SERIES", "RANGES", "INCH_LENGTHS", "INCH_RANGES", "standard_lengths",
            "standard_of", "inch_length"]
 

@@ -1,8 +1,8 @@
 """The dimension chain: each turned surface located once, from datum face B or the axis, with no closed loop.
 
 A half's corners (a fillet stands for the sharp corner it rounds, the point ISO 129-1 dimensions to: where
-its two straight edges meet, or the sketch's corner where an edge is an arc) have an axial position z and a radius r. A flat face makes its corners share one
-z, a cylinder its corners one r. Each linear dimension ties two z (axial) or two r (radial), a diameter
+its two straight edges meet, or the sketch's corner where an edge is an arc) have an axial position z and a
+radius r. A flat face makes its corners share one z, a cylinder its corners one r. Each linear dimension ties two z (axial) or two r (radial), a diameter
 ties an r to the axis. Walking the requests in order of importance, a dimension that ties two values
 already tied closes a loop: it is kept for the reader as an auxiliary dimension, in parentheses and
 without a tolerance (ISO 129-1),. An angle never locates a corner here: it is auxiliary. What stays
@@ -69,7 +69,8 @@ def _fillet_corners(segs: tuple[Line | Arc, ...], rounded: tuple[tuple[Point, fl
     return out
 
 
-def corners_of(profile: Profile, rounded: tuple[tuple[Point, float], ...] = ()) -> tuple[list[Point], list[tuple[Point, Point]]]:
+def corners_of(profile: Profile,
+               rounded: tuple[tuple[Point, float], ...] = ()) -> tuple[list[Point], list[tuple[Point, Point]]]:
     """The loop's corners in order and the edges between them. A fillet stands for the sharp corner it
     rounds: between two lines, the point they meet at; next to an arc edge, the corner among ``rounded``
     (point, radius) it was made from, when given."""

@@ -141,7 +141,7 @@ def _dimension(dim: Dimension, t: _Target, doc: Drawing) -> None:
                                dimstyle=DIMSTYLE, override=override, dxfattribs={"layer": "dimension"})
     else:
         o, p1, p2 = pts
-        if dim.lower:  # mirrored, the angle turns clockwise from edge to plane: measured counter-clockwise from the plane
+        if dim.lower:  # mirrored, it turns clockwise from edge to plane: measured counter-clockwise from the plane
             p1, p2 = p2, p1
         d = lay.add_angular_dim_3p(base=base, center=o, p1=p1, p2=p2, text=text, dimstyle=DIMSTYLE,
                                    override=override, dxfattribs={"layer": "dimension"})

@@ -681,8 +681,8 @@ class Placer:
             if rho < 2 * ARROW + 2:
                 continue
             steps = max(4, int(math.degrees(sweep) / 5))
-            arc_pts = tuple((o[0] + rho * math.cos(a_start + sweep * k / steps), o[1] + rho * math.sin(a_start + sweep * k / steps))
-                            for k in range(steps + 1))
+            arc_pts = tuple((o[0] + rho * math.cos(a_start + sweep * k / steps),
+                             o[1] + rho * math.sin(a_start + sweep * k / steps)) for k in range(steps + 1))
             arc_segs = list(zip(arc_pts, arc_pts[1:]))
             ext: list[Seg] = []
             for a, real in ((a1, edge1), (a2, 0.0)):
