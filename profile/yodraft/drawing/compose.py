@@ -36,8 +36,10 @@ ROW = 14.0  # title block row: label over up to three lines of value
 LABEL_HEIGHT = 2.5  # ISO 3098-1 nominal size of the field labels
 VALUE_SIZES = (3.5, 2.5, 1.8)  # ISO 3098-1 sizes a value may shrink to
 REV_COLUMNS = (0.0, 12.0, 40.0)  # letter, date, what changed
-RUNOUT_W = (8.0, 16.0, 8.0)  # compartments of a tolerance frame: symbol, value, datum
+RUNOUT_W = (8.0, 16.0, 8.0)  # compartments of a tolerance frame: symbol, value (at least), datum
 RUNOUT_H = 7.0
+RUNOUT_TEXT = 3.5  # the frame's value and datum letter, as tall as the sizes' text
+RUNOUT_MARGIN = 2.0  # clear space each side of a long value in its compartment
 
 
 class SheetTooSmall(Exception):
@@ -442,7 +444,7 @@ ARROW_LEN = 0.0  # the triangle sits on the arrow's tip
 def _runout(font: Lettering, ob: Obstacles, target: tuple[float, float], value: float, up: bool,
             within: tuple[float, float, float, float] | None = None) -> list[Item]:
     """A circular-runout tolerance frame (ISO 1101: symbol | value | A) with a leader to ``target``."""
-    width = sum(RUNOUT_W)
+    width = sum(_runout_widths(font, value))
     sign = 1.0 if up else -1.0
     for dy in (12.0, 16.0, 20.0, 25.0, 30.0, 36.0, 44.0, 8.0):
         for dx in (-40.0, -30.0, -50.0, -20.0, -60.0, 10.0, 20.0, -70.0, -80.0):
@@ -465,11 +467,17 @@ def _runout(font: Lettering, ob: Obstacles, target: tuple[float, float], value: 
     return []
 
 
+def _runout_widths(font: Lettering, value: float) -> tuple[float, float, float]:
+    """The frame's compartments: the value's widened to hold a long value (a loose grade at a slow spin)."""
+    symbol, least, datum = RUNOUT_W
+    return symbol, max(least, font.width(f"{value:.3f}", RUNOUT_TEXT) + 2 * RUNOUT_MARGIN), datum
+
+
 def _runout_frame(font: Lettering, at: tuple[float, float], target: tuple[float, float], value: float) -> list[Item]:
     x, y = at
     h = RUNOUT_H
     xs = [x]
-    for w in RUNOUT_W:
+    for w in _runout_widths(font, value):
         xs.append(xs[-1] + w)
     parts: list[Item] = [_rect(xs[0], y, xs[-1], y + h, "dimension")]
     parts += [Stroke(((xi, y), (xi, y + h)), "dimension") for xi in xs[1:-1]]
@@ -481,8 +489,7 @@ def _runout_frame(font: Lettering, at: tuple[float, float], target: tuple[float,
     right = (b[0] - 1.6 * math.cos(ang + 0.4), b[1] - 1.6 * math.sin(ang + 0.4))
     parts.append(Fill((b, left, right), "dimension"))
     for s, cxi in ((f"{value:.3f}", (xs[1] + xs[2]) / 2), ("A", (xs[2] + xs[3]) / 2)):
-        parts.append(_text(font, s, (cxi, y + h / 2 - TEXT_HEIGHT / 2), 3.5 if s == "A" else 2.5 * 1.0 + 1.0,
-                           align="center"))
+        parts.append(_text(font, s, (cxi, y + h / 2 - TEXT_HEIGHT / 2), RUNOUT_TEXT, align="center"))
     mid = y + h / 2
     start = (xs[-1], mid) if target[0] > xs[-1] else (xs[0], mid)
     if xs[0] <= target[0] <= xs[-1]:
