@@ -638,3 +638,54 @@ def test_a_detail_of_one_half_dimensions_only_that_half(tmp_path):
     assert not [d.request.keys for d in detail if d.lower]
     # (the 0.12 mm offset's own extension lines stand 0.6 mm apart at 5:1, under ISO 128-2's 0.7 mm)
     _check_sheet(render_files(resolved, "x")["x.dxf"], spacing=False)
+
+
+def test_a_loose_runout_fits_its_tolerance_frame(tmp_path):
+    """A slow reference spin makes the runout the grade allows long (ISO 21940-11: e_per = G / Ω, runout 2·e_per;
+    G6.3 at 2 rpm: 2 × 6.3 / (2π · 2 / 60) = 60.16 mm): its frame widens to hold it and the sheet stays clean."""
+    text = TEMPLATE.read_text(encoding="utf-8") + '\n[analysis]\nspin_rate = "2 rpm"\n'
+    path = tmp_path / "slow.toml"
+    path.write_text(text, encoding="utf-8")
+    resolved = build(load(path))
+    assert resolved.ok
+    data = render_files(resolved, "x")["x.dxf"]
+    _check_sheet(data)
+    doc, _ = _read(data)
+    values = [e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m) if e.dxftype() == "TEXT"]
+    shown = [float(v) for v in values if re.fullmatch(r"\d+\.\d{3}", v) and float(v) > 50]
+    assert shown and shown[0] == pytest.approx(2 * 6.3 / (2 * math.pi * 2 / 60), abs=0.001)
+
+
+@pytest.mark.parametrize("template", TEMPLATES, ids=lambda p: p.stem)
+def test_every_tolerance_written_is_a_zone_of_whole_micrometres(template, tmp_path):
+    """Every ± and every pair of deviations on the sheet, at the finest lathe the reference takes
+    (``shop.machine_tolerance`` at its least, 0.001 mm): a zone at least 1 µm wide, upper above lower — never
+    a zero or an inverted zone; an inch equivalent's ± at least 0.00001 in, the last place it is written to
+    (common practice, no published source: a metric print is read to the µm)."""
+    text = template.read_text(encoding="utf-8")
+    line = next(l for l in text.splitlines() if l.startswith("machine_tolerance"))
+    path = tmp_path / template.name
+    path.write_text(text.replace(line, 'machine_tolerance = "0.001 mm"'), encoding="utf-8")
+    resolved = build(load(path))
+    if not resolved.ok:  # a template whose other rules do not hold at that lathe has nothing to write
+        return
+    files = render_files(resolved, "x")
+    seen = 0
+    for name in ("x.dxf", "x-ring.dxf"):
+        if name not in files:
+            continue
+        doc, _ = _read(files[name])
+        texts = [e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m)
+                 if e.dxftype() in ("TEXT", "MTEXT")]
+        for t in [" ".join(texts)]:  # a note wrapped over several lines read as one
+            for zone in re.findall(r"±(\d+(?:\.\d+)?)\s+in\b", t):
+                assert float(zone) >= 0.00001, t
+            t = re.sub(r"\[[^\]]*\]", "", t)  # the inch equivalents, judged above
+            for zone in re.findall(r"±(\d+(?:\.\d+)?)", t):
+                assert float(zone) >= 0.001, t
+                seen += 1
+            for up, low in re.findall(r"(?<![\d.])([+-]?\d*\.?\d+)/([+-]?\d*\.?\d+)(?![\d.])", t):
+                if up.startswith(("+", "-")) or low.startswith(("+", "-")):
+                    assert float(up) - float(low) >= 0.001 - 1e-12, t
+                    seen += 1
+    assert seen

@@ -16,7 +16,7 @@ from .catalog.finishes import FINISHES, check_finish
 from .errors import DesignInputError, toml_shown
 from .features import FEATURES
 from .params import ParamSpec, check_name, check_unknown, current_names, read_table
-from .units import MM_PER_INCH as IN
+from .units import MM_PER_INCH as IN, SHEET_RESOLUTION_MM
 
 __all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "with_values", "NAME_PATTERN",
            "OUTPUT_WORDS"]
@@ -65,7 +65,9 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("width_tolerance", "length", "overrides the class: inner ring width deviation 0/−this", None, 0.0, 0.5, lo_closed=True),
     ),
     "shop": (
-        ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, 0.0, 0.5),
+        # at least the sheet's resolution: its sizes and tolerances are written to the whole µm
+        ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, SHEET_RESOLUTION_MM,
+                  0.5, lo_closed=True),
         ParamSpec("fit_clearance", "length", "diametral clearance wanted at the seat on top of the worst case", 0.0005 * IN, 0.0, 0.5, lo_closed=True),
         ParamSpec("coating", "text", "finish of the body (it must suit the body material: anodize on aluminium alloys only)",
                   "none", choices=tuple(FINISHES)),
