@@ -689,3 +689,18 @@ def test_every_tolerance_written_is_a_zone_of_whole_micrometres(template, tmp_pa
                     assert float(up) - float(low) >= 0.001 - 1e-12, t
                     seen += 1
     assert seen
+
+
+def test_a_small_size_is_written_to_the_micrometre_not_as_zero(tmp_path):
+    """A 0.002 mm edge radius and vent groove depth (the least the reference takes is 0.001 mm) are written
+    R0.002 and 0.002, as given: a size written 0 reads as no size at all (common practice, no published source)."""
+    design = _edited(tmp_path, [('edge_radius = "2 mm"', 'edge_radius = "0.002 mm"'),
+                                ('depth = "1.5 mm"', 'depth = "0.002 mm"')])
+    resolved = build(load(design))
+    assert resolved.ok, resolved.failed
+    data = render_files(resolved, "x")["x.dxf"]
+    _check_sheet(data, spacing=False)
+    doc, _ = _read(data)
+    values = {e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m) if e.dxftype() == "TEXT"}
+    assert "R0.002" in values and "0.002" in values
+    assert not values & {"R0", "0", "(0)", "Ø0"}

@@ -87,12 +87,20 @@ def measure(req: DimensionRequest) -> float:
     return math.degrees((a2 - a1) % (2 * math.pi))
 
 
-def format_value(value: float, decimals: int) -> str:
-    """``value`` to at most ``decimals`` places, trailing zeros dropped (ISO 129-1 writes 8, not 8.00).
+#: the most places a size is written to: the whole µm (a length below it is refused at input)
+FINEST_DECIMALS = 3
 
-    >>> format_value(8.0, 2), format_value(1.875, 2), format_value(0.5, 3)
-    ('8', '1.88', '0.5')
+
+def format_value(value: float, decimals: int) -> str:
+    """``value`` to at most ``decimals`` places, trailing zeros dropped (ISO 129-1 writes 8, not 8.00); a small
+    value keeps its meaning: more places, up to the µm, where ``decimals`` would write it more than a tenth off
+    (a 0.004 mm radius is R0.004, not R0).
+
+    >>> format_value(8.0, 2), format_value(1.875, 2), format_value(0.5, 3), format_value(0.004, 2)
+    ('8', '1.88', '0.5', '0.004')
     """
+    while decimals < FINEST_DECIMALS and abs(round(value, decimals) - value) > 0.1 * abs(value):
+        decimals += 1
     s = f"{value:.{decimals}f}"
     if "." in s:
         s = s.rstrip("0").rstrip(".")
