@@ -79,8 +79,8 @@ def value_for(draw: st.DrawFn, spec: ParamSpec, inside: bool) -> Any:
         lo = spec.lo if spec.lo is not None else -100.0
         hi = spec.hi if spec.hi is not None else 100.0
         x = draw(st.floats(lo, hi, exclude_min=not spec.lo_closed))
-        if 0 < abs(x) < SMALLEST:  # below what the reader takes as meaningful (see params.SMALLEST)
-            x = math.copysign(SMALLEST, x)
+        if 0 < abs(x) < spec.smallest:  # below what the reader takes as meaningful (see ParamSpec.smallest)
+            x = math.copysign(spec.smallest, x)
     else:
         lo, hi = span(spec)
         edges = [e for e in (spec.lo, spec.hi) if e is not None]
@@ -211,9 +211,33 @@ def edge_cases() -> list[tuple[str, ParamSpec, float]]:
         if spec.hi is not None:
             values += [spec.hi, math.nextafter(spec.hi, -math.inf)]
         if spec.lo is not None:
-            values.append(spec.lo if spec.lo_closed else max(math.nextafter(spec.lo, math.inf), spec.lo + SMALLEST))
+            step = spec.smallest if spec.lo >= 0 else SMALLEST  # a length's least non-zero size on the sheet
+            values.append(spec.lo if spec.lo_closed else max(math.nextafter(spec.lo, math.inf), spec.lo + step))
+            if spec.lo_closed and spec.lo == 0 and spec.smallest > SMALLEST:
+                values.append(spec.smallest)
         out += [(".".join(path), spec, v) for v in values]
     return out
+
+
+@pytest.mark.parametrize("path, spec", [(p, s) for p, s in SPECS if s.kind == "length"], ids=lambda x: ".".join(x)
+                         if isinstance(x, tuple) else "")
+def test_a_length_finer_than_the_sheet_writes_is_refused_at_its_key(path: tuple[str, ...], spec: ParamSpec) -> None:
+    """A non-zero length below 0.001 mm would be drawn and written as 0 (the sheet writes sizes to the whole µm:
+    common practice, no published source); only the lengths the sheet writes in µm (coating, clearance and
+    bearing deviations) take finer values."""
+    key = ".".join(path)
+    fine = spec.least is not None and spec.least < 0.001
+    for value in (0.0004, -0.0004):
+        if not (spec.lo is None or value > spec.lo or (spec.lo_closed and value == spec.lo)):
+            continue
+        raw = template_with({path: f"{value!r} mm"})
+        try:
+            from_dict(raw, "fuzz.toml")
+        except DesignInputError as exc:
+            assert not fine, str(exc)
+            assert exc.key == key and "finer than the sheet writes" in str(exc) and "0.001 mm" in str(exc), str(exc)
+        else:
+            assert fine, f"{key} = {value} mm was taken"
 
 
 @pytest.mark.parametrize("key, spec, value", edge_cases(), ids=[f"{k}={v!r}" for k, _, v in edge_cases()])

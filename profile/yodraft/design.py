@@ -15,8 +15,8 @@ from typing import Any
 from .catalog.finishes import FINISHES, check_finish
 from .errors import DesignInputError, toml_shown
 from .features import FEATURES
-from .params import ParamSpec, check_name, check_unknown, current_names, read_table
-from .units import MM_PER_INCH as IN, SHEET_RESOLUTION_MM
+from .params import SMALLEST, ParamSpec, check_name, check_unknown, current_names, read_table
+from .units import MM_PER_INCH as IN
 
 __all__ = ["Design", "Revision", "SECTIONS", "load", "loads", "find_param", "with_values", "NAME_PATTERN",
            "OUTPUT_WORDS"]
@@ -60,20 +60,23 @@ SECTIONS: dict[str, tuple[ParamSpec, ...]] = {
         ParamSpec("width", "length", "explicit bearing width", None, 0.5, 20.0),
         ParamSpec("mass", "mass", "overrides the catalog bearing mass", None, 0.0, 100.0, lo_closed=True),
         ParamSpec("precision", "text", 'precision class, ISO 492 ("P4") or ABEC ("ABEC 7")', "ABEC 1", max_length=12),
-        ParamSpec("bore_tolerance", "length", "overrides the class: bore deviation 0/−this", None, 0.0, 0.05, lo_closed=True),
-        ParamSpec("od_tolerance", "length", "overrides the class: outside-diameter deviation 0/−this", None, 0.0, 0.05, lo_closed=True),
-        ParamSpec("width_tolerance", "length", "overrides the class: inner ring width deviation 0/−this", None, 0.0, 0.5, lo_closed=True),
+        ParamSpec("bore_tolerance", "length", "overrides the class: bore deviation 0/−this",
+                  None, 0.0, 0.05, lo_closed=True, least=SMALLEST),
+        ParamSpec("od_tolerance", "length", "overrides the class: outside-diameter deviation 0/−this",
+                  None, 0.0, 0.05, lo_closed=True, least=SMALLEST),
+        ParamSpec("width_tolerance", "length", "overrides the class: inner ring width deviation 0/−this",
+                  None, 0.0, 0.5, lo_closed=True, least=SMALLEST),
     ),
     "shop": (
-        # at least the sheet's resolution: its sizes and tolerances are written to the whole µm
-        ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, SHEET_RESOLUTION_MM,
-                  0.5, lo_closed=True),
-        ParamSpec("fit_clearance", "length", "diametral clearance wanted at the seat on top of the worst case", 0.0005 * IN, 0.0, 0.5, lo_closed=True),
+        ParamSpec("machine_tolerance", "length", "± the lathe holds on a turned diameter", 0.0002 * IN, 0.0, 0.5),
+        ParamSpec("fit_clearance", "length", "diametral clearance wanted at the seat on top of the worst case",
+                  0.0005 * IN, 0.0, 0.5, lo_closed=True, least=SMALLEST),
         ParamSpec("coating", "text", "finish of the body (it must suit the body material: anodize on aluminium alloys only)",
                   "none", choices=tuple(FINISHES)),
-        ParamSpec("coating_thickness", "length", "coating thickness (its thin end when coating_thickness_max is given)", 0.0, 0.0, 0.1, lo_closed=True),
+        ParamSpec("coating_thickness", "length", "coating thickness (its thin end when coating_thickness_max is given)",
+                  0.0, 0.0, 0.1, lo_closed=True, least=SMALLEST),
         ParamSpec("coating_thickness_max", "length", "thick end of the coating's thickness range; default coating_thickness (no scatter)",
-                  None, 0.0, 0.1, lo_closed=True),
+                  None, 0.0, 0.1, lo_closed=True, least=SMALLEST),
         ParamSpec("coating_outward_share", "number", "share of the coating thickness that builds outward", 0.5, 0.0, 1.0, lo_closed=True),
         ParamSpec("mask_seat", "bool", "mask the bearing seat from coating (else turn it to pre-coat size)", False),
         ParamSpec("general_tolerance", "text", "general tolerance for unmarked dimensions", "ISO 2768-m",

@@ -14,7 +14,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from .errors import DesignInputError, toml_shown
-from .units import DISPLAY_UNITS, KINDS, UnitError, parse_quantity, written
+from .units import DISPLAY_UNITS, KINDS, SHEET_RESOLUTION_MM, UnitError, parse_quantity, written
 
 __all__ = ["ParamSpec", "read_table", "current_names", "check_unknown", "check_name", "DISPLAY_UNITS"]
 
@@ -23,6 +23,9 @@ _OTHER_KINDS = {"text", "bool", "number"}
 _CONTROL = re.compile(r"[\x00-\x1f\x7f]")
 #: the smallest non-zero magnitude any quantity may have, in its base unit (mm, g, rad, N*mm, ...)
 SMALLEST = 1e-9
+#: a kind's smallest non-zero magnitude where it is coarser: a length is drawn and written on the sheet to the
+#: whole µm, so a non-zero one below that would be written as 0 (a spec written in µm sets ``least``)
+SMALLEST_OF = {"length": SHEET_RESOLUTION_MM}
 
 
 @dataclass(frozen=True)
@@ -44,12 +47,19 @@ class ParamSpec:
     max_length: int = 120
     #: the key's earlier name, still read as this one (a file may give one of the two, not both)
     former: str = ""
+    #: the smallest non-zero magnitude (base units); None: the kind's (``SMALLEST_OF``, else ``SMALLEST``)
+    least: float | None = None
 
     def __post_init__(self) -> None:
         if self.kind not in _QUANTITY_KINDS | _OTHER_KINDS:
             raise ValueError(f"unknown parameter kind {self.kind!r}")
         if self.lo is not None and self.hi is not None and self.lo > self.hi:
             raise ValueError(f"{self.name}: lo above hi")
+
+    @property
+    def smallest(self) -> float:
+        """The smallest non-zero magnitude a value may have (base units)."""
+        return self.least if self.least is not None else SMALLEST_OF.get(self.kind, SMALLEST)
 
     def expected(self) -> str:
         """What a valid value looks like, in words."""
@@ -66,11 +76,19 @@ class ParamSpec:
         if self.lo is not None or self.hi is not None:
             div, unit, _ = DISPLAY_UNITS.get(self.kind, (1.0, "", ""))
             parts = []
-            if self.lo is not None:
+            least = f"{_shown(self.smallest / div, up=True)} {unit}".rstrip()
+            coarse = self.smallest > SMALLEST  # a kind whose small non-zero values are refused (a length)
+            if self.lo is not None and coarse and self.lo_closed and self.lo == 0:
+                parts.append(f"0 or at least {least}")
+            elif self.lo is not None and coarse and 0 <= self.lo < self.smallest:
+                parts.append(f"at least {least}")
+            elif self.lo is not None:
                 parts.append(f"{'at least' if self.lo_closed else 'above'} {_shown(self.lo / div, up=True)} {unit}".rstrip())
             if self.hi is not None:
                 parts.append(f"at most {_shown(self.hi / div, up=False)} {unit}".rstrip())
             text += ", " + " and ".join(parts)
+            if self.lo is not None and coarse and self.lo < 0:
+                text += f", 0 or at least {least} from 0"
         return text
 
     def written(self, value: float) -> Any:
@@ -114,6 +132,10 @@ class ParamSpec:
             # is a slip (or a subnormal float) and would overflow whatever divides by it
             raise DesignInputError(file, key, f"{raw!r} is too small to mean anything (below {SMALLEST:g} of the base unit)",
                                    self.expected())
+        if 0 < abs(value) < self.smallest:
+            div, unit, _ = DISPLAY_UNITS.get(self.kind, (1.0, "", ""))
+            raise DesignInputError(file, key, f"{raw!r} is finer than the sheet writes sizes: to "
+                                   f"{_shown(self.smallest / div, up=True)} {unit}", self.expected())
         low_bad = self.lo is not None and (value < self.lo if self.lo_closed else value <= self.lo)
         high_bad = self.hi is not None and value > self.hi
         if low_bad or high_bad:

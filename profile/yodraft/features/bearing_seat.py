@@ -22,7 +22,6 @@ from ..checks import check
 from ..params import ParamSpec
 from ..tolerances.seat import SeatInputs, coating_growth_mm, size_seat
 from ..tolerances.stack import Link, stack
-from ..units import SHEET_RESOLUTION_MM
 from .base import Context, FeatureResult, V, pick
 
 NAME = "bearing_seat"
@@ -33,13 +32,11 @@ PARAMS = (
     ParamSpec("spacing", "length", "distance between the two halves' post faces", 1.0, 0.0, 10.0, lo_closed=True),
     ParamSpec("wall_offset", "length", "how far the bearing wall's face stands ahead of the seat face", 0.2, -5.0, 5.0),
     # common practice, no published source: a gap held to about ±0.05 mm plays alike from half to half
-    # each ± at least the sheet's resolution: its sizes and tolerances are written to the whole µm
     ParamSpec("gap_tolerance", "length", "± the turned halves may add to the gap (worst case; the bearing's width band comes on top)",
-              0.05, SHEET_RESOLUTION_MM, 2.0, lo_closed=True),
+              0.05, 0.0, 2.0),
     ParamSpec("wall_offset_tolerance", "length", "± on the wall offset; derived from gap_tolerance when absent",
-              None, SHEET_RESOLUTION_MM, 1.0, lo_closed=True),
-    ParamSpec("post_length_tolerance", "length", "± on the post length; default the wall offset's", None,
-              SHEET_RESOLUTION_MM, 1.0, lo_closed=True),
+              None, 0.0, 1.0),
+    ParamSpec("post_length_tolerance", "length", "± on the post length; default the wall offset's", None, 0.0, 1.0),
 )
 #: the seat face reaches this share of the way from bore to outside diameter  # common practice, no published source
 SEAT_FACE_SHARE = 0.3

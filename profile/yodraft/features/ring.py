@@ -21,7 +21,7 @@ from ..catalog.finishes import FINISHES, check_finish
 from ..catalog.materials import MATERIALS, Material, lookup_material
 from ..checks import Check, check
 from ..errors import DesignInputError
-from ..params import ParamSpec, check_name
+from ..params import SMALLEST, ParamSpec, check_name
 from ..pressfit import (REFERENCE_TEMPERATURE_C, FitStresses, Member, assembly_delta_t_k, bore_change_mm,
                         contact_pressure, fit_stresses, holding_force_n, holding_torque_n_mm, thermal_change_mm)
 from ..tolerances.general import general_tolerance_mm
@@ -36,7 +36,8 @@ PARAMS = (
     ParamSpec("material", "text", "ring material from the catalog", "304", max_length=40),
     ParamSpec("coating", "text", "finish of the ring (it must suit the ring material; the body's finish does not "
               "cover a ring pressed in after it)", "none", choices=tuple(FINISHES)),
-    ParamSpec("coating_thickness", "length", "thickness of the ring's finish", 0.0, 0.0, 0.1, lo_closed=True),
+    ParamSpec("coating_thickness", "length", "thickness of the ring's finish", 0.0, 0.0, 0.1, lo_closed=True,
+              least=SMALLEST),
     ParamSpec("diameter", "length", "interface diameter, the fit's nominal size; default from the seat, the rim "
               "and the ring thickness", None, 5.0, 120.0),
     ParamSpec("thickness", "length", "radial thickness of the ring", 2.0, 0.0, 30.0),
