@@ -640,6 +640,11 @@ def test_a_detail_of_one_half_dimensions_only_that_half(tmp_path):
     _check_sheet(render_files(resolved, "x")["x.dxf"], spacing=False)
 
 
+def _sheet_texts(doc, kinds: tuple[str, ...] = ("TEXT",)) -> list[str]:  # type: ignore[no-untyped-def]
+    """Every text on the sheet, in paper space, the views and the dimensions' blocks."""
+    return [e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m) if e.dxftype() in kinds]
+
+
 def test_a_loose_runout_fits_its_tolerance_frame(tmp_path):
     """A slow reference spin makes the runout the grade allows long (ISO 21940-11: e_per = G / Ω, runout 2·e_per;
     G6.3 at 2 rpm: 2 × 6.3 / (2π · 2 / 60) = 60.16 mm): its frame widens to hold it and the sheet stays clean."""
@@ -651,7 +656,7 @@ def test_a_loose_runout_fits_its_tolerance_frame(tmp_path):
     data = render_files(resolved, "x")["x.dxf"]
     _check_sheet(data)
     doc, _ = _read(data)
-    values = [e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m) if e.dxftype() == "TEXT"]
+    values = _sheet_texts(doc)
     shown = [float(v) for v in values if re.fullmatch(r"\d+\.\d{3}", v) and float(v) > 50]
     assert shown and shown[0] == pytest.approx(2 * 6.3 / (2 * math.pi * 2 / 60), abs=0.001)
 
@@ -675,8 +680,7 @@ def test_every_tolerance_written_is_a_zone_of_whole_micrometres(template, tmp_pa
         if name not in files:
             continue
         doc, _ = _read(files[name])
-        texts = [e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m)
-                 if e.dxftype() in ("TEXT", "MTEXT")]
+        texts = _sheet_texts(doc, ("TEXT", "MTEXT"))
         for t in [" ".join(texts)]:  # a note wrapped over several lines read as one
             for zone in re.findall(r"±(\d+(?:\.\d+)?)\s+in\b", t):
                 assert float(zone) >= 0.00001, t
@@ -701,6 +705,6 @@ def test_a_small_size_is_written_to_the_micrometre_not_as_zero(tmp_path):
     data = render_files(resolved, "x")["x.dxf"]
     _check_sheet(data, spacing=False)
     doc, _ = _read(data)
-    values = {e.plain_text() for entities, m in _views(doc) for e, _ in _expand(entities, m) if e.dxftype() == "TEXT"}
+    values = set(_sheet_texts(doc))
     assert "R0.002" in values and "0.002" in values
     assert not values & {"R0", "0", "(0)", "Ø0"}
