@@ -46,6 +46,7 @@ def test_templates_pass_and_stay_inside_envelope(name: str) -> None:
     ("features.rim", "cup_depth", '"12 mm"', "rim.cup_depth"),                # cup reaches the axle bore
     ("features.catch_zone", "start_diameter", '"18 mm"', "catch_zone.start_diameter"),  # over the pad groove
     ("features.rim", "edge_radius", '"9 mm"', "rim.edge_radius"),             # radius does not fit
+    ("features.rim", "hub_diameter", '"0.3 mm"', "rim.hub_diameter"),         # a pin below the least wall
 ])
 def test_each_rule_fails_by_name(string_trick_text: str, table: str, key: str, value: str, where: str) -> None:
     import tomllib
@@ -99,3 +100,16 @@ def test_judged_together_as_each_alone(name: str) -> None:
         assert judged.checks == alone.checks
         assert dict(judged.values) == dict(alone.values)
         assert judged.profile == alone.profile
+
+
+def test_a_solid_hub_is_held_to_the_least_wall() -> None:
+    """The undercut template's hub stands solid to the axis past the axle bore, so no wall check sees it: a
+    boss is as thick as its diameter, which must reach the shop's least wall (0.5 mm; common practice, no
+    published source) — 0.3 mm fails, 0.5 mm passes."""
+    from conftest import TEMPLATES
+    from yodraft.design import with_values
+
+    base = yodraft.load(TEMPLATES / "undercut-rim.toml")
+    thin = yodraft.build(with_values(base, [("features.rim.hub_diameter", 0.3)]))
+    assert [c.name for c in thin.failed] == ["hub as thick as the least wall"]
+    assert yodraft.build(with_values(base, [("features.rim.hub_diameter", 0.5)])).ok

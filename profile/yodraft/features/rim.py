@@ -62,6 +62,10 @@ def resolve(ctx: Context, p: Mapping[str, Any]) -> FeatureResult:
         check("flat floor inside the cup", f"{NAME}.floor_diameter", hub_r <= flat_r <= cup_r,
               f"flat floor to Ø{2 * flat_r:.2f} mm between hub Ø{2 * hub_r:.2f} and cup Ø{2 * cup_r:.2f} mm"),
     )
+    if hub_r > 0 and hub_h > 0:  # a boss solid to the axis is as thick as its diameter, which the wall checks miss
+        least = ctx.shop["min_wall"]
+        checks += (check("hub as thick as the least wall", f"{NAME}.hub_diameter", 2 * hub_r >= least - 1e-9,
+                         f"hub Ø{2 * hub_r:.3f} mm, least wall {least:.3f} mm"),)
     corners = [V(flat_z, flat_r),
                V(floor_z, cup_r, p["cup_radius"], f"{NAME}.cup_radius"),
                V(face_z, cup_r, p["lip_radius"], f"{NAME}.lip_radius"),
