@@ -71,3 +71,14 @@ def test_solve_to_a_design_that_breaks_a_check_writes_nothing(tmp_path: Path, ca
     assert len(err.strip().splitlines()) == 1 and "bearing_seat.wall_offset" in err
     assert "FAILED bearing_seat.wall_offset" in out
     assert not (tmp_path / "st-B.toml").exists()
+
+
+def test_solve_never_lands_finer_than_the_file_holds(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    # gap 4.7617 mm asks for a 0.0004 mm wall offset (gap = bearing width − 2 × offset, size C 4.7625 mm;
+    # common practice, no published source): finer than a design file holds, so nothing is written
+    source = tmp_path / "st.toml"
+    source.write_text((TEMPLATES / "string-trick.toml").read_text())
+    code = main(["solve", str(source), "--target", "gap=4.7617mm", "--vary", "features.bearing_seat.wall_offset"])
+    _, err = capsys.readouterr()
+    assert code == 1 and len(err.strip().splitlines()) == 1 and "bearing_seat.wall_offset" in err
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["st.toml"]

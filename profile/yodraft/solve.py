@@ -79,6 +79,9 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
     parts, spec = find_spec(key, design.source)
     lo = spec.lo if spec.lo is not None else -1e6
     hi = spec.hi if spec.hi is not None else 1e6
+    lo_closed = spec.lo_closed
+    if 0 <= lo < spec.smallest:  # a length the file can hold: at least the sheet's least size (0 is left out)
+        lo, lo_closed = spec.smallest, True
     x0 = _current(design, parts, spec)
     if x0 is None:
         raise DesignInputError(design.source, key, "has no value to start from", "give it a value in the design file")
@@ -88,6 +91,8 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
     def f(x: float) -> float | None:
         nonlocal count, best
         count += 1
+        if 0 < abs(x) < spec.smallest:  # finer than the file may hold (below the sheet's least size)
+            return None
         try:
             candidate = with_values(design, [(".".join(parts), x)])
             resolved = build(candidate)
@@ -115,7 +120,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
             edge = hi if direction > 0 else lo
             near_edge = False  # once a trial fails to close, creep up on the last closing value
             while True:
-                x = min(hi, max(lo + 1e-9 if not spec.lo_closed else lo, x_prev + direction * h))
+                x = min(hi, max(lo + 1e-9 if not lo_closed else lo, x_prev + direction * h))
                 if x == x_prev:
                     stops.append(f"its bound {quantity_text(edge, spec)}")
                     break
