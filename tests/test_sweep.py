@@ -174,3 +174,14 @@ def test_the_lines_written_by_the_workers_make_the_csv_written_afresh() -> None:
         rows = list(csv.reader(io.StringIO(text)))
         assert len(rows) == 1 + 132 and {len(r) for r in rows} == {len(rows[0])}
         assert any(r[rows[0].index("failed")] for r in rows[1:])  # some variants fail, so the failed column is written
+
+
+def test_a_grid_value_finer_than_the_file_holds_fails_as_an_input() -> None:
+    # a design file takes a length of 0 or at least 0.001 mm (the sheet writes sizes to the µm; common
+    # practice, no published source): the grid's ±0.0005 mm are no design, 0 and ±0.001 mm are
+    base = load(TEMPLATES / "string-trick.toml")
+    result = sweep(base, [parse_vary("features.bearing_seat.wall_offset=-0.0015mm:0.0015mm:7", base)], workers=1)
+    fine = [v.inputs[0] for v in result.variants if v.failed and v.failed[0].startswith("input:")]
+    assert fine == pytest.approx([-0.0005, 0.0005])
+    assert all("features.bearing_seat.wall_offset" in v.failed[0] for v in result.variants if v.inputs[0] in fine)
+    assert [v.ok for v in result.variants][-2:] == [True, True]  # 0.001 and 0.0015 mm build
