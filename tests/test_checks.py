@@ -174,3 +174,52 @@ def test_areas_and_bounds_worked_out_at_once_are_each_loops_own_to_the_bit() -> 
         assert [x.hex() for x in a.bounds()] == [x.hex() for x in b.bounds()]
     assert primed[-2].signed_area() == pytest.approx(math.pi * 4)  # a circle of radius 2: πr²
     assert primed[-1].signed_area() == 1.0 and primed[-1].bounds() == (0.0, 1.0, 1.0, 2.0)  # the unit square
+
+
+def _sketched_with_a_pin(radius_mm: float) -> Profile:
+    """The sketched template with its hub cut down to a pin of ``radius_mm`` on the axis, well clear of the
+    axle bore (so no pair of surfaces is near it: only the metal across the axis is thin)."""
+    text = (TEMPLATES / "sketched.toml").read_text(encoding="utf-8")
+    for old, new in (('z = "-9 mm"\nr = "6 mm"\nradius = "1 mm"', f'z = "-6 mm"\nr = "{radius_mm} mm"'),
+                     ('z = "-2 mm"\nr = "5 mm"', f'z = "-2 mm"\nr = "{radius_mm} mm"'),
+                     ('z = "-8 mm"\nr_from = "outer diameter"\nr = "-5 mm"', 'z = "-5 mm"\nr_from = "outer diameter"\nr = "-5 mm"')):
+        assert text.count(old) == 1, old
+        text = text.replace(old, new)
+    return build(yodraft.loads(text)).profile
+
+
+def _axis_wall_by_definition(profile: Profile) -> float | None:
+    """Every surface walked at 400 points: where its inward normal points at the axis within FACING_DEG and
+    the metal reaches all the way down to the axis (no bore between), the solid turned round it is 2·r across."""
+    import math
+
+    poly = profile.polygon(LOOP_CHECK_TOLERANCE)
+    least = None
+    for seg in profile.segments:
+        if _on_axis(seg):
+            continue
+        for t in np.linspace(0.0, 1.0, 401):
+            p = _sample(seg, float(t))
+            n = _inward_normal(seg, p)
+            down = shapely.LineString([(p[0], p[1] - min(0.04, p[1] / 2)), (p[0], 0.0)])  # to the axis
+            if n[1] <= -math.cos(math.radians(30.0)) and p[1] > 0 and poly.covers(down):
+                least = 2 * p[1] if least is None else min(least, 2 * p[1])
+    return least
+
+
+def test_the_wall_across_the_axis_is_the_definition_walked() -> None:
+    """``axis_wall`` (a few points a surface) against every surface walked finely, on every loop of the
+    grids and on two pins; a pin of radius 0.2 mm is 0.4 mm across (plane geometry), and the batched
+    ``thin_walls`` fails it against a 0.5 mm least wall as the full measure does."""
+    from yodraft.checks import axis_wall
+
+    pins = [_sketched_with_a_pin(0.2), _sketched_with_a_pin(1.5)]
+    loops = [p for _, p in _loops()] + pins
+    for p in loops:
+        walked, found = _axis_wall_by_definition(p), axis_wall(p)
+        assert (walked is None) == (found is None)
+        if found is not None:  # the walk's steps along an arc may step past the exact least
+            assert found[0] <= walked + 1e-9 and walked - found[0] < 0.01
+    assert axis_wall(pins[0])[0] == pytest.approx(0.4, abs=1e-9)
+    assert axis_wall(pins[1])[0] == pytest.approx(3.0, abs=1e-9)
+    assert thin_walls(pins, [0.5, 0.5]) == [True, False]

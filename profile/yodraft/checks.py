@@ -14,7 +14,7 @@ if TYPE_CHECKING:  # pragma: no cover
 
     from .geometry import Point, Profile
 
-__all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "thin_walls",
+__all__ = ["Check", "check", "radial_order", "wall_checks", "loop_checks", "surface_walls", "thin_walls", "axis_wall",
            "crossing_free", "turning_checks", "datum_face_check", "LoopStack", "loop_stacks", "prime_areas_and_bounds",
            "reentrant_regions", "Reentrant"]
 
@@ -207,6 +207,7 @@ def datum_face_check(profile: "Profile", face_z: float, where: str, messages: bo
 #: count as the two surfaces facing each other across metal (a 90° corner's fillet leans 45°)
 FACING_DEG = 30.0
 _COS_FACING = math.cos(math.radians(FACING_DEG))
+_TAN_FACING = math.tan(math.radians(FACING_DEG))
 ON_AXIS = 1e-9
 
 
@@ -440,25 +441,86 @@ def prime_areas_and_bounds(profiles: Sequence["Profile"], stacks: Sequence[LoopS
             p.__dict__["_bounds"] = tuple(box)
 
 
+def axis_wall(profile: "Profile", below: float = math.inf) -> tuple[float, Point] | None:
+    """The thinnest metal across the spin axis, below ``below`` mm: (thickness, the point), or None.
+
+    A surface facing the axis square (within FACING_DEG) with metal all the way down to it is one side of
+    a solid turned round the axis, 2·r across; the other side is its mirror image, which the loop does not
+    hold, so the pairs of surfaces ``least_wall`` measures miss it (a pin or a hub on the axis).
+    """
+    import shapely  # imported where used: the quick commands never load it
+    best: tuple[float, Point] | None = None
+    poly = None
+    for seg in profile.segments:
+        arc = hasattr(seg, "center")
+        low = seg.extent[1] if arc else min(seg.start[1], seg.end[1])
+        if 2 * low >= below or (best is not None and 2 * low >= best[0]) or _on_axis(seg):
+            continue
+        (z0, r0), (z1, r1) = seg.start, seg.end
+        if not arc and abs(r1 - r0) > _TAN_FACING * abs(z1 - z0) + 1e-12:
+            continue  # a line too steep to face the axis
+        points = [seg.start, seg.end]
+        if arc:  # the lowest point of an arc facing the axis is an end, its bottom or where it stops facing
+            lo_t, hi_t = sorted((seg.start_angle, seg.end_angle))
+            for deg in (-120.0, -90.0, -60.0, 60.0, 120.0):
+                t = math.radians(deg)
+                t += 2 * math.pi * math.ceil((lo_t - t) / (2 * math.pi))
+                if t <= hi_t:
+                    points.append(seg.point_at(t))
+        for p in points:
+            if not (0 < 2 * p[1] < below and (best is None or 2 * p[1] < best[0])):
+                continue
+            if _inward_normal(seg, p)[1] > -_COS_FACING + 1e-12:
+                continue  # the metal does not lie toward the axis, square below it
+            if poly is None:
+                poly = profile.polygon(LOOP_CHECK_TOLERANCE)
+            # metal all the way down to the axis (from just inside the surface: an arc's flattened chords
+            # may stand a tolerance off it), not a bore or a groove in between
+            inset = min(2 * LOOP_CHECK_TOLERANCE, p[1] / 2)
+            if shapely.covers(poly, shapely.linestrings([(p[0], p[1] - inset), (p[0], 0.0)])):
+                best = (2 * p[1], p)
+    return best
+
+
 def thin_walls(profiles: Sequence["Profile"], below: Sequence[float],
                stacks: Sequence[LoopStack] | None = None) -> list[bool]:
-    """For each loop, whether two of its surfaces face each other across metal closer than its ``below`` mm:
-    whether ``least_wall`` would find a wall under that, answered for many loops at once (a sweep's).
+    """For each loop, whether two of its surfaces face each other across metal closer than its ``below`` mm,
+    or it is thinner than that across the axis: whether ``least_wall`` or ``axis_wall`` would find a wall
+    under that, answered for many loops at once (a sweep's).
 
     Loops of the same run of lines and arcs are stacked, and only the pairs of surfaces whose boxes lie
     closer than ``below`` are measured; which pair is the thinnest does not matter, only whether any is.
+    Only loops with a surface off the axis lower than half ``below`` are asked about the axis.
     ``stacks`` are the loops' ``loop_stacks`` when already made.
     """
+    stacks = stacks if stacks is not None else loop_stacks(profiles)
+    axial: list[int] = []  # the loops with a surface off the axis lower than half their below
+    thin = _thin_pairs(profiles, below, stacks, axial)
+    for b in axial:
+        if not thin[b] and axis_wall(profiles[b], below[b]) is not None:
+            thin[b] = True
+    return thin
+
+
+def _thin_pairs(profiles: Sequence["Profile"], below: Sequence[float], stacks: Sequence[LoopStack],
+                axial: list[int]) -> list[bool]:
+    """``thin_walls`` of the pairs of surfaces alone; the loops to ask ``axis_wall`` about go in ``axial``."""
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
     tol = LOOP_CHECK_TOLERANCE
     near: list[tuple[int, int, int]] = []  # (loop, surface, surface) whose boxes lie closer than the loop's below
-    for members, n, arcs, starts, ends in stacks if stacks is not None else loop_stacks(profiles):
+    for members, n, arcs, starts, ends in stacks:
         lo, hi = _box_corners([profiles[b] for b in members], starts, ends, arcs)
         keep = _off_axis(starts, ends, arcs)
         # surfaces i and j can be closer than the limit only where their boxes are, along z and along r
         # (the true distance is at least each); the few pairs left are measured
         limit = np.array([below[b] for b in members]) + _BOX_SLACK
+        # a surface off the axis lower than half the limit, an arc or a line that can face the axis (within
+        # FACING_DEG of it), may be one side of a solid thinner than the limit
+        facing = np.abs(ends[..., 1] - starts[..., 1]) <= _TAN_FACING * np.abs(ends[..., 0] - starts[..., 0]) + 1e-12
+        facing[:, arcs] = True
+        low = (keep & facing & (lo[..., 1] < 0.5 * limit[:, None])).any(axis=1)
+        axial += np.array(members)[low].tolist()
         # first the pairs whose boxes, each grown to hold that surface in every loop of the stack, are that
         # close (a sweep moves few surfaces), in row order: no other pair can be in any one loop
         u_lo, u_hi, widest = lo.min(axis=0), hi.max(axis=0), limit.max()
@@ -541,6 +603,11 @@ def surface_walls(profile: "Profile", min_wall: float, measure: bool = True, thi
         return [check("least wall across metal", "shop.min_wall", not thin,
                       f"a wall below {min_wall:.3f} mm" if thin else f"no wall below {min_wall:.3f} mm")]
     found = least_wall(profile)
+    across = axis_wall(profile, found[0] if found is not None else math.inf)
+    if across is not None:  # thinner across the axis than between any two surfaces
+        d, p = across
+        return [check("least wall across metal", "shop.min_wall", d >= min_wall - 1e-9,
+                      f"{d:.3f} mm across the axis at z = {p[0]:.3f} mm (a solid Ø{d:.3f} mm), least {min_wall:.3f} mm")]
     if found is None:
         return [check("least wall across metal", "shop.min_wall", True, "no two surfaces face each other across metal")]
     d, p, q = found
