@@ -14,7 +14,7 @@ from .analysis import analyse
 from .builder import Resolved, build
 from .design import Design, find_param, loads, with_values
 from .errors import DesignInputError
-from .params import ParamSpec
+from .params import SMALLEST, ParamSpec
 from .tomledit import add_revision, set_key
 from .units import UnitError, parse_quantity
 
@@ -80,8 +80,8 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
     lo = spec.lo if spec.lo is not None else -1e6
     hi = spec.hi if spec.hi is not None else 1e6
     lo_closed = spec.lo_closed
-    if 0 <= lo < spec.smallest:  # a length the file can hold: at least the sheet's least size (0 is left out)
-        lo, lo_closed = spec.smallest, True
+    if spec.smallest > SMALLEST and 0 <= lo < spec.smallest:
+        lo, lo_closed = spec.smallest, True  # a length a file holds is 0 or at least the sheet's least size
     x0 = _current(design, parts, spec)
     if x0 is None:
         raise DesignInputError(design.source, key, "has no value to start from", "give it a value in the design file")
