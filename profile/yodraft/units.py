@@ -23,10 +23,12 @@ from .errors import toml_shown
 if TYPE_CHECKING:  # pragma: no cover
     import pint
 
-__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH", "SHEET_RESOLUTION_MM", "UnitError"]
+__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH",
+           "SHEET_RESOLUTION_MM", "UnitError"]
 
 MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
-#: the sheet writes sizes and tolerances to the whole µm, so no ± a design gives may be finer
+#: the sheet writes sizes and tolerances to the whole µm, so no length a design gives may be finer than this
+#: (``params.SMALLEST_OF``; the few written in µm excepted)
 SHEET_RESOLUTION_MM = 0.001
 
 #: the base unit each kind is converted to, and how a user would write one
