@@ -61,6 +61,20 @@ class ParamSpec:
         """The smallest non-zero magnitude a value may have (base units)."""
         return self.least if self.least is not None else SMALLEST_OF.get(self.kind, SMALLEST)
 
+    def too_fine(self, value: float, rounding: bool = False) -> bool:
+        """Whether ``value`` is non-zero and finer than ``smallest``; ``rounding`` lets a computed value (a grid's)
+        lie a rounding off zero or short of the least."""
+        if rounding:
+            return self.smallest * 1e-6 < abs(value) < self.smallest * (1 - 1e-9)
+        return 0 < abs(value) < self.smallest
+
+    def check_fine(self, value: float, file: str, key: str, raw: Any, rounding: bool = False) -> None:
+        """Refuse a ``too_fine`` value: one line naming the key and the least the sheet writes."""
+        if self.too_fine(value, rounding):
+            div, unit, _ = DISPLAY_UNITS.get(self.kind, (1.0, "", ""))
+            raise DesignInputError(file, key, f"{raw!r} is finer than the sheet writes sizes: to "
+                                   f"{_shown(self.smallest / div, up=True)} {unit}", self.expected())
+
     def expected(self) -> str:
         """What a valid value looks like, in words."""
         if self.kind in _QUANTITY_KINDS:
@@ -132,10 +146,7 @@ class ParamSpec:
             # is a slip (or a subnormal float) and would overflow whatever divides by it
             raise DesignInputError(file, key, f"{raw!r} is too small to mean anything (below {SMALLEST:g} of the base unit)",
                                    self.expected())
-        if 0 < abs(value) < self.smallest:
-            div, unit, _ = DISPLAY_UNITS.get(self.kind, (1.0, "", ""))
-            raise DesignInputError(file, key, f"{raw!r} is finer than the sheet writes sizes: to "
-                                   f"{_shown(self.smallest / div, up=True)} {unit}", self.expected())
+        self.check_fine(value, file, key, raw)
         low_bad = self.lo is not None and (value < self.lo if self.lo_closed else value <= self.lo)
         high_bad = self.hi is not None and value > self.hi
         if low_bad or high_bad:

@@ -91,7 +91,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
     def f(x: float) -> float | None:
         nonlocal count, best
         count += 1
-        if 0 < abs(x) < spec.smallest:  # finer than the file may hold (below the sheet's least size)
+        if spec.too_fine(x):  # finer than the file may hold (below the sheet's least size)
             return None
         try:
             candidate = with_values(design, [(".".join(parts), x)])

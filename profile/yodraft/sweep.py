@@ -37,6 +37,7 @@ from .units import DISPLAY_UNITS
 if TYPE_CHECKING:  # pragma: no cover
     from .builder import Resolved
     from .design import Design
+    from .params import ParamSpec
 
 __all__ = ["Axis", "Variant", "SweepResult", "parse_vary", "sweep", "run_variant", "run_variants", "csv_text",
            "OUTPUT_KEYS", "MAX_VARIANTS"]
@@ -58,9 +59,9 @@ class Axis:
     start: float
     stop: float
     count: int
-    #: the smallest non-zero magnitude the key takes (``ParamSpec.smallest``): a grid value below it is not a
-    #: design the file can hold, and its variant fails as an input
-    least: float = 0.0
+    #: the key's spec: a grid value it would refuse as too fine (``ParamSpec.too_fine``) is no design a file
+    #: can hold, and its variant fails as an input
+    spec: "ParamSpec | None" = field(default=None, compare=False, repr=False)
 
     def values(self) -> list[float]:
         """The grid values, evenly spaced, both ends included."""
@@ -147,7 +148,7 @@ def parse_vary(text: str, design: "Design") -> Axis:
         raise DesignInputError(where, full, f"count {count} is out of range", f"a COUNT from 2 to {MAX_VARIANTS}")
     if values[0] == values[1]:
         raise DesignInputError(where, full, "START equals STOP", "two different end values")
-    return Axis(full, spec.kind, values[0], values[1], count, spec.smallest)
+    return Axis(full, spec.kind, values[0], values[1], count, spec)
 
 
 def _sizes(resolved: "Resolved") -> dict[str, float | None]:
@@ -202,10 +203,8 @@ def run_variants(base: "Design", axes: Sequence[Axis], points: Sequence[tuple[in
         shown_inputs.append(tuple(a.shown(v) for a, v in zip(axes, values)))
         try:
             for a, v in zip(axes, values):
-                # (a grid through zero may land a rounding off it, and one ending on the least a rounding short)
-                if a.least * 1e-6 < abs(v) < a.least * (1 - 1e-9):
-                    raise DesignInputError(base.source, a.key, f"{v:.6g} {a.unit} is finer than the sheet writes sizes",
-                                           f"0 or at least {a.shown(a.least):g} {a.unit}")
+                if a.spec is not None:
+                    a.spec.check_fine(v, base.source, a.key, f"{a.shown(v):.6g} {a.unit}", rounding=True)
             composed.append(compose(with_values(base, list(zip(keys, values))), memo))
         except (YodraftError, ValueError) as exc:
             composed.append(exc)
