@@ -152,6 +152,28 @@ def test_crossing_free_is_shapely_simplicity_of_each_ring() -> None:
     assert not alone[-1]
 
 
+def test_crossing_free_of_stacked_loops_is_each_rings_own() -> None:
+    # a sweep's chunk lays the rings of a stack out together (shared arcs once, the rest arc place by arc place);
+    # the verdicts must be each ring's own (shapely's is_simple of its flattened loop), whether the stack could
+    # be laid out together (thicknesses: the same number of points at every arc place) or not (edge radii:
+    # an arc flattens to more points as it grows), crossed loops among them
+    from yodraft.checks import _stack_rings, loop_stacks
+
+    base = yodraft.load(TEMPLATES / "string-trick.toml")
+    loops = [build(with_values(base, [("features.rim.thickness", t)])).profile for t in (3.0, 3.5, 4.0, 30.0, 4.5)]
+    loops += [build(with_values(base, [("features.rim.edge_radius", e)])).profile for e in (0.5, 1.0, 2.5)]
+    loops += [p for _, p in _loops()]
+    alone = [bool(shapely.linearrings(Profile(p.segments).flat_array(LOOP_CHECK_TOLERANCE)).is_simple) for p in loops]
+    stacks = loop_stacks(loops)
+    laid = [_stack_rings([loops[b] for b in s.members], s, LOOP_CHECK_TOLERANCE) for s in stacks]
+    assert any(x is not None and x.shape[0] >= 4 for x in laid) and any(x is None for x in laid)
+    for s, x in zip(stacks, laid):  # a ring laid out with its stack is its loop's own flattening, to the bit
+        for row, b in zip(x if x is not None else (), s.members):
+            assert row.tobytes() == Profile(loops[b].segments).flat_array(LOOP_CHECK_TOLERANCE).tobytes()
+    assert crossing_free(loops, stacks) == alone
+    assert not alone[3] and any(alone)
+
+
 def test_areas_and_bounds_worked_out_at_once_are_each_loops_own_to_the_bit() -> None:
     """A sweep works out every loop's signed area and bounds at once; each must be, to the bit (``float.hex``),
     what the loop's own Green's-theorem sum and extent give (reference: ``Profile.signed_area`` and

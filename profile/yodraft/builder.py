@@ -56,15 +56,16 @@ class Resolved:
 
     @property
     def ok(self) -> bool:
-        return all(map(_OK, self.checks))
+        return not self.failed
 
     @property
     def can_analyse(self) -> bool:
         """Whether the half's mass can be integrated: its loop exists and passes the prerequisite checks."""
         return self.profile is not None and ANALYSIS_PREREQUISITES.isdisjoint(map(_NAME, self.failed))
 
-    @property
+    @functools.cached_property
     def failed(self) -> tuple[Check, ...]:
+        """The checks that failed (worked out once: the checks never change)."""
         return tuple(filterfalse(_OK, self.checks))
 
     def __getitem__(self, key: str) -> Any:
@@ -332,7 +333,7 @@ def judge_many(composed: Sequence["Composed | Exception"]) -> list["Resolved | E
     profiles = [composed[n].profile for n in looped]  # type: ignore[union-attr]
     stacks = loop_stacks(profiles)  # every loop's surfaces read once, for the verdicts below and its figures
     prime_areas_and_bounds(profiles, stacks)
-    uncrossed = dict(zip(looped, crossing_free(profiles) if profiles else []))
+    uncrossed = dict(zip(looped, crossing_free(profiles, stacks) if profiles else []))
     thin = dict(zip(looped, thin_walls(profiles, [composed[n].design["shop"]["min_wall"] - 1e-9  # type: ignore[union-attr]
                                                   for n in looped], stacks)))
     out: list[Resolved | Exception] = []

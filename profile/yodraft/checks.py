@@ -3,8 +3,8 @@ from __future__ import annotations
 
 import functools
 import math
-from itertools import chain
-from operator import attrgetter, itemgetter
+from itertools import chain, repeat
+from operator import attrgetter, is_, itemgetter
 from collections.abc import Iterable, Mapping, Sequence
 from typing import TYPE_CHECKING, Any, NamedTuple
 
@@ -581,14 +581,64 @@ def _thin_pairs(profiles: Sequence["Profile"], below: Sequence[float], stacks: S
     return thin
 
 
-def crossing_free(profiles: Sequence["Profile"]) -> list[bool]:
+def crossing_free(profiles: Sequence["Profile"], stacks: Sequence[LoopStack] | None = None) -> list[bool]:
     """For each loop, whether its flattened ring is simple (crosses and touches itself nowhere), for many
-    loops at once."""
+    loops at once. ``stacks`` (the loops' ``loop_stacks``) let the rings of a stack be laid out together."""
     import numpy as np  # imported where used: the quick commands never load it
     import shapely  # imported where used: the quick commands never load it
-    flats = [p.flat_array(LOOP_CHECK_TOLERANCE) for p in profiles]
-    rings = shapely.linearrings(np.concatenate(flats), indices=np.repeat(np.arange(len(flats)), [len(f) for f in flats]))
-    return shapely.is_simple(rings).tolist()
+    blocks: list["np.ndarray"] = []  # (points, 2) of one or more rings
+    counts: list[int] = []  # each ring's number of points, in the order of ``order``
+    order: list[int] = []  # the loops, in the order their rings are laid out
+    done = [False] * len(profiles)
+    for stack in stacks or ():
+        loops = [profiles[b] for b in stack.members]
+        block = _stack_rings(loops, stack, LOOP_CHECK_TOLERANCE)
+        if block is None:
+            continue
+        blocks.append(block.reshape(-1, 2))
+        counts += [block.shape[1]] * len(loops)
+        order += stack.members
+        for b in stack.members:
+            done[b] = True
+    for b, p in enumerate(profiles):
+        if not done[b]:
+            flat = p.flat_array(LOOP_CHECK_TOLERANCE)
+            blocks.append(flat)
+            counts.append(len(flat))
+            order.append(b)
+    rings = shapely.linearrings(np.concatenate(blocks), indices=np.repeat(np.arange(len(counts)), counts))
+    out = [False] * len(profiles)
+    for b, simple in zip(order, shapely.is_simple(rings).tolist()):
+        out[b] = simple
+    return out
+
+
+def _stack_rings(loops: Sequence["Profile"], stack: LoopStack, tol: float) -> "np.ndarray | None":
+    """The flattened rings (``Profile.flatten``) of a stack's loops as one (B, points, 2) array: each line's start
+    from the stack, each arc's flattened points (one array for an arc all the loops share); None when an arc
+    place does not flatten to the same number of points in every loop."""
+    import numpy as np  # imported where used: the quick commands never load it
+    b = len(loops)
+    pieces: list["np.ndarray"] = []
+    line_from = 0  # the first surface of the run of lines not yet laid out
+    for k in stack.arcs:
+        if k > line_from:
+            pieces.append(stack.starts[:, line_from:k])
+        line_from = k + 1
+        arcs = [p.segments[k] for p in loops]
+        first = arcs[0]
+        if all(map(is_, arcs, repeat(first))):
+            flat = first.flattened(tol)
+            pieces.append(np.broadcast_to(np.array(flat, float), (b, len(flat), 2)))
+            continue
+        flats = [a.flattened(tol) for a in arcs]
+        m = len(flats[0])
+        if any(len(f) != m for f in flats):
+            return None
+        pieces.append(np.fromiter(chain.from_iterable(chain.from_iterable(flats)), float, 2 * m * b).reshape(b, m, 2))
+    if stack.n > line_from:
+        pieces.append(stack.starts[:, line_from:])
+    return np.concatenate(pieces, axis=1)
 
 
 def surface_walls(profile: "Profile", min_wall: float, measure: bool = True, thin: bool | None = None) -> list[Check]:
