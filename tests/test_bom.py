@@ -111,3 +111,41 @@ def test_an_inch_axle_thread_is_bought_by_the_inch(string_trick_text: str) -> No
     assert bom.axle.length_mm == 15.875  # 5/8 in: of the stocked lengths, only 5/8 in lies in the window here
     axle = next(i for i in bom.items if i.name == "axle")
     assert "ASME B18.3 10-32 UNF × 5/8 in (15.875 mm)" in axle.description
+
+
+def test_a_ring_is_bought_as_tube_with_the_same_allowances() -> None:
+    # the ring of the bimetal template: Ø55 tube (the next stocked size above its outside + 2 mm), bore at most
+    # its own less 2 mm to the mm below, cut to its width + 1 + 3 mm; the mass bought is the tube's,
+    # m = π/4 · (D² − d²) · L · ρ
+    resolved = yodraft.build(yodraft.load(ROOT / "templates" / "bimetal-ring.toml"))
+    bom = bill_of_materials(resolved, 100, lot_halves=2000)
+    ring = resolved.parts[1]
+    z_min, r_min, z_max, r_max = ring.profile.bounds()
+    (name, s), = bom.part_stocks
+    assert name == "ring" and s.material == ring.material == "C36000"
+    assert s.bar_diameter_mm == next_bar_diameter(2 * r_max + 2.0) and s.bar_diameter_mm >= 2 * r_max + 2.0
+    assert s.bore_mm == math.floor(2 * r_min - 2.0) and s.bore_mm <= 2 * r_min - 2.0
+    assert s.length_mm == pytest.approx(z_max - z_min + 1.0 + 3.0)
+    assert ring.density_g_cm3 == pytest.approx(8.50, abs=0.01)  # C36000 free-cutting brass, 8.50 g/cm³ (from memory)
+    assert s.mass_g == pytest.approx(math.pi / 4 * (s.bar_diameter_mm**2 - s.bore_mm**2) * s.length_mm
+                                     * ring.density_g_cm3 / 1000, rel=1e-12)
+    assert 0 < s.kept_g < s.mass_g
+    data = bom_data(bom)
+    (entry,) = data["part_stock"]
+    assert entry["part"] == "ring" and entry["tube_bore_mm"] == s.bore_mm
+    assert entry["total_mass_g"] == pytest.approx(bom.halves * s.mass_g)
+    line = next(i for i in data["items"] if i["name"] == "ring stock")
+    assert line["quantity"] == bom.halves and f"Ø{s.bore_mm:g} mm bore" in line["description"]
+
+
+def test_a_ring_with_a_small_bore_is_bought_as_bar() -> None:
+    # a bore that leaves under 5 mm once the allowance is taken off is turned from solid bar
+    from yodraft.bom import part_stock
+    from yodraft.geometry import Profile
+    from yodraft.parts import Part
+
+    shop = {"stock_turning_allowance": 2.0, "stock_facing_allowance": 1.0, "stock_parting_allowance": 3.0}
+    small = Part("ring", "C36000", 8.5, Profile.from_points([(0, 3), (4, 3), (4, 10), (0, 10)]))
+    s = part_stock(small, shop, 1.0, tube=True)  # Ø6 bore − 2 mm = 4 mm: below 5 mm
+    assert s.bore_mm is None and s.bar_diameter_mm == 25.0  # Ø20 + 2 → next stocked 25
+    assert s.mass_g == pytest.approx(math.pi / 4 * 25.0**2 * 8.0 * 8.5 / 1000, rel=1e-12)

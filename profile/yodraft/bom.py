@@ -6,13 +6,15 @@ ASME B18.3 for an inch one). The set screw is the standard length nearest the
 axle the mass budget assumes among those that fit into both halves' full threads
 and engage each by at least the material's thread engagement. Each half is turned from round bar: the next stocked diameter at or
 above the outer diameter plus ``shop.stock_turning_allowance``, cut to the half's
-length plus ``shop.stock_facing_allowance`` and ``shop.stock_parting_allowance``.
+length plus ``shop.stock_facing_allowance`` and ``shop.stock_parting_allowance``; a part pressed into it
+(a ring) from tube of the next stocked diameter above its own, bored to its bore less the same allowance.
 The halves to turn for N good yo-yos follow from a lot of the design
 (:func:`yodraft.lot.run_lot`, fixed seed): N divided by the good yo-yos per half.
 """
 from __future__ import annotations
 
 import math
+from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Any
 
@@ -20,9 +22,10 @@ from .analysis import analyse
 from .builder import Resolved
 from .catalog.bar_stock import next_bar_diameter
 from .catalog.setscrews import INCH_STANDARD, inch_length, standard_lengths, standard_of
+from .parts import Part
 
-__all__ = ["BomItem", "SetScrew", "Stock", "Bom", "choose_set_screw", "bar_stock", "bill_of_materials", "bom_data",
-           "bom_text", "DEFAULT_UNITS", "SCRAP_LOT_HALVES", "SCRAP_LOT_SEED"]
+__all__ = ["BomItem", "SetScrew", "Stock", "Bom", "choose_set_screw", "bar_stock", "part_stock", "bill_of_materials",
+           "bom_data", "bom_text", "LEAST_TUBE_BORE_MM", "DEFAULT_UNITS", "SCRAP_LOT_HALVES", "SCRAP_LOT_SEED"]
 
 DEFAULT_UNITS = 100
 #: the lot that sets the expected scrap: this many halves, this seed
@@ -54,13 +57,18 @@ class SetScrew:
 
 @dataclass(frozen=True)
 class Stock:
-    """The bar one half is turned from: diameter, length, mass bought, mass kept in the finished body."""
+    """The bar one part is turned from: diameter, length, mass bought, mass kept in the finished part.
+
+    ``bore_mm`` is, for a ring, the largest bore of a tube of that outside diameter it can be turned from
+    (the mass bought is then the tube's); None for a part turned from solid bar.
+    """
 
     material: str
     bar_diameter_mm: float | None
     length_mm: float
     mass_g: float | None
     kept_g: float
+    bore_mm: float | None = None
 
 
 @dataclass(frozen=True)
@@ -71,6 +79,8 @@ class Bom:
     items: tuple[BomItem, ...]
     stock: Stock
     axle: SetScrew
+    #: the bar each part pressed into a half (a ring) is turned from, by part name, in the half's order
+    part_stocks: tuple[tuple[str, Stock], ...]
     halves: int | None
     good_per_half: float
     lot_halves: int
@@ -95,14 +105,29 @@ def choose_set_screw(thread: str, spacing_mm: float, thread_depth_mm: float, eng
 
 
 def bar_stock(resolved: Resolved, kept_g: float) -> Stock:
-    """The bar a half is turned from, with the shop's allowances (``[shop]`` stock_* keys)."""
-    shop = resolved.design["shop"]
-    v = resolved.values
-    z_min, _, z_max, r_max = resolved.profile.bounds()
-    diameter = next_bar_diameter(2 * r_max + shop["stock_turning_allowance"])
+    """The bar a half's body is turned from, with the shop's allowances (``[shop]`` stock_* keys)."""
+    return part_stock(resolved.parts[0], resolved.design["shop"], kept_g)
+
+
+#: the least bore (mm) worth buying a ring's tube with; a smaller one is turned from solid bar  # common practice,
+#: no published source
+LEAST_TUBE_BORE_MM = 5.0
+
+
+def part_stock(part: Part, shop: Mapping[str, Any], kept_g: float, tube: bool = False) -> Stock:
+    """The stock one part (a half's body, a ring pressed into it) is turned from: round bar of the next stocked
+    diameter at or above its outer diameter plus the turning allowance, its length plus the facing and parting
+    allowances. ``tube``: a part with a bore (a ring) from tube of that outside diameter, whose bore is the part's
+    less the same allowance, down to the whole millimetre."""
+    z_min, r_min, z_max, r_max = part.profile.bounds()
+    allowance = shop["stock_turning_allowance"]
+    diameter = next_bar_diameter(2 * r_max + allowance)
     length = (z_max - z_min) + shop["stock_facing_allowance"] + shop["stock_parting_allowance"]
-    mass = None if diameter is None else math.pi / 4 * diameter**2 * length * v["material.density_g_cm3"] / 1000
-    return Stock(v["material.name"], diameter, length, mass, kept_g)
+    bore = float(math.floor(2 * r_min - allowance + 1e-9)) if tube else 0.0
+    bore_mm = bore if bore >= LEAST_TUBE_BORE_MM else None
+    mass = (None if diameter is None else
+            math.pi / 4 * (diameter**2 - (bore_mm or 0.0) ** 2) * length * part.density_g_cm3 / 1000)
+    return Stock(part.material, diameter, length, mass, kept_g, bore_mm)
 
 
 def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_halves: int = SCRAP_LOT_HALVES,
@@ -114,6 +139,9 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
     a = analyse(resolved)
     body = next(props for name, _, props in a.parts) if a.parts else a.half
     stock = bar_stock(resolved, body.mass_g)
+    shop = resolved.design["shop"]
+    part_stocks = tuple((part.name, part_stock(part, shop, props.mass_g, tube=True))
+                        for part, (_, _, props) in zip(resolved.parts[1:], a.parts[1:]))
     need = v["material.engagement_factor"] * v["axle_bore.major_diameter"]
     axle = choose_set_screw(v["axle_bore.thread"], v["bearing_seat.spacing"], v["axle_bore.thread_depth"], need,
                             a.axle_length_mm)
@@ -122,8 +150,7 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
     halves = math.ceil(units / good_per_half - 1e-9) if good_per_half > 0 else None
     pad = resolved.features["pad_groove"].extra["pad"]
     shown = "—" if halves is None else str(halves)
-    bar = (f"Ø{stock.bar_diameter_mm:g} mm" if stock.bar_diameter_mm is not None
-           else f"Ø{2 * resolved.profile.bounds()[3]:.1f} mm or more (above the stocked sizes held)")
+    bar = _bar(stock, resolved.parts[0])
     items = [
         BomItem("half", halves or 0,
                 f"{stock.material} half turned from {bar} bar, {stock.length_mm:.1f} mm a half; {shown} halves for "
@@ -146,11 +173,27 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
         BomItem("axle", units, _axle_text(axle)),
     ]
     if halves is not None:
-        total_m = halves * stock.length_mm / 1000
-        mass = "" if stock.mass_g is None else f", {halves * stock.mass_g / 1000:.2f} kg"
-        items.append(BomItem("bar stock", halves, f"{bar} {stock.material} round bar, {halves} pieces of "
-                                                  f"{stock.length_mm:.1f} mm: {total_m:.2f} m{mass}"))
-    return Bom(units, tuple(items), stock, axle, halves, good_per_half, lot_halves, lot_seed)
+        items.append(BomItem("bar stock", halves, _bar_line(stock, bar, halves, "")))
+        for part, (name, part_bar) in zip(resolved.parts[1:], part_stocks):
+            items.append(BomItem(f"{name} stock", halves,
+                                 _bar_line(part_bar, _bar(part_bar, part), halves, f" for the {name}s")))
+    return Bom(units, tuple(items), stock, axle, part_stocks, halves, good_per_half, lot_halves, lot_seed)
+
+
+def _bar(stock: Stock, part: Part) -> str:
+    """The bar's diameter as ordered, or what it must be when it is above every stocked size."""
+    if stock.bar_diameter_mm is not None:
+        return f"Ø{stock.bar_diameter_mm:g} mm"
+    return f"Ø{2 * part.profile.bounds()[3]:.1f} mm or more (above the stocked sizes held)"
+
+
+def _bar_line(stock: Stock, bar: str, pieces: int, what: str) -> str:
+    """A stock line: the bar (or tube), the pieces and their length, the total length and mass to order."""
+    mass = "" if stock.mass_g is None else f", {pieces * stock.mass_g / 1000:.2f} kg"
+    kind = (f"tube{what}, Ø{stock.bore_mm:g} mm bore or less (or {bar} round bar)" if stock.bore_mm is not None
+            else f"round bar{what}")
+    return (f"{bar} {stock.material} {kind}, {pieces} pieces of {stock.length_mm:.1f} mm: "
+            f"{pieces * stock.length_mm / 1000:.2f} m{mass}")
 
 
 def _axle_text(axle: SetScrew) -> str:
@@ -172,9 +215,11 @@ def bom_data(bom: Bom) -> dict[str, Any]:
     return {
         "units": bom.units,
         "items": [{"name": i.name, "quantity": i.quantity, "description": i.description} for i in bom.items],
-        "stock": {"material": s.material, "bar_diameter_mm": s.bar_diameter_mm, "length_mm": s.length_mm,
-                  "mass_g": s.mass_g, "kept_g": s.kept_g,
-                  "kept_share": None if not s.mass_g else s.kept_g / s.mass_g},
+        "stock": _stock_data(s),
+        "part_stock": [{"part": name, **_stock_data(p), "tube_bore_mm": p.bore_mm,
+                        "total_length_mm": None if halves is None else halves * p.length_mm,
+                        "total_mass_g": None if halves is None or p.mass_g is None else halves * p.mass_g}
+                       for name, p in bom.part_stocks],
         "axle": {"standard": bom.axle.standard, "thread": bom.axle.thread, "length_mm": bom.axle.length_mm,
                  "standard_lengths_mm": list(bom.axle.lengths_mm), "least_mm": bom.axle.least_mm,
                  "most_mm": bom.axle.most_mm, "wanted_mm": bom.axle.wanted_mm},
@@ -187,18 +232,31 @@ def bom_data(bom: Bom) -> dict[str, Any]:
     }
 
 
+def _stock_data(s: Stock) -> dict[str, Any]:
+    """One part's bar as JSON: material, diameter, length, mass bought and kept in the finished part."""
+    return {"material": s.material, "bar_diameter_mm": s.bar_diameter_mm, "length_mm": s.length_mm,
+            "mass_g": s.mass_g, "kept_g": s.kept_g, "kept_share": None if not s.mass_g else s.kept_g / s.mass_g}
+
+
 def bom_text(data: dict[str, Any]) -> str:
     """The bill as terminal text."""
     width = max(len(i["name"]) for i in data["items"])
     lines = [f"bill of materials for {data['units']} good yo-yos"]
     lines += [f"  {i['quantity']:>8}  {i['name']:<{width}}  {i['description']}" for i in data["items"]]
     s, t = data["stock"], data["totals"]
-    if s["mass_g"] is not None:
-        lines.append(f"  stock per half: bar Ø{s['bar_diameter_mm']:g} × {s['length_mm']:.1f} mm, {s['mass_g']:.1f} g "
-                     f"bought, {s['kept_g']:.1f} g kept ({100 * s['kept_share']:.0f} %)")
+    for what, bar in [("half", s)] + [(p["part"], p) for p in data["part_stock"]]:
+        if bar["mass_g"] is not None:
+            kind = f"tube Ø{bar['bar_diameter_mm']:g}/Ø{bar['tube_bore_mm']:g}" if bar.get("tube_bore_mm") else \
+                f"bar Ø{bar['bar_diameter_mm']:g}"
+            lines.append(f"  stock per {what}: {bar['material']} {kind} × {bar['length_mm']:.1f} mm, "
+                         f"{bar['mass_g']:.1f} g bought, {bar['kept_g']:.1f} g kept ({100 * bar['kept_share']:.0f} %)")
     if t["bar_mass_g"] is not None:
         lines.append(f"  to order: {t['halves']} halves' bar, {t['bar_length_mm'] / 1000:.2f} m, "
                      f"{t['bar_mass_g'] / 1000:.2f} kg; {t['kept_mass_g'] / 1000:.2f} kg in the finished halves")
+    for p in data["part_stock"]:
+        if p["total_mass_g"] is not None:
+            lines.append(f"  to order for the {p['part']}s: {t['halves']} pieces, {p['total_length_mm'] / 1000:.2f} m, "
+                         f"{p['total_mass_g'] / 1000:.2f} kg")
     lot = data["lot"]
     lines.append(f"  scrap from a lot of {lot['halves']} halves (seed {lot['seed']}): {100 * lot['scrap_share']:.1f} % "
                  "of halves turned do not end in a good yo-yo")
