@@ -303,3 +303,14 @@ def test_mass_order_is_numpys_stable_argsort() -> None:
             mass = np.round(mass, decimals)
         assert np.array_equal(_mass_order(mass), np.argsort(mass, kind="stable"))  # NumPy, the reference
     assert np.array_equal(_mass_order(np.array([2.0, -1.0, 0.0])), [1, 2, 0])  # not all positive: NumPy's own
+
+
+def test_keys_sorted_in_two_parts_are_numpys_sort(monkeypatch: pytest.MonkeyPatch) -> None:
+    # the pairing's sort keys, split at a sampled median and sorted on two threads, must be np.sort's array
+    from yodraft import lot
+
+    monkeypatch.setattr(lot.os, "cpu_count", lambda: 2)
+    rng = np.random.default_rng(5)
+    for n in (lot.PARALLEL_SORT, 300_001):
+        key = rng.permutation(np.arange(n, dtype=np.int64) * 7 - 1000)  # distinct, negatives among them
+        assert np.array_equal(lot._sorted_keys(key.copy()), np.sort(key))  # NumPy, the reference

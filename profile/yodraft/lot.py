@@ -114,6 +114,9 @@ class LotResult:
     pairs: tuple[np.ndarray, np.ndarray] = field(repr=False)
     pair_good: np.ndarray = field(repr=False)
     linearisation: Mapping[str, float] = field(default_factory=dict)
+    #: the statistics of the halves' and the random pairs' distributions (``_distributions``), worked out while
+    #: the halves were paired; empty when they are to be worked out from the arrays
+    distributions: Mapping[str, Any] = field(default_factory=dict, repr=False)
 
 
 class _Background:
@@ -365,6 +368,23 @@ def _chunk_moment(resolved: Resolved, feature: str, chunk: str) -> float:
     return total
 
 
+#: from this many halves, the sort keys are sorted in two parts on two threads (each sort lets go of the interpreter)
+PARALLEL_SORT = 1 << 17
+
+
+def _sorted_keys(key: np.ndarray) -> np.ndarray:
+    """``np.sort(key)`` of distinct integers: on two cores, the keys below and above a sampled median sorted each
+    on a thread of its own, the very same array."""
+    if len(key) < PARALLEL_SORT or (os.cpu_count() or 1) < 2:
+        key.sort()
+        return key
+    sample = np.sort(key[::len(key) // 1024])
+    below = key < sample[len(sample) // 2]
+    parts = [key[below], key[~below]]
+    _Background(np.ndarray.sort, parts, 2).join()  # each part sorted in place
+    return np.concatenate(parts)
+
+
 def _mass_order(mass: np.ndarray) -> np.ndarray:
     """``np.argsort(mass, kind="stable")``, in about half its time for a lot's positive masses: the masses' bit
     patterns (in the order of the masses, for positive numbers) with each one's index in their lowest bits are
@@ -379,8 +399,7 @@ def _mass_order(mass: np.ndarray) -> np.ndarray:
         return np.argsort(mass, kind="stable")
     bits = (n - 1).bit_length()
     low = np.int64((1 << bits) - 1)
-    key = (mass.view(np.int64) & ~low) | np.arange(n, dtype=np.int64)
-    key.sort()
+    key = _sorted_keys((mass.view(np.int64) & ~low) | np.arange(n, dtype=np.int64))
     order = key & low
     high = key >> bits
     tied = np.flatnonzero(high[1:] == high[:-1])  # neighbours the index bits alone put in order
@@ -535,7 +554,7 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     def pair(_: Any) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
         """The pairs by mass, and whether each assembled yo-yo's gap and unbalance are within their limits."""
         pa, pb = pair_by_mass(half["mass_g"], pair_window_g, slides)
-        formed_gap = half["bearing_width_mm"][pa] - half["wall_offset_mm"][pa] - half["wall_offset_mm"][pb]
+        formed_gap = (half["bearing_width_mm"] - half["wall_offset_mm"])[pa] - half["wall_offset_mm"][pb]
         formed_unbalance = np.hypot(half["unbalance_x_g_mm"][pa] + half["unbalance_x_g_mm"][pb],
                                     half["unbalance_y_g_mm"][pa] + half["unbalance_y_g_mm"][pb])
         return pa, pb, (np.abs(formed_gap - v["bearing_seat.gap"]) <= gap_tol) & (formed_unbalance <= u_per)
@@ -547,6 +566,7 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
     try:
         linear = _linearisation_error(design, dims, sample_dev, unit0, sens)
         random_pairs = _assembled(half, even, slice(1, units, 2), parts_g, parts_izz)
+        distributions = _distributions(half, random_pairs)
     finally:
         (pa, pb, pair_good), = pairing.join()
     target = v["envelope.target_mass"]
@@ -557,7 +577,7 @@ def run_lot(design: Design, *, units: int = DEFAULT_UNITS, seed: int = DEFAULT_S
         gap_tolerance_basis=gap_basis, gap_rss_mm=resolved.features["bearing_seat"].extra["gap_stack"].rss_mm,
         permissible_unbalance_g_mm=u_per, nominal_total_g=nominal.assembly.total_g,
         bands=tuple(dims) + other, skipped=skipped, half={**half, "slides": slides}, random_pairs=random_pairs,
-        pairs=(pa, pb), pair_good=pair_good, linearisation=linear)
+        pairs=(pa, pb), pair_good=pair_good, linearisation=linear, distributions=distributions)
 
 
 def _assembled(half: Mapping[str, np.ndarray], a: np.ndarray | slice, b: np.ndarray | slice, parts_g: float,
@@ -602,6 +622,18 @@ def _stats(x: np.ndarray) -> dict[str, float]:
             "p99": float(p99)}
 
 
+def _distributions(half: Mapping[str, np.ndarray], random_pairs: Mapping[str, np.ndarray]) -> dict[str, Any]:
+    """Mean, sd, 1st and 99th percentile of each distribution the summary gives (the unbalance's mean and 99th
+    percentile alone), keyed ``half.NAME`` and ``pairs.NAME`` by the arrays they are of."""
+    out: dict[str, Any] = {f"half.{k}": _stats(half[k])
+                           for k in ("post_clearance_mm", "wall_clearance_mm", "mass_g", "izz_g_mm2")}
+    out.update({f"pairs.{k}": _stats(random_pairs[k]) for k in ("gap_mm", "mass_g", "izz_g_mm2")})
+    u = random_pairs["unbalance_g_mm"]
+    out["pairs.unbalance_g_mm"] = {"mean": float(u.mean()) if len(u) else None,
+                                   "p99": percentiles(u, [99])[0] if len(u) else None}
+    return out
+
+
 def _share(mask: np.ndarray) -> float:
     return float(mask.mean()) if len(mask) else 0.0
 
@@ -609,6 +641,7 @@ def _share(mask: np.ndarray) -> float:
 def lot_summary(r: LotResult) -> dict[str, Any]:
     """The ``lot --json`` object (see the README for every key)."""
     h, rp = r.half, r.random_pairs
+    d = r.distributions or _distributions(h, rp)
     post_bad = h["post_clearance_mm"] < 0
     wall_bad = h["wall_clearance_mm"] < 0
     gap_out = np.abs(rp["gap_mm"] - r.gap_nominal_mm) > r.gap_tolerance_mm
@@ -621,24 +654,22 @@ def lot_summary(r: LotResult) -> dict[str, Any]:
         "no_slide_share": _share(post_bad | wall_bad),
         "no_slide_post_share": _share(post_bad),
         "no_slide_wall_share": _share(wall_bad),
-        "post_clearance_um": {k: (None if x is None else x * 1000) for k, x in _stats(h["post_clearance_mm"]).items()},
-        "wall_clearance_um": {k: (None if x is None else x * 1000) for k, x in _stats(h["wall_clearance_mm"]).items()},
-        "gap_mm": {**_stats(rp["gap_mm"]), "nominal": r.gap_nominal_mm, "tolerance": r.gap_tolerance_mm,
+        "post_clearance_um": {k: (None if x is None else x * 1000) for k, x in d["half.post_clearance_mm"].items()},
+        "wall_clearance_um": {k: (None if x is None else x * 1000) for k, x in d["half.wall_clearance_mm"].items()},
+        "gap_mm": {**d["pairs.gap_mm"], "nominal": r.gap_nominal_mm, "tolerance": r.gap_tolerance_mm,
                    "tolerance_basis": r.gap_tolerance_basis, "rss_min": r.gap_rss_mm[0], "rss_max": r.gap_rss_mm[1]},
         "gap_out_share": _share(gap_out),
-        "half_mass_g": _stats(h["mass_g"]),
-        "half_izz_g_mm2": _stats(h["izz_g_mm2"]),
-        "mass_g": {**_stats(rp["mass_g"]), "nominal": r.nominal_total_g, "target": r.target_mass_g,
+        "half_mass_g": d["half.mass_g"],
+        "half_izz_g_mm2": d["half.izz_g_mm2"],
+        "mass_g": {**d["pairs.mass_g"], "nominal": r.nominal_total_g, "target": r.target_mass_g,
                    "target_is_nominal": r.target_is_nominal, "window": r.mass_window_g},
         "mass_in_window_share": _share(np.abs(rp["mass_g"] - r.target_mass_g) <= r.mass_window_g),
-        "izz_g_mm2": _stats(rp["izz_g_mm2"]),
+        "izz_g_mm2": d["pairs.izz_g_mm2"],
         "pair_window_g": r.pair_window_g,
         "pairs": {"formed": int(len(r.pairs[0])), "left": int(r.units - 2 * len(r.pairs[0])),
                   "rejected_halves": int((~h["slides"]).sum())},
         "paired_share": 2 * len(r.pairs[0]) / r.units,
-        "unbalance_g_mm": {"mean": float(rp["unbalance_g_mm"].mean()) if len(rp["unbalance_g_mm"]) else None,
-                           "p99": percentiles(rp["unbalance_g_mm"], [99])[0] if len(rp["unbalance_g_mm"]) else None,
-                           "permissible": r.permissible_unbalance_g_mm},
+        "unbalance_g_mm": {**d["pairs.unbalance_g_mm"], "permissible": r.permissible_unbalance_g_mm},
         "unbalance_over_share": _share(rp["unbalance_g_mm"] > r.permissible_unbalance_g_mm),
         "good_yoyos": good,
         "good_yoyos_per_half": good / r.units,
