@@ -44,6 +44,16 @@ def _ticks(lo: float, hi: float, n: int = 6) -> list[float]:
     return [round(first + i * step, 12) for i in range(int((hi - first) / step + 1e-9) + 1)]
 
 
+def _limit(x: float) -> str:
+    """A limit's value as its label writes it: to 4 decimals at most, without trailing zeros.
+
+    >>> _limit(0.467324), _limit(4.3125), _limit(77.0), _limit(0.0)
+    ('0.4673', '4.3125', '77', '0')
+    """
+    text = f"{x:.4f}".rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text
+
+
 def _range(values: np.ndarray, limits: Sequence[tuple[float, str]]) -> tuple[float, float]:
     """The x range: the values' 0.1 to 99.9 percentiles widened to show every limit."""
     lo, hi = percentiles(values, [0.1, 99.9]) if len(values) else (0.0, 1.0)
@@ -98,6 +108,6 @@ def histogram_svg(title: str, panels: Sequence[Panel]) -> str:
             anchor = ' text-anchor="end"' if right else ""
             # on a white halo, so a label over the bars stays legible
             out.append(f'<text x="{sx(x) + (-3 if right else 3):.2f}" y="{y0 + 12 + 12 * (i % 3)}" fill="#c8102e"'
-                       f' stroke="white" stroke-width="3" paint-order="stroke"{anchor}>{escape(label)} {x:.6g}</text>')
+                       f' stroke="white" stroke-width="3" paint-order="stroke"{anchor}>{escape(label)} {_limit(x)}</text>')
     out.append("</svg>")
     return "\n".join(out) + "\n"
