@@ -433,6 +433,21 @@ def test_no_text_collides_on_valid_corpus_designs(name, edits, tmp_path):
         _check_sheet(render_files(r, "x")["x.dxf"])
 
 
+def test_a_radius_arrowhead_stays_clear_of_a_placed_text(tmp_path):
+    # a sketched cup whose lip radius's leader comes in past the cup-corner radius's value: the leader's line
+    # cleared the text but its arrowhead, 0.8 mm to each side of it, touched the "R0.3" (found by fuzzing the
+    # sketch's points; the same holds for an angle's arrowheads)
+    text = (ROOT / "tests" / "corpus" / "valid" / "sketch-curved-cup.toml").read_text(encoding="utf-8")
+    for old, new in (('r = "11.5 mm"', 'r = "10.943 mm"'), ('r = "-5 mm"', 'r = "-3.864 mm"')):
+        assert text.count(old) == 1, old
+        text = text.replace(old, new)
+    path = tmp_path / "design.toml"
+    path.write_text(text, encoding="utf-8")
+    r = build(load(path))
+    assert r.ok
+    _check_sheet(render_files(r, "x")["x.dxf"])
+
+
 def test_percent_codes_stay_literal(tmp_path):
     design = _edited(tmp_path, EDGES["percent codes in the title"])
     doc, _ = _read(render_files(build(load(design)), "x")["x.dxf"])

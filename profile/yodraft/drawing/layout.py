@@ -648,8 +648,10 @@ class Placer:
                     if self.solid(mid) or self.solid(knee):
                         continue
                     start = (tip[0] + 0.2 * math.cos(a), tip[1] + 0.2 * math.sin(a))
-                    if self._ok(texts, lines, [shoulder, leader], [(start, knee), shoulder]):
-                        arrow = _arrow(tip, knee, "dimension", v.name)
+                    arrow = _arrow(tip, knee, "dimension", v.name)
+                    # the arrowhead as wide as it is drawn clear of every text, as well as its leader
+                    if (self._ok(texts, lines, [shoulder, leader], [(start, knee), shoulder])
+                            and not self.obstacles.crosses_text(_edges([arrow]))):
                         strokes = [Stroke(s, "dimension", v.name) for s in lines]
                         dim = Dimension(req, tuple(strokes + [arrow] + texts), knee, texts[0].at,
                                         " / ".join(t.text for t in texts), v.name, lower)
@@ -703,9 +705,9 @@ class Placer:
                     baseline = cy - depth / 2 + self.font.descender * h
                     texts = self._text_items(lines_txt, _Frame(False), cx - w / 2, baseline, v.name)
                     lines = arc_segs + ext
-                    if self._ok(texts, lines, ext, arc_segs):
-                        arrows = [_arrow(arc_pts[0], arc_pts[1], "dimension", v.name),
-                                  _arrow(arc_pts[-1], arc_pts[-2], "dimension", v.name)]
+                    arrows = [_arrow(arc_pts[0], arc_pts[1], "dimension", v.name),
+                              _arrow(arc_pts[-1], arc_pts[-2], "dimension", v.name)]
+                    if self._ok(texts, lines, ext, arc_segs) and not self.obstacles.crosses_text(_edges(arrows)):
                         bulge = math.tan(sweep / 4)
                         arc = Stroke((arc_pts[0], arc_pts[-1]), "dimension", v.name, bulges=(bulge,))
                         strokes = [arc] + [Stroke(s, "dimension", v.name) for s in ext]
