@@ -433,12 +433,20 @@ def test_no_text_collides_on_valid_corpus_designs(name, edits, tmp_path):
         _check_sheet(render_files(r, "x")["x.dxf"])
 
 
-def test_a_radius_arrowhead_stays_clear_of_a_placed_text(tmp_path):
-    # a sketched cup whose lip radius's leader comes in past the cup-corner radius's value: the leader's line
-    # cleared the text but its arrowhead, 0.8 mm to each side of it, touched the "R0.3" (found by fuzzing the
-    # sketch's points; the same holds for an angle's arrowheads)
-    text = (ROOT / "tests" / "corpus" / "valid" / "sketch-curved-cup.toml").read_text(encoding="utf-8")
-    for old, new in (('r = "11.5 mm"', 'r = "10.943 mm"'), ('r = "-5 mm"', 'r = "-3.864 mm"')):
+@pytest.mark.parametrize("corpus,edits", [
+    # a lip radius's leader comes in past the cup corner's "R0.3": its line cleared the text, its arrowhead
+    # (0.8 mm to each side of the line) touched it
+    ("sketch-curved-cup", (('r = "11.5 mm"', 'r = "10.943 mm"'), ('r = "-5 mm"', 'r = "-3.864 mm"'))),
+    # the hub side's "R6" sat on its own leader's shoulder right over its own arrowhead
+    ("sketch-hub-fillet", (('r = "11.5 mm"', 'r = "9.947 mm"'), ('z = "-9 mm"', 'z = "-7.207 mm"'),
+                           ('radius = "1.5 mm"\n\n[[features.shape.points]]   # 7',
+                            'radius = "3.113 mm"\n\n[[features.shape.points]]   # 7'))),
+])
+def test_a_radius_arrowhead_stays_clear_of_every_text(tmp_path, corpus, edits):
+    # sketches found by fuzzing their points; a radius's or an angle's arrowheads, as wide as they are drawn,
+    # must clear every placed text and their own
+    text = (ROOT / "tests" / "corpus" / "valid" / f"{corpus}.toml").read_text(encoding="utf-8")
+    for old, new in edits:
         assert text.count(old) == 1, old
         text = text.replace(old, new)
     path = tmp_path / "design.toml"

@@ -377,6 +377,14 @@ class Placer:
             return False
         return not any(ob.crosses_outline(a, b) for a, b in along)
 
+    def _arrows_clear(self, arrows: list[Fill], texts: list[Text]) -> bool:
+        """Arrowheads, as wide as they are drawn, touch no placed text and none of their own dimension's."""
+        edges = _edges(arrows)
+        if self.obstacles.crosses_text(edges):
+            return False
+        boxes = [inflate(text_box(t), CLEAR) for t in texts]
+        return not any(segment_hits_box(a, c, b) for a, c in edges for b in boxes)
+
     def _clear(self, texts: list[Text]) -> bool:
         return self._clear_boxes([text_box(t) for t in texts])
 
@@ -651,7 +659,7 @@ class Placer:
                     arrow = _arrow(tip, knee, "dimension", v.name)
                     # the arrowhead as wide as it is drawn clear of every text, as well as its leader
                     if (self._ok(texts, lines, [shoulder, leader], [(start, knee), shoulder])
-                            and not self.obstacles.crosses_text(_edges([arrow]))):
+                            and self._arrows_clear([arrow], texts)):
                         strokes = [Stroke(s, "dimension", v.name) for s in lines]
                         dim = Dimension(req, tuple(strokes + [arrow] + texts), knee, texts[0].at,
                                         " / ".join(t.text for t in texts), v.name, lower)
@@ -707,7 +715,7 @@ class Placer:
                     lines = arc_segs + ext
                     arrows = [_arrow(arc_pts[0], arc_pts[1], "dimension", v.name),
                               _arrow(arc_pts[-1], arc_pts[-2], "dimension", v.name)]
-                    if self._ok(texts, lines, ext, arc_segs) and not self.obstacles.crosses_text(_edges(arrows)):
+                    if self._ok(texts, lines, ext, arc_segs) and self._arrows_clear(arrows, texts):
                         bulge = math.tan(sweep / 4)
                         arc = Stroke((arc_pts[0], arc_pts[-1]), "dimension", v.name, bulges=(bulge,))
                         strokes = [arc] + [Stroke(s, "dimension", v.name) for s in ext]
