@@ -57,8 +57,9 @@ EDGES = {
 }
 
 
-def _edited(tmp_path: Path, edits) -> Path:  # type: ignore[no-untyped-def]
-    text = TEMPLATE.read_text(encoding="utf-8")
+def _edited(tmp_path: Path, edits, source: Path = TEMPLATE) -> Path:  # type: ignore[no-untyped-def]
+    """``source`` (the starter design) with ``edits`` (each old text found once), written to a new file."""
+    text = source.read_text(encoding="utf-8")
     for old, new in edits:
         assert text.count(old) == 1, old
         text = text.replace(old, new)
@@ -445,13 +446,7 @@ def test_no_text_collides_on_valid_corpus_designs(name, edits, tmp_path):
 def test_a_radius_arrowhead_stays_clear_of_every_text(tmp_path, corpus, edits):
     # sketches found by fuzzing their points; a radius's or an angle's arrowheads, as wide as they are drawn,
     # must clear every placed text and their own
-    text = (ROOT / "tests" / "corpus" / "valid" / f"{corpus}.toml").read_text(encoding="utf-8")
-    for old, new in edits:
-        assert text.count(old) == 1, old
-        text = text.replace(old, new)
-    path = tmp_path / "design.toml"
-    path.write_text(text, encoding="utf-8")
-    r = build(load(path))
+    r = build(load(_edited(tmp_path, edits, ROOT / "tests" / "corpus" / "valid" / f"{corpus}.toml")))
     assert r.ok
     _check_sheet(render_files(r, "x")["x.dxf"])
 
@@ -588,13 +583,7 @@ SPACING_WAIVED = {"a radius with no room on its half"}
 
 def _built_template(template: str, edits, tmp_path: Path):  # type: ignore[no-untyped-def]
     """A starter design with ``edits`` (each old text found once) built; it must pass its checks."""
-    text = (ROOT / "templates" / f"{template}.toml").read_text(encoding="utf-8")
-    for old, new in edits:
-        assert text.count(old) == 1, old
-        text = text.replace(old, new)
-    path = tmp_path / "design.toml"
-    path.write_text(text, encoding="utf-8")
-    resolved = build(load(path))
+    resolved = build(load(_edited(tmp_path, edits, ROOT / "templates" / f"{template}.toml")))
     assert resolved.ok, resolved.failed
     return resolved
 
