@@ -149,3 +149,16 @@ def test_a_ring_with_a_small_bore_is_bought_as_bar() -> None:
     s = part_stock(small, shop, 1.0, tube=True)  # Ø6 bore − 2 mm = 4 mm: below 5 mm
     assert s.bore_mm is None and s.bar_diameter_mm == 25.0  # Ø20 + 2 → next stocked 25
     assert s.mass_g == pytest.approx(math.pi / 4 * 25.0**2 * 8.0 * 8.5 / 1000, rel=1e-12)
+
+
+def test_a_half_above_every_stocked_bar_names_the_least_diameter_it_needs() -> None:
+    # a Ø170 half (above the largest stocked Ø160 bar) with the 2 mm turning allowance needs a bar of Ø172 or more
+    from yodraft.bom import _bar, part_stock
+    from yodraft.geometry import Profile
+    from yodraft.parts import Part
+
+    shop = {"stock_turning_allowance": 2.0, "stock_facing_allowance": 1.0, "stock_parting_allowance": 3.0}
+    wide = Part("body", "6061-T6", 2.7, Profile.from_points([(0, 0), (20, 0), (20, 85), (0, 85)]))
+    s = part_stock(wide, shop, 1.0)
+    assert s.bar_diameter_mm is None and s.mass_g is None and max(BAR_DIAMETERS_MM) < 172.0
+    assert _bar(s) == "Ø172.0 mm or more (above the stocked sizes held)"

@@ -69,6 +69,8 @@ class Stock:
     mass_g: float | None
     kept_g: float
     bore_mm: float | None = None
+    #: the least bar diameter the part needs: its outer diameter plus the turning allowance
+    least_mm: float = 0.0
 
 
 @dataclass(frozen=True)
@@ -127,7 +129,7 @@ def part_stock(part: Part, shop: Mapping[str, Any], kept_g: float, tube: bool = 
     bore_mm = bore if bore >= LEAST_TUBE_BORE_MM else None
     mass = (None if diameter is None else
             math.pi / 4 * (diameter**2 - (bore_mm or 0.0) ** 2) * length * part.density_g_cm3 / 1000)
-    return Stock(part.material, diameter, length, mass, kept_g, bore_mm)
+    return Stock(part.material, diameter, length, mass, kept_g, bore_mm, 2 * r_max + allowance)
 
 
 def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_halves: int = SCRAP_LOT_HALVES,
@@ -150,7 +152,7 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
     halves = math.ceil(units / good_per_half - 1e-9) if good_per_half > 0 else None
     pad = resolved.features["pad_groove"].extra["pad"]
     shown = "—" if halves is None else str(halves)
-    bar = _bar(stock, resolved.parts[0])
+    bar = _bar(stock)
     items = [
         BomItem("half", halves or 0,
                 f"{stock.material} half turned from {bar} bar, {stock.length_mm:.1f} mm a half; {shown} halves for "
@@ -174,17 +176,17 @@ def bill_of_materials(resolved: Resolved, units: int = DEFAULT_UNITS, *, lot_hal
     ]
     if halves is not None:
         items.append(BomItem("bar stock", halves, _bar_line(stock, bar, halves, "")))
-        for part, (name, part_bar) in zip(resolved.parts[1:], part_stocks):
+        for name, part_bar in part_stocks:
             items.append(BomItem(f"{name} stock", halves,
-                                 _bar_line(part_bar, _bar(part_bar, part), halves, f" for the {name}s")))
+                                 _bar_line(part_bar, _bar(part_bar), halves, f" for the {name}s")))
     return Bom(units, tuple(items), stock, axle, part_stocks, halves, good_per_half, lot_halves, lot_seed)
 
 
-def _bar(stock: Stock, part: Part) -> str:
-    """The bar's diameter as ordered, or what it must be when it is above every stocked size."""
+def _bar(stock: Stock) -> str:
+    """The bar's diameter as ordered, or the least it must be when that is above every stocked size."""
     if stock.bar_diameter_mm is not None:
         return f"Ø{stock.bar_diameter_mm:g} mm"
-    return f"Ø{2 * part.profile.bounds()[3]:.1f} mm or more (above the stocked sizes held)"
+    return f"Ø{stock.least_mm:.1f} mm or more (above the stocked sizes held)"
 
 
 def _bar_line(stock: Stock, bar: str, pieces: int, what: str) -> str:
