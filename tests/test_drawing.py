@@ -451,6 +451,27 @@ def test_a_radius_arrowhead_stays_clear_of_every_text(tmp_path, corpus, edits):
     _check_sheet(render_files(r, "x")["x.dxf"])
 
 
+def test_a_crowded_section_stays_at_full_size_and_names_the_size_it_leaves_off(tmp_path):
+    # two points sketched into the cup wall (found by fuzzing the sketch): a step and a convex arc too close to
+    # the lip to dimension at any scale. The sheet stays readable at full size or larger (a reduction is for a
+    # part too big for the paper, not for a crowded one) and the size with no room is named with its value in a
+    # note, never dropped unsaid (it was drawn at 1:5 on A2, a radius missing without a word)
+    wall = '[[features.shape.points]]   # 5: the floor cones in to the hub'
+    extra = ('[[features.shape.points]]\nz_from = "outer face"\nz = "-7.953 mm"\nr_from = "outer diameter"\n'
+             'r = "-3.205 mm"\n\n[[features.shape.points]]\nz_from = "outer face"\nz = "-10.858 mm"\n'
+             'r_from = "outer diameter"\nr = "-4.556 mm"\nradius = "0.419 mm"\narc = "convex"\n'
+             'arc_radius = "33.3 mm"\n\n')
+    r = build(load(_edited(tmp_path, [(wall, extra + wall)], ROOT / "templates" / "sketched.toml")))
+    assert r.ok
+    data = render_files(r, "x")["x.dxf"]
+    _check_sheet(data)
+    doc, _ = _read(data)
+    texts = [t.plain_text() for t in doc.paperspace("sheet").query("TEXT")]
+    assert any(t.startswith("SECTION (2:1)") or t.startswith("SECTION (5:1)") for t in texts), texts
+    assert "Not drawn for want of room" in texts
+    assert any("R33.3 (shape.points[6].arc_radius)" in t for t in texts), texts
+
+
 def test_percent_codes_stay_literal(tmp_path):
     design = _edited(tmp_path, EDGES["percent codes in the title"])
     doc, _ = _read(render_files(build(load(design)), "x")["x.dxf"])

@@ -19,7 +19,9 @@ from .clip import clip_segments
 from .layout import CLEAR, EXT_MIN_GAP, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, sheet_number, shop_lines
-from .requests import DATUM_A_KEY, datum_face_z, detail_region, detail_requests, section_requests
+from .requests import (DATUM_A_KEY, DimensionRequest, datum_face_z, detail_region, detail_requests, format_value,
+                       measure, section_requests)
+from .requests import label as dimension_text
 from .sheetdata import (Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View, segments_of, text_box,
                         translate)
 
@@ -249,8 +251,10 @@ def _obstacles(items: list[Item], outline: list[Item]) -> Obstacles:
 
 #: how much a view may give up to fit: everything drawn; an auxiliary dimension left out (it follows from
 #: the others); and, a last resort better than a size left off, ISO 128-2's 0.7 mm between parallel extension
-#: lines waived for a size that finds no room otherwise, its lanes sought half as far out again
-ALL, WITHOUT_AUXILIARY, SPACING_WAIVED = 0, 1, 2
+#: lines waived for a size that finds no room otherwise, its lanes sought half as far out again; and, when no
+#: paper at full size or larger takes every size, the sizes that find no room left off at full size or larger
+#: and named in a note (a reduction is for a part too big for the paper, not for a crowded one)
+ALL, WITHOUT_AUXILIARY, SPACING_WAIVED, SIZES_LEFT_OFF = 0, 1, 2, 3
 
 
 def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData,
@@ -739,8 +743,13 @@ def compose(resolved: Resolved, data: SheetData) -> Sheet:
                 return _compose(resolved, data, font, paper, scale, views=views, level=level)
             except SheetTooSmall as exc:
                 last = exc
+    for paper, scale in full:  # a crowded part: readable, the sizes with no room named in a note
+        try:
+            return _compose(resolved, data, font, paper, scale, views=views, level=SIZES_LEFT_OFF)
+        except SheetTooSmall as exc:
+            last = exc
     assert last is not None
-    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, level=SPACING_WAIVED)
+    return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, level=SIZES_LEFT_OFF)
 
 
 def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
@@ -767,7 +776,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     main, mview, failed = views["main", scale, waive]
     if level >= WITHOUT_AUXILIARY:  # the same view, its auxiliary dimensions that found no room left out
         failed = [r for r in failed if not r.auxiliary]
-    if failed and not force:
+    if failed and not force and level < SIZES_LEFT_OFF:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
     reach = max(0.0, (font.width(label, TEXT_HEIGHT) - (main.box[2] - main.box[0])) / 2)  # a label wider than the view
@@ -790,7 +799,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     for i, dscale in enumerate(scales):
         try:
             return _right_side(resolved, data, font, paper_name, paper, frame, scale, dscale, main, mview, label_y,
-                               right_x, views, force)
+                               right_x, views, force, failed if level >= SIZES_LEFT_OFF else [])
         except SheetTooSmall:
             if i == len(scales) - 1:
                 raise
@@ -799,8 +808,10 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
 
 def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, paper, frame,  # type: ignore[no-untyped-def]
                 scale: float, dscale: float, main: "_Group", mview: View, label_y: float, right_x: float,
-                views: dict, force: bool) -> Sheet:
-    """The detail, revisions, cautions, notes and title block right of the main view."""
+                views: dict, force: bool, left_off: list = ()) -> Sheet:  # type: ignore[assignment]
+    """The detail, revisions, cautions, notes and title block right of the main view; ``left_off`` are the
+    section's sizes that found no room (``SIZES_LEFT_OFF``), named in a note with their values, as are any of
+    the detail's."""
     if ("detail", dscale) not in views:
         views["detail", dscale] = _detail(resolved, dscale, font, data)
     detail, dview, dfailed = views["detail", dscale]
@@ -832,7 +843,11 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
     # block in the corner
     title_top = frame[1] + 4 * ROW
     note_lines: list[str] = []
-    for heading, lines in numbered([("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]):
+    sections = [("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]
+    left = list(left_off) + [r for r in dfailed if not r.auxiliary]  # the detail's too
+    if left:
+        sections.append(("Not drawn for want of room", [_left_off_line(r) for r in left]))
+    for heading, lines in numbered(sections):
         note_lines += [heading] + lines
     # the notes fill the room under the cautions, then go on under the detail (left of the title block
     # when the detail stands clear of it)
@@ -848,9 +863,15 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
     scales = f"{scale_text(scale)}, detail C {scale_text(dscale)}"
     items += _title_block(font, resolved, data, scales, (frame[2] - TITLE_WIDTH, frame[1]))
     items += _frame(paper, frame)
-    del dfailed
     return Sheet(paper, frame, tuple(items), (mview, dview), notes={"paper": paper_name, "scale": scale,
                                                                      "detail_scale": dscale})
+
+
+def _left_off_line(req: DimensionRequest) -> str:
+    """A size the section has no room for, as its dimension would read, with the design keys it shows."""
+    shown = " ".join(req.tolerance.split("\n")[1:])
+    text = dimension_text(req, format_value(measure(req), req.decimals))
+    return f"{text}{' ' + shown if shown else ''} ({', '.join(req.keys)})"
 
 
 def _frame(paper: tuple[float, float], frame) -> list[Item]:  # type: ignore[no-untyped-def]
