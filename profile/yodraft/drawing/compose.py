@@ -9,6 +9,7 @@ the lower right corner (ISO 5457 frame, ISO 7200 title block).
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from dataclasses import dataclass
 
 import shapely
@@ -808,7 +809,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
 
 def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, paper, frame,  # type: ignore[no-untyped-def]
                 scale: float, dscale: float, main: "_Group", mview: View, label_y: float, right_x: float,
-                views: dict, force: bool, left_off: list = ()) -> Sheet:  # type: ignore[assignment]
+                views: dict, force: bool, left_off: Sequence[DimensionRequest] = ()) -> Sheet:
     """The detail, revisions, cautions, notes and title block right of the main view; ``left_off`` are the
     section's sizes that found no room (``SIZES_LEFT_OFF``), named in a note with their values, as are any of
     the detail's."""
@@ -868,7 +869,7 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
 
 
 def _left_off_line(req: DimensionRequest) -> str:
-    """A size the section has no room for, as its dimension would read, with the design keys it shows."""
+    """A size the sheet has no room for, as its dimension would read, with the design keys it shows."""
     shown = " ".join(req.tolerance.split("\n")[1:])
     text = dimension_text(req, format_value(measure(req), req.decimals))
     return f"{text}{' ' + shown if shown else ''} ({', '.join(req.keys)})"
