@@ -20,9 +20,8 @@ from .clip import clip_segments
 from .layout import CLEAR, EXT_MIN_GAP, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, sheet_number, shop_lines
-from .requests import (DATUM_A_KEY, DimensionRequest, datum_face_z, detail_region, detail_requests, format_value,
-                       measure, section_requests)
-from .requests import label as dimension_text
+from .requests import (DATUM_A_KEY, DimensionRequest, datum_face_z, detail_region, detail_requests, section_requests,
+                       text_lines)
 from .sheetdata import (Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View, segments_of, text_box,
                         translate)
 
@@ -870,9 +869,7 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
 
 def _left_off_line(req: DimensionRequest) -> str:
     """A size the sheet has no room for, as its dimension would read, with the design keys it shows."""
-    shown = " ".join(req.tolerance.split("\n")[1:])
-    text = dimension_text(req, format_value(measure(req), req.decimals))
-    return f"{text}{' ' + shown if shown else ''} ({', '.join(req.keys)})"
+    return f"{' '.join(text_lines(req))} ({', '.join(req.keys)})"
 
 
 def _frame(paper: tuple[float, float], frame) -> list[Item]:  # type: ignore[no-untyped-def]

@@ -17,7 +17,7 @@ from dataclasses import dataclass, field
 from typing import Callable, Iterable, NamedTuple
 
 from .lettering import PITCH, Lettering
-from .requests import DimensionRequest, format_value, label, measure
+from .requests import DimensionRequest, measure, text_lines
 from .sheetdata import P, Dimension, Fill, Item, Stroke, Text, View, box_of, segments_of, text_box
 
 __all__ = ["Obstacles", "Placer", "TEXT_HEIGHT", "CLEAR", "ARROW", "EXT_MIN_GAP", "inflate", "boxes_overlap",
@@ -324,12 +324,6 @@ class Placer:
     failed: list[DimensionRequest] = field(default_factory=list)
 
     # ---------------------------------------------------------------- texts
-    def _lines(self, req: DimensionRequest) -> list[str]:
-        value = format_value(measure(req), req.decimals)
-        first = label(req, value)
-        rest = req.tolerance.split("\n")[1:]
-        return [first] + [f"({r})" if req.auxiliary else r for r in rest]
-
     def _stack(self, lines: list[str]) -> list[tuple[str, float, float, float]]:
         """(line, its offset along the dimension line, across it, its width) of lines stacked away from the
         dimension line, each centred on the widest."""
@@ -376,14 +370,6 @@ class Placer:
         if ob.ext_too_close(ext) or ob.dimline_too_close(along_dim):
             return False
         return not any(ob.crosses_outline(a, b) for a, b in along)
-
-    def _arrows_clear(self, arrows: list[Fill], texts: list[Text]) -> bool:
-        """Arrowheads, as wide as they are drawn, touch no placed text and none of their own dimension's."""
-        edges = _edges(arrows)
-        if self.obstacles.crosses_text(edges):
-            return False
-        boxes = [inflate(text_box(t), CLEAR) for t in texts]
-        return not any(segment_hits_box(a, c, b) for a, c in edges for b in boxes)
 
     def _clear(self, texts: list[Text]) -> bool:
         return self._clear_boxes([text_box(t) for t in texts])
@@ -516,7 +502,7 @@ class Placer:
         vertical = half or req.direction == "radial"
         fr = _Frame(vertical)
         lanes = list(self._lanes(req, vertical))
-        lines_txt = self._lines(req)
+        lines_txt = text_lines(req)
         w, _ = self._block(lines_txt)
         ob = self.obstacles
         points = {}
@@ -625,7 +611,7 @@ class Placer:
         if len(req.points) == 4:  # the arc's ends: the leader may leave anywhere along it, radially
             a0 = math.atan2(flip(req.points[2])[1] - flip(req.points[0])[1], flip(req.points[2])[0] - flip(req.points[0])[0])
             sweep = abs(((a_mid - a0 + math.pi) % (2 * math.pi)) - math.pi) * 2
-        lines_txt = self._lines(req)
+        lines_txt = text_lines(req)
         w, _ = self._block(lines_txt)
         spots = []  # (point on the arc, leader direction): radial first (ISO 129-1), off-radial last
         for frac in (0.0, -0.2, 0.2, -0.35, 0.35, -0.45, 0.45):
@@ -657,9 +643,8 @@ class Placer:
                         continue
                     start = (tip[0] + 0.2 * math.cos(a), tip[1] + 0.2 * math.sin(a))
                     arrow = _arrow(tip, knee, "dimension", v.name)
-                    # the arrowhead as wide as it is drawn clear of every text, as well as its leader
-                    if (self._ok(texts, lines, [shoulder, leader], [(start, knee), shoulder])
-                            and self._arrows_clear([arrow], texts)):
+                    # the arrowhead's edges, as wide as it is drawn, clear of every text as well as its leader
+                    if self._ok(texts, lines + _edges([arrow]), [shoulder, leader], [(start, knee), shoulder]):
                         strokes = [Stroke(s, "dimension", v.name) for s in lines]
                         dim = Dimension(req, tuple(strokes + [arrow] + texts), knee, texts[0].at,
                                         " / ".join(t.text for t in texts), v.name, lower)
@@ -683,7 +668,7 @@ class Placer:
         # the angle runs counter-clockwise from the edge to the plane as given; its mirror image the other way
         a_start, sweep = (a2, (a1 - a2) % (2 * math.pi)) if lower else (a1, (a2 - a1) % (2 * math.pi))
         edge1 = math.dist(o, p1)  # the first ray is an edge of the part this long; the second is a plane
-        lines_txt = self._lines(req)
+        lines_txt = text_lines(req)
         w, depth = self._block(lines_txt)
         h = TEXT_HEIGHT
         for rho in (0.55 * edge1, 0.7 * edge1, 0.4 * edge1, 0.85 * edge1, 14.0, 18.0, 22.0, 27.0, 33.0, 40.0, 10.0,
@@ -715,7 +700,7 @@ class Placer:
                     lines = arc_segs + ext
                     arrows = [_arrow(arc_pts[0], arc_pts[1], "dimension", v.name),
                               _arrow(arc_pts[-1], arc_pts[-2], "dimension", v.name)]
-                    if self._ok(texts, lines, ext, arc_segs) and self._arrows_clear(arrows, texts):
+                    if self._ok(texts, lines + _edges(arrows), ext, arc_segs):
                         bulge = math.tan(sweep / 4)
                         arc = Stroke((arc_pts[0], arc_pts[-1]), "dimension", v.name, bulges=(bulge,))
                         strokes = [arc] + [Stroke(s, "dimension", v.name) for s in ext]

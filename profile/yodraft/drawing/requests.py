@@ -21,8 +21,8 @@ from .locate import LocateError, Outline, on_face, on_radius, outline_of
 from .locate import corner as _vertex_or_corner
 from .numbers import size_text, tolerance_text
 
-__all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "section_requests",
-           "detail_requests", "sheet_requests", "unspecified_radii", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+__all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "text_lines",
+           "section_requests", "detail_requests", "sheet_requests", "unspecified_radii", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
 
 DIA = "Ø"
 DATUM_A_KEY = "bearing_seat.post_diameter"  # the dimension whose feature is datum A: the bearing seat's axis
@@ -116,6 +116,14 @@ def label(req: DimensionRequest, value: str) -> str:
     tol = req.tolerance.split("\n")[0]
     body = f"{body} {tol}" if tol else body
     return f"({body})" if req.auxiliary else body
+
+
+def text_lines(req: DimensionRequest) -> list[str]:
+    """The dimension's text as drawn: the measured value with its first tolerance line, then any further
+    tolerance lines (in parentheses for an auxiliary dimension)."""
+    first = label(req, format_value(measure(req), req.decimals))
+    rest = req.tolerance.split("\n")[1:]
+    return [first] + [f"({r})" if req.auxiliary else r for r in rest]
 
 
 def corner(profile: Profile, point: Point) -> Point:
