@@ -88,7 +88,7 @@ def _tags(dim) -> list[str]:  # type: ignore[no-untyped-def]
 
 def _dims(doc):  # type: ignore[no-untyped-def]
     out: dict[str, list] = {}
-    for layout in (doc.modelspace(), doc.blocks.get("seat-detail")):
+    for layout in [doc.modelspace()] + [doc.blocks.get(n) for n in ("seat-detail", "detail-e") if n in doc.blocks]:
         for dim in layout.query("DIMENSION"):
             for key in _tags(dim):
                 out.setdefault(key, []).append(dim)
@@ -229,29 +229,30 @@ def test_two_builds_give_identical_bytes(resolved, files):
 
 
 # ------------------------------------------------------------------ the sheet as ezdxf sees it
-def _detail_insert(doc):  # type: ignore[no-untyped-def]
-    """The one enlarged detail on the sheet: the block inserted in paper space (the half's seat, the ring's section)."""
-    (ins,) = doc.paperspace("sheet").query("INSERT")
-    assert ins.dxf.name in ("seat-detail", "ring-detail")
-    return ins
+def _detail_inserts(doc):  # type: ignore[no-untyped-def]
+    """The enlarged details on the sheet: the blocks inserted in paper space, the half's seat (or the ring's
+    section) first, then a crowded section's detail E when there is one."""
+    inserts = list(doc.paperspace("sheet").query("INSERT"))
+    assert [i.dxf.name for i in inserts] in (["seat-detail"], ["ring-detail"], ["seat-detail", "detail-e"]), inserts
+    return inserts
 
 
-def _scales(doc) -> tuple[float, float]:  # type: ignore[no-untyped-def]
+def _scales(doc) -> tuple[float, ...]:  # type: ignore[no-untyped-def]
+    """The main view's scale, then each detail's."""
     psp = doc.paperspace("sheet")
     (vp,) = [v for v in psp.query("VIEWPORT") if v.dxf.id != 1]
-    return vp.dxf.height / vp.dxf.view_height, _detail_insert(doc).dxf.xscale
+    return (vp.dxf.height / vp.dxf.view_height,) + tuple(i.dxf.xscale for i in _detail_inserts(doc))
 
 
 def _views(doc):  # type: ignore[no-untyped-def]
-    """(entities, matrix to paper) for paper space, model space through the viewport, the detail through its insert."""
+    """(entities, matrix to paper) for paper space, model space through the viewport, each detail through its insert."""
     psp = doc.paperspace("sheet")
     (vp,) = [v for v in psp.query("VIEWPORT") if v.dxf.id != 1]
     s = vp.dxf.height / vp.dxf.view_height
     c, mc = vp.dxf.center, vp.dxf.view_center_point
     to_paper = Matrix44.scale(s) @ Matrix44.translate(c.x - mc.x * s, c.y - mc.y * s, 0)
-    ins = _detail_insert(doc)
-    return [(list(psp.query("*")), Matrix44()), (list(doc.modelspace()), to_paper),
-            (list(doc.blocks.get(ins.dxf.name)), ins.matrix44())]
+    return [(list(psp.query("*")), Matrix44()), (list(doc.modelspace()), to_paper)] + [
+        (list(doc.blocks.get(ins.dxf.name)), ins.matrix44()) for ins in _detail_inserts(doc)]
 
 
 def _expand(entities, m):  # type: ignore[no-untyped-def]
@@ -356,8 +357,7 @@ def _check_sheet(data: bytes, spacing: bool = True) -> None:
     assert not found, found
     gaps = extension_gaps(doc)
     assert not spacing or not gaps, gaps
-    main, detail = _scales(doc)
-    assert round(main, 9) in ISO_5455 and round(detail, 9) in ISO_5455
+    assert all(round(scale, 9) in ISO_5455 for scale in _scales(doc))
 
 
 @pytest.mark.parametrize("path", TEMPLATES, ids=lambda p: p.stem)
@@ -451,18 +451,44 @@ def test_a_radius_arrowhead_stays_clear_of_every_text(tmp_path, corpus, edits):
     _check_sheet(render_files(r, "x")["x.dxf"])
 
 
-def test_a_crowded_section_stays_at_full_size_and_names_the_size_it_leaves_off(tmp_path):
-    # two points sketched into the cup wall (found by fuzzing the sketch): a step and a convex arc too close to
-    # the lip to dimension at any scale. The sheet stays readable at full size or larger (a reduction is for a
-    # part too big for the paper, not for a crowded one) and the size with no room is named with its value in a
-    # note, never dropped unsaid (it was drawn at 1:5 on A2, a radius missing without a word)
+def _crowded(tmp_path: Path) -> Path:
+    """The sketched template with two points put into its cup wall (found by fuzzing the sketch): a step and
+    a convex arc too close to the lip for the arc's radius to find room on the section at any scale."""
     wall = '[[features.shape.points]]   # 5: the floor cones in to the hub'
     extra = ('[[features.shape.points]]\nz_from = "outer face"\nz = "-7.953 mm"\nr_from = "outer diameter"\n'
              'r = "-3.205 mm"\n\n[[features.shape.points]]\nz_from = "outer face"\nz = "-10.858 mm"\n'
              'r_from = "outer diameter"\nr = "-4.556 mm"\nradius = "0.419 mm"\narc = "convex"\n'
              'arc_radius = "33.3 mm"\n\n')
-    r = build(load(_edited(tmp_path, [(wall, extra + wall)], ROOT / "templates" / "sketched.toml")))
+    return _edited(tmp_path, [(wall, extra + wall)], ROOT / "templates" / "sketched.toml")
+
+
+def test_a_crowded_section_draws_the_size_it_has_no_room_for_on_an_enlarged_detail(tmp_path):
+    # the section stays readable at full size or larger (a reduction is for a part too big for the paper, not
+    # for a crowded one; this one was once drawn at 1:5 on A2, a radius missing without a word), and the
+    # radius with no room on it is drawn on detail E, an enlargement of its region marked on the section
+    # (ISO 128-3: the region framed and lettered, the detail labelled with its letter and scale)
+    r = build(load(_crowded(tmp_path)))
     assert r.ok
+    data = render_files(r, "x")["x.dxf"]
+    _check_sheet(data)
+    doc, _ = _read(data)
+    texts = [t.plain_text() for t in doc.paperspace("sheet").query("TEXT")]
+    assert any(t.startswith("SECTION (2:1)") or t.startswith("SECTION (5:1)") for t in texts), texts
+    assert any(re.fullmatch(r"DETAIL E \((5|10|20):1\)", t) for t in texts), texts
+    assert "Not drawn for want of room" not in texts
+    (radius,) = _dims(doc)["shape.points[6].arc_radius"]
+    assert radius in doc.blocks.get("detail-e").query("DIMENSION")
+    assert radius.get_measurement() == pytest.approx(33.3, abs=1e-6)  # the design's arc radius
+    assert texts.count("E") == 1  # the region's letter on the section
+
+
+def test_a_crowded_section_names_what_no_detail_can_show(tmp_path, monkeypatch):
+    # where not even an enlarged detail finds room for a size, the sheet stays at full size or larger and
+    # names the size with its value and key in a note, never drops it unsaid
+    from yodraft.drawing import compose as sheet_compose
+
+    monkeypatch.setattr(sheet_compose, "_crowd_choices", lambda *args: [])
+    r = build(load(_crowded(tmp_path)))
     data = render_files(r, "x")["x.dxf"]
     _check_sheet(data)
     doc, _ = _read(data)
@@ -470,6 +496,28 @@ def test_a_crowded_section_stays_at_full_size_and_names_the_size_it_leaves_off(t
     assert any(t.startswith("SECTION (2:1)") or t.startswith("SECTION (5:1)") for t in texts), texts
     assert "Not drawn for want of room" in texts
     assert any("R33.3 (shape.points[6].arc_radius)" in t for t in texts), texts
+    assert "detail-e" not in doc.blocks
+
+
+def test_a_crowded_part_is_drawn_at_full_size_not_reduced(tmp_path):
+    # a step and a convex arc sketched into the hub top (found by fuzzing the sketch): the arc's radius finds
+    # room at no full-size scale. Every size found room at 1:5, so the 54 mm part was drawn 11 mm across; a
+    # reduction is for a part too big for the paper, so it stays at 2:1 or larger, the radius on detail E or
+    # named in the notes
+    hub = "[[features.shape.points]]   # 7: hub top on the axis"
+    extra = ('[[features.shape.points]]\nz_from = "outer face"\nz = "-2.193 mm"\nr = "3.392 mm"\n\n'
+             '[[features.shape.points]]\nz_from = "outer face"\nz = "-1.701 mm"\nr = "6.101 mm"\narc = "convex"\n'
+             'arc_radius = "35.41 mm"\n\n')
+    edits = [('r = "-5 mm"\narc = "concave"', 'r = "-5.81 mm"\narc = "concave"'), (hub, extra + hub)]
+    r = build(load(_edited(tmp_path, edits, ROOT / "tests" / "corpus" / "valid" / "sketch-curved-cup.toml")))
+    assert r.ok
+    data = render_files(r, "x")["x.dxf"]
+    _check_sheet(data, spacing=False)  # the last resort before a size is left off waives ISO 128-2's spacing
+    doc, _ = _read(data)
+    texts = [t.plain_text() for t in doc.paperspace("sheet").query("TEXT")]
+    assert any(t.startswith(("SECTION (2:1)", "SECTION (5:1)")) for t in texts), texts
+    radius = "shape.points[8].arc_radius"
+    assert radius in _dims(doc) or any(f"R35.41 ({radius})" in t for t in texts), texts
 
 
 def test_percent_codes_stay_literal(tmp_path):

@@ -392,3 +392,25 @@ def test_a_sharp_face_edge_asks_for_no_radius_after_facing() -> None:
     files = render_files(_build(_with(BIMETAL, edge_radius="0 mm")), "t")
     assert "edge turned" not in _sheet_words(files["t.dxf"])
     assert "and turn its" not in _sheet_words(files["t-ring.dxf"])
+
+
+def test_a_ring_size_with_no_room_is_named_on_its_sheet(monkeypatch) -> None:
+    # a size that finds no room on the ring's views at any scale is named with its value and key in the
+    # notes, never dropped unsaid (the layout is made to refuse the edge radius here)
+    from yodraft.drawing import ring_sheet
+    from yodraft.drawing.drawing import sheet_data
+
+    place = ring_sheet.Placer.place
+
+    def refusing(self, requests, auxiliary_last=False):  # type: ignore[no-untyped-def]
+        self.failed += [r for r in requests if "ring.edge_radius" in r.keys]
+        return place(self, [r for r in requests if "ring.edge_radius" not in r.keys], auxiliary_last)
+
+    monkeypatch.setattr(ring_sheet.Placer, "place", refusing)
+    resolved = _build(BIMETAL)
+    sheet = ring_sheet.compose_ring(resolved, sheet_data(resolved))
+    words = " ".join(t.text for t in sheet.items if type(t).__name__ == "Text")
+    radius = resolved.values["ring.edge_radius"]
+    assert "Not drawn for want of room:" in words
+    assert re.search(rf"R{radius:g} \(ring\.edge_radius\)", words), words
+    assert sheet.notes["scale"] in ring_sheet.RING_SCALES  # still at an ISO 5455 scale the views fit

@@ -10,7 +10,8 @@ from __future__ import annotations
 
 import math
 from collections.abc import Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
+from typing import NamedTuple
 
 import shapely
 
@@ -20,16 +21,19 @@ from .clip import clip_segments
 from .layout import CLEAR, EXT_MIN_GAP, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, sheet_number, shop_lines
-from .requests import (DATUM_A_KEY, DimensionRequest, datum_face_z, detail_region, detail_requests, section_requests,
-                       text_lines)
+from .requests import (DATUM_A_KEY, DimensionRequest, crowd_region, datum_face_z, detail_region, detail_requests,
+                       enlargeable, section_requests, text_lines)
 from .sheetdata import (Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View, segments_of, text_box,
                         translate)
 
-__all__ = ["compose", "PAPERS", "SCALES", "DETAIL_SCALES", "scale_text", "HATCH_SPACING", "SheetTooSmall"]
+__all__ = ["compose", "PAPERS", "SCALES", "DETAIL_SCALES", "scale_text", "HATCH_SPACING", "SheetTooSmall", "left_off_line"]
 
 PAPERS = {"A3": (420.0, 297.0), "A2": (594.0, 420.0)}  # ISO 216, landscape
 SCALES = (5.0, 2.0, 1.0, 0.5, 0.2)  # ISO 5455 preferred scales
 DETAIL_SCALES = (20.0, 10.0, 5.0, 2.0)  # ISO 5455 enlargements
+#: the enlarged detail of a section too crowded for some of its sizes: its letter (A and B are the datums, C the
+#: seat's detail, D the ring's) and its view's name, which is also its DXF block's
+CROWD_LETTER, CROWD_VIEW = "E", "detail-e"
 HATCH_SPACING = 3.0  # mm on paper (ISO 128-50: at least 0.7 mm) (from memory)
 GAP = 5.0  # clear paper between blocks
 PAD = 4.0  # clear paper inside the detail frame
@@ -258,9 +262,10 @@ ALL, WITHOUT_AUXILIARY, SPACING_WAIVED, SIZES_LEFT_OFF = 0, 1, 2, 3
 
 
 def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData,
-               waive_spacing: bool = False) -> tuple[_Group, View, list]:
+               waive_spacing: bool = False, crowd: "_Crowd | None" = None) -> tuple[_Group, View, list]:
     """The section with its dimensions, datums and runout; and the requests that found no room (with
-    ``waive_spacing``, only functional ones: the auxiliary ones are left out, see ``SPACING_WAIVED``)."""
+    ``waive_spacing``, only functional ones: the auxiliary ones are left out, see ``SPACING_WAIVED``).
+    ``crowd``: the region of the enlarged detail E, marked on the view, and the sizes it shows instead."""
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
@@ -283,10 +288,15 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
     marker = _rect(a[0], a[1], b[0], b[1], "detail")
     items.append(marker)
+    if crowd is not None:
+        ea, eb = view.to_paper(crowd.region[:2]), view.to_paper(crowd.region[2:])
+        items.append(_rect(ea[0], ea[1], eb[0], eb[1], "detail"))
     bbox = (view.to_paper((z_min, -R))[0], view.to_paper((z_min, -R))[1], view.to_paper((z_max, R))[0],
             view.to_paper((z_max, R))[1])
     solid = _solid_test(profile, view, tuple(p.profile for p in resolved.parts[1:]))
     requests = section_requests(resolved)
+    if crowd is not None:
+        requests = [r for r in requests if r not in crowd.shown]
     outline = section + [i for i in part_items(resolved, view) if isinstance(i, Stroke)]
     ob = _obstacles(items, outline)
     placer = Placer(view, font, ob, solid, bbox)
@@ -311,6 +321,10 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
                           + _around(a, b))
     items.append(letter)
     ob.add_item(letter)
+    if crowd is not None:
+        letter = _place_text(font, ob, CROWD_LETTER, _around(ea, eb))
+        items.append(letter)
+        ob.add_item(letter)
     # datum A on the dimension line of the datum feature; datum B on the outer face itself
     items += _datum(font, ob, [d for d in dims if DATUM_A_KEY in d.request.keys], "A")
     items += _datum_face(font, ob, view, profile, datum_face_z(resolved), "B")
@@ -516,20 +530,7 @@ def _detail(resolved: Resolved, scale: float, font: Lettering, data: SheetData) 
     v = resolved.values
     region = detail_region(resolved)
     view = View("detail", scale, (0.0, 0.0), (-400.0, -400.0, 400.0, 400.0))
-    items: list[Item] = []
-    outline: list[Item] = []
-    for seg in clip_segments(profile.segments, region):
-        if isinstance(seg, Line):
-            st = Stroke((view.to_paper(seg.start), view.to_paper(seg.end)), "outline", "detail")
-        else:
-            st = Stroke((view.to_paper(seg.start), view.to_paper(seg.end)), "outline", "detail", bulges=(seg.bulge,))
-        outline.append(st)
-    cut = profile.polygon().intersection(shapely.box(*region))
-    polys = [p for p in getattr(cut, "geoms", [cut]) if p.geom_type == "Polygon" and not p.is_empty]
-    items += outline
-    loops = tuple(Stroke(tuple(view.to_paper(c) for c in list(p.exterior.coords)[:-1]), "hatch", "detail", closed=True)
-                  for p in polys)
-    items.append(_hatch(polys, view, loops))
+    items, outline = _clipped(profile, region, view)
     r_t = v["axle_bore.major_diameter"] / 2
     z0 = v["bearing_seat.post_face_z"]
     items.append(Stroke((view.to_paper((z0, r_t)), view.to_paper((region[2], r_t))), "thread", "detail"))
@@ -545,6 +546,51 @@ def _detail(resolved: Resolved, scale: float, font: Lettering, data: SheetData) 
     target = view.to_paper((z_post + 0.5 * (min(z_wall, v["bearing_seat.seat_face_z"]) - z_post),
                             v["bearing_seat.post_diameter"] / 2))
     items += _runout(font, ob, target, data.runout_mm, up=True)
+    return _Group(items, _bbox(items)), view, placer.failed
+
+
+def _clipped(profile: Profile, region: tuple[float, float, float, float], view: View,
+             hatch: tuple[float, float] = ()) -> tuple[list[Item], list[Item]]:  # type: ignore[assignment]
+    """A loop's outline inside ``region`` and its hatch (``hatch``: angle and spacing, else the body's), drawn
+    in ``view``: (the items, the outline's strokes)."""
+    outline: list[Item] = []
+    for seg in clip_segments(profile.segments, region):
+        if isinstance(seg, Line):
+            st = Stroke((view.to_paper(seg.start), view.to_paper(seg.end)), "outline", view.name)
+        else:
+            st = Stroke((view.to_paper(seg.start), view.to_paper(seg.end)), "outline", view.name, bulges=(seg.bulge,))
+        outline.append(st)
+    cut = profile.polygon().intersection(shapely.box(*region))
+    polys = [p for p in getattr(cut, "geoms", [cut]) if p.geom_type == "Polygon" and not p.is_empty]
+    loops = tuple(Stroke(tuple(view.to_paper(c) for c in list(p.exterior.coords)[:-1]), "hatch", view.name, closed=True)
+                  for p in polys)
+    return outline + ([_hatch(polys, view, loops, *hatch)] if polys else []), outline
+
+
+class _Crowd(NamedTuple):
+    """The enlarged detail E of a section too crowded for some of its sizes: its region (z_min, r_min, z_max,
+    r_max) and the sizes it shows in place of the section."""
+
+    region: tuple[float, float, float, float]
+    shown: tuple[DimensionRequest, ...]
+
+
+def _crowd_detail(resolved: Resolved, crowd: _Crowd, scale: float, font: Lettering) -> tuple[_Group, View, list]:
+    """Detail E: the crowded region enlarged, every part in it hatched as in the section, and its sizes."""
+    profile = resolved.profile
+    assert profile is not None
+    region = crowd.region
+    view = View(CROWD_VIEW, scale, (0.0, 0.0), (-400.0, -400.0, 400.0, 400.0))
+    items, outline = _clipped(profile, region, view)
+    for part in resolved.parts[1:]:
+        more, more_outline = _clipped(part.profile, region, view, PART_HATCH)
+        items += more
+        outline += more_outline
+    ob = _obstacles(items, outline)
+    a, b = view.to_paper(region[:2]), view.to_paper(region[2:])
+    placer = Placer(view, font, ob, _solid_test(profile, view, tuple(p.profile for p in resolved.parts[1:])),
+                    (a[0], a[1], b[0], b[1]), mirrored=False)
+    items += placer.place([replace(r, lower=False) for r in crowd.shown])
     return _Group(items, _bbox(items)), view, placer.failed
 
 
@@ -743,11 +789,18 @@ def compose(resolved: Resolved, data: SheetData) -> Sheet:
                 return _compose(resolved, data, font, paper, scale, views=views, level=level)
             except SheetTooSmall as exc:
                 last = exc
-    for paper, scale in full:  # a crowded part: readable, the sizes with no room named in a note
-        try:
-            return _compose(resolved, data, font, paper, scale, views=views, level=SIZES_LEFT_OFF)
-        except SheetTooSmall as exc:
-            last = exc
+        # a crowded part stays as large as its paper takes it (reduced only when too big for the paper): the
+        # sizes with no room on the section all drawn on an enlarged detail of their region (on a larger paper
+        # or at a smaller scale of the group if it needs one); else at the group's first choice whose blocks
+        # fit, those the detail has no room for (or all of them) named in a note
+        for complete, enlarges in ((True, (True,)), (False, (True, False))):
+            for paper, scale in group:
+                for enlarge in enlarges:
+                    try:
+                        return _compose(resolved, data, font, paper, scale, views=views, level=SIZES_LEFT_OFF,
+                                        enlarge=enlarge, complete=complete)
+                    except SheetTooSmall as exc:
+                        last = exc
     assert last is not None
     return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, level=SIZES_LEFT_OFF)
 
@@ -761,7 +814,8 @@ def _detail_scale(resolved: Resolved, width: float, height: float) -> float:
 
 
 def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, scale: float,
-             force: bool = False, views: dict | None = None, level: int = ALL) -> Sheet:
+             force: bool = False, views: dict | None = None, level: int = ALL, enlarge: bool = False,
+             complete: bool = False) -> Sheet:
     views = {} if views is None else views
     paper = PAPERS[paper_name]
     frame = frame_of(paper)
@@ -778,6 +832,17 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
         failed = [r for r in failed if not r.auxiliary]
     if failed and not force and level < SIZES_LEFT_OFF:
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for {failed[0].keys}")
+    crowd = None
+    if enlarge and level >= SIZES_LEFT_OFF:  # the sizes with no room shown on detail E, its region marked
+        region = crowd_region(failed)
+        if region is not None:
+            crowd = _Crowd(region, tuple(r for r in failed if enlargeable(r)))
+            if ("main", scale, waive, crowd) not in views:
+                views["main", scale, waive, crowd] = _main_view(resolved, scale, font, data, waive, crowd)
+            main, mview, failed = views["main", scale, waive, crowd]
+            failed = [r for r in failed if not r.auxiliary]
+    if complete and (crowd is None or failed):
+        raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: sizes left off")
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
     reach = max(0.0, (font.width(label, TEXT_HEIGHT) - (main.box[2] - main.box[0])) / 2)  # a label wider than the view
     dx, dy = _fit_main(main, frame, frame[0] + GAP + reach)
@@ -799,7 +864,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     for i, dscale in enumerate(scales):
         try:
             return _right_side(resolved, data, font, paper_name, paper, frame, scale, dscale, main, mview, label_y,
-                               right_x, views, force, failed if level >= SIZES_LEFT_OFF else [])
+                               right_x, views, force, failed if level >= SIZES_LEFT_OFF else [], crowd, complete)
         except SheetTooSmall:
             if i == len(scales) - 1:
                 raise
@@ -808,10 +873,12 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
 
 def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, paper, frame,  # type: ignore[no-untyped-def]
                 scale: float, dscale: float, main: "_Group", mview: View, label_y: float, right_x: float,
-                views: dict, force: bool, left_off: Sequence[DimensionRequest] = ()) -> Sheet:
+                views: dict, force: bool, left_off: Sequence[DimensionRequest] = (), crowd: "_Crowd | None" = None,
+                complete: bool = False) -> Sheet:
     """The detail, revisions, cautions, notes and title block right of the main view; ``left_off`` are the
     section's sizes that found no room (``SIZES_LEFT_OFF``), named in a note with their values, as are any of
-    the detail's."""
+    the detail's; ``crowd``, the section's crowded region and the sizes detail E shows (``complete``: every
+    one of them, and no size left off anywhere)."""
     if ("detail", dscale) not in views:
         views["detail", dscale] = _detail(resolved, dscale, font, data)
     detail, dview, dfailed = views["detail", dscale]
@@ -842,32 +909,87 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
     # notes under the cautions (or under the detail when that column is the wider room), the title
     # block in the corner
     title_top = frame[1] + 4 * ROW
-    note_lines: list[str] = []
-    sections = [("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]
-    left = list(left_off) + [r for r in dfailed if not r.auxiliary]  # the detail's too
-    if left:
-        sections.append(("Not drawn for want of room", [_left_off_line(r) for r in left]))
-    for heading, lines in numbered(sections):
-        note_lines += [heading] + lines
-    # the notes fill the room under the cautions, then go on under the detail (left of the title block
-    # when the detail stands clear of it)
     title_x = frame[2] - TITLE_WIDTH
     under_detail_bottom = frame[1] + GAP if dframe[2] <= title_x - GAP else title_top + GAP
-    columns = [(rev_x + 1.5, c_foot - GAP, frame[2] - rev_x - 3.0, title_top + GAP),
-               (dframe[0] + 1.5, dframe[1] - GAP, min(dframe[2], title_x - GAP if under_detail_bottom < title_top
-                                                       else frame[2]) - dframe[0] - 3.0, under_detail_bottom)]
-    notes, n_foot, rest = _flow(font, "NOTES", note_lines, columns)
-    if rest and not force:
-        raise SheetTooSmall(f"{paper_name}: the notes run into the title block")
-    items += notes
+    under_right = min(dframe[2], title_x - GAP if under_detail_bottom < title_top else frame[2])
+    under_top = dframe[1] - GAP
+    # detail E (when the section is crowded) framed under detail C with the notes under it, or under the
+    # section's label left of the title block and of the notes: the first placing that leaves the notes room
+    choices: list = [(None, [], [], None, under_top)]  # (scale, sizes with no room, items, view, notes' top)
+    if crowd is not None:
+        rooms = [(dframe[0], under_top, under_right, under_detail_bottom),
+                 (frame[0] + GAP, label_y - GAP, min(title_x, dframe[0]) - GAP, frame[1] + GAP)]
+        choices = [_crowd_framed(font, e, g, v, f, rooms[k], under_top if k > 0 else None)
+                   for e, g, v, f, k in _crowd_choices(resolved, crowd, scale, font, views, rooms)
+                   if not (complete and f)]
+        if complete and any(not r.auxiliary for r in dfailed):
+            choices = []
+        if not choices:
+            raise SheetTooSmall(f"{paper_name}: no room for detail {CROWD_LETTER}")
+    for n, (escale, efailed, eitems, eview, notes_top) in enumerate(choices):
+        note_lines: list[str] = []
+        sections = [("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]
+        left = list(left_off) + list(efailed) + [r for r in dfailed if not r.auxiliary]  # the details' too
+        if left:
+            sections.append(("Not drawn for want of room", [left_off_line(r) for r in left]))
+        for heading, lines in numbered(sections):
+            note_lines += [heading] + lines
+        # the notes fill the room under the cautions, then go on under the detail (left of the title block
+        # when the detail stands clear of it)
+        columns = [(rev_x + 1.5, c_foot - GAP, frame[2] - rev_x - 3.0, title_top + GAP),
+                   (dframe[0] + 1.5, notes_top, under_right - dframe[0] - 3.0, under_detail_bottom)]
+        notes, n_foot, rest = _flow(font, "NOTES", note_lines, columns)
+        if not rest or force:
+            break
+        if n == len(choices) - 1:
+            raise SheetTooSmall(f"{paper_name}: the notes run into the title block")
+    items += eitems + notes
     scales = f"{scale_text(scale)}, detail C {scale_text(dscale)}"
+    views_drawn = (mview, dview)
+    if escale is not None:
+        scales += f", {CROWD_LETTER} {scale_text(escale)}"
+        views_drawn += (eview,)
     items += _title_block(font, resolved, data, scales, (frame[2] - TITLE_WIDTH, frame[1]))
     items += _frame(paper, frame)
-    return Sheet(paper, frame, tuple(items), (mview, dview), notes={"paper": paper_name, "scale": scale,
-                                                                     "detail_scale": dscale})
+    return Sheet(paper, frame, tuple(items), views_drawn, notes={"paper": paper_name, "scale": scale,
+                                                                 "detail_scale": dscale})
 
 
-def _left_off_line(req: DimensionRequest) -> str:
+def _crowd_choices(resolved: Resolved, crowd: _Crowd, scale: float, font: Lettering, views: dict,
+                   rooms: list[tuple[float, float, float, float]]) -> list[tuple[float, _Group, View, list, int]]:
+    """Where and how large detail E can go, best first: each ISO 5455 enlargement whose frame fits one of
+    ``rooms`` (x_left, y_top, x_right, y_bottom) and places some of its sizes, in order of the fewest sizes
+    left off, then the largest scale, then the room's order: (scale, the detail, its view, the sizes with
+    no room, the room's index)."""
+    out = []
+    for escale in (s for s in DETAIL_SCALES if s > scale):
+        if ("crowd", crowd, escale) not in views:
+            views["crowd", crowd, escale] = _crowd_detail(resolved, crowd, escale, font)
+        group, view, failed = views["crowd", crowd, escale]
+        if len(failed) == len(crowd.shown):
+            continue
+        b = group.box
+        out += [(escale, group, view, failed, k) for k, r in enumerate(rooms)
+                if b[2] - b[0] + 2 * PAD <= r[2] - r[0] and b[3] - b[1] + 3 * PAD + TEXT_HEIGHT <= r[1] - r[3]]
+    return sorted(out, key=lambda c: (len(c[3]), -c[0], c[4]))
+
+
+def _crowd_framed(font: Lettering, escale: float, group: _Group, view: View, failed: list, room: tuple,
+                  notes_top: float | None) -> tuple[float, list, list[Item], View, float]:
+    """Detail E framed at the top left of ``room`` with its label: (scale, the sizes it has no room for, its
+    items, its view, the top of the notes under detail C: under E when E stands there, else ``notes_top``)."""
+    dx, dy = room[0] + PAD - group.box[0], room[1] - PAD - group.box[3]
+    group = group.moved(dx, dy)
+    view = View(CROWD_VIEW, escale, (view.origin[0] + dx, view.origin[1] + dy), group.box)
+    b = group.box
+    frame = (b[0] - PAD, b[1] - PAD - TEXT_HEIGHT - PAD, b[2] + PAD, b[3] + PAD)
+    items = group.items + [_rect(*frame, "detail"),
+                           _text(font, f"DETAIL {CROWD_LETTER} ({scale_text(escale)})",
+                                 ((frame[0] + frame[2]) / 2, frame[1] + PAD), align="center")]
+    return escale, failed, items, view, frame[1] - GAP if notes_top is None else notes_top
+
+
+def left_off_line(req: DimensionRequest) -> str:
     """A size the sheet has no room for, as its dimension would read, with the design keys it shows."""
     return f"{' '.join(text_lines(req))} ({', '.join(req.keys)})"
 

@@ -169,9 +169,11 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
     doc.header["$PSLTSCALE"] = 1  # line type patterns in paper millimetres in every viewport
     msp = doc.modelspace()
     main = sheet.view("main")
-    detail = next((v for v in sheet.views if v.name == "detail"), None)
-    block_name = sheet.notes.get("detail_block", DETAIL_BLOCK)  # the ring's sheet names its own
-    block = doc.blocks.new(block_name) if detail is not None else None
+    # each enlarged detail a block of model geometry, inserted on the sheet at its scale: the seat's (the
+    # ring's sheet names its own) under DETAIL_BLOCK, any other under its view's name
+    details = [(v, sheet.notes.get("detail_block", DETAIL_BLOCK) if v.name == "detail" else v.name)
+               for v in sheet.views if v.name != "main"]
+    blocks = {view.name: doc.blocks.new(name) for view, name in details}
     # the one paper layout: ezdxf's default "Layout1" renamed, set up as the sheet
     psp = doc.layouts.get("Layout1")
     doc.layouts.rename("Layout1", LAYOUT_NAME)
@@ -181,8 +183,8 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
         if e.dxf.id != 1:
             psp.delete_entity(e)
     targets = {"main": _Target(msp, main), "paper": _Target(psp, None)}
-    if detail is not None:
-        targets["detail"] = _Target(block, detail)
+    for view, _ in details:
+        targets[view.name] = _Target(blocks[view.name], view)
     for item in sheet.items:
         view = getattr(item, "view", "paper")
         target = targets[view]
@@ -195,9 +197,8 @@ def sheet_document(sheet: Sheet, resolved: Resolved) -> Drawing:
     vp = psp.add_viewport(center=centre, size=(x1 - x0, y1 - y0), view_center_point=main.to_model(centre),
                           view_height=(y1 - y0) / main.scale, dxfattribs={"layer": "viewport"})
     vp.dxf.flags = vp.dxf.flags | 16384  # locked display
-    if detail is not None:
-        psp.add_blockref(block_name, detail.origin, dxfattribs={"xscale": detail.scale, "yscale": detail.scale,
-                                                                   "layer": "detail"})
+    for view, name in details:
+        psp.add_blockref(name, view.origin, dxfattribs={"xscale": view.scale, "yscale": view.scale, "layer": "detail"})
     _extents(doc, sheet)
     return doc
 

@@ -22,7 +22,7 @@ from .locate import corner as _vertex_or_corner
 from .numbers import size_text, tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "text_lines",
-           "section_requests", "detail_requests", "sheet_requests", "unspecified_radii", "shape_requests", "detail_region", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+           "section_requests", "detail_requests", "sheet_requests", "unspecified_radii", "shape_requests", "detail_region", "crowd_region", "enlargeable", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
 
 DIA = "Ø"
 DATUM_A_KEY = "bearing_seat.post_diameter"  # the dimension whose feature is datum A: the bearing seat's axis
@@ -160,6 +160,29 @@ def detail_region(resolved: Resolved) -> tuple[float, float, float, float]:
     z1 = max(v["vent_groove.bottom_z"], v["pad_groove.bottom_z"]) + 1.0
     r1 = v["pad_groove.inner_diameter"] / 2 + 0.5
     return (z0, 0.0, z1, r1)
+
+
+def enlargeable(req: DimensionRequest) -> bool:
+    """Whether an enlarged detail of part of the section can show the size: a linear size or a radius (a
+    diameter is shown from the axis, an angle from its vertex, which such a detail need not hold)."""
+    return req.kind in ("linear", "radius")
+
+
+def crowd_region(requests: list[DimensionRequest]) -> tuple[float, float, float, float] | None:
+    """(z_min, r_min, z_max, r_max) of an enlarged detail round the sizes a crowded section has no room for:
+    the points each measures (a radius's arc, not its centre) with a margin; ``None`` when none is
+    ``enlargeable``.
+
+    >>> crowd_region([DimensionRequest(("k",), "radius", ((0.0, 0.0), (10.0, 20.0), (9.0, 21.0), (11.0, 19.0)))])
+    (7.0, 17.0, 13.0, 23.0)
+    """
+    points = [p for r in requests if enlargeable(r) for p in (r.points if r.kind == "linear" else r.points[1:])]
+    if not points:
+        return None
+    z0, z1 = min(p[0] for p in points), max(p[0] for p in points)
+    r0, r1 = min(p[1] for p in points), max(p[1] for p in points)
+    margin = max(2.0, 0.5 * max(z1 - z0, r1 - r0))  # room for the corners round them: the detail's context
+    return (z0 - margin, r0 - margin, z1 + margin, r1 + margin)
 
 
 def _tolerance(tol_mm: float, nominal_mm: float, inch: bool) -> str:

@@ -16,7 +16,7 @@ from ..tolerances.iso286 import Limits
 from .chain import settle
 from .compose import (DETAIL_SCALES, GAP, PAD, PAPERS, PART_HATCH, TITLE_WIDTH, _bbox, _frame, _Group, _hatch,
                       _obstacles, _paragraphs, _place_text, _profile_stroke, _rect, _revision_block, _solid_test,
-                      _text, _title_block, frame_of, scale_text)
+                      _text, _title_block, frame_of, left_off_line, scale_text)
 from .layout import TEXT_HEIGHT, Placer
 from .lettering import Lettering, lettering
 from .locate import corner, on_radius
@@ -184,8 +184,10 @@ def _detail(part, scale: float, font: Lettering, requests: list[DimensionRequest
 
 
 def _views(part, font: Lettering, requests: list[DimensionRequest], left: tuple[float, float, float, float],  # type: ignore[no-untyped-def]
-           force: bool) -> tuple[list[Item], View, View, float, float]:
-    """The section and the framed detail side by side in ``left``, at the largest scales that fit."""
+           force: bool) -> tuple[list[Item], View, View, float, float, list[DimensionRequest]]:
+    """The section and the framed detail side by side in ``left``, at the largest scales that fit and place
+    every size; ``force``: at the largest that fit, the sizes that find no room returned (the last item) to
+    be named in a note."""
     z0, r0, z1, r1 = part.profile.bounds()
     margin = 0.1 * max(z1 - z0, r1 - r0)
     region = (z0 - margin, r0 - margin, z1 + margin, r1 + margin)
@@ -204,14 +206,17 @@ def _views(part, font: Lettering, requests: list[DimensionRequest], left: tuple[
             detail, dview, dfailed = _detail(part, dscale, font, requests, region)
             dw = detail.box[2] - detail.box[0] + 2 * PAD
             dh = detail.box[3] - detail.box[1] + 3 * PAD + TEXT_HEIGHT
-            if (dfailed or dw > room_w or dh > height - 2 * GAP) and not force:
+            if dw > room_w or dh > height - 2 * GAP or (dfailed and not force):
                 continue
-            return _arrange(font, left, section, sview, detail, dview, scale, dscale)
+            left_off = [r for r in failed + dfailed if not r.auxiliary]
+            return _arrange(font, left, section, sview, detail, dview, scale, dscale) + (left_off,)
     if not force:
         raise _NoRoom("no scale fits")
-    section, sview, _ = _section(part, RING_SCALES[-1], font, requests, region)
-    detail, dview, _ = _detail(part, DETAIL_SCALES[-1], font, requests, region)
-    return _arrange(font, left, section, sview, detail, dview, RING_SCALES[-1], DETAIL_SCALES[-1])
+    # nothing fits the half sheet: the smallest scales, every size that finds no room named
+    section, sview, failed = _section(part, RING_SCALES[-1], font, requests, region)
+    detail, dview, dfailed = _detail(part, DETAIL_SCALES[-1], font, requests, region)
+    left_off = [r for r in failed + dfailed if not r.auxiliary]
+    return _arrange(font, left, section, sview, detail, dview, RING_SCALES[-1], DETAIL_SCALES[-1]) + (left_off,)
 
 
 def _arrange(font: Lettering, left, section: _Group, sview: View, detail: _Group, dview: View,  # type: ignore[no-untyped-def]
@@ -256,9 +261,11 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     mid_x = frame[0] + 0.5 * (frame[2] - frame[0])
     requests = ring_requests(part.profile, fit, d["shop"]["general_tolerance"])
     try:
-        items, sview, dview, scale, dscale = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]), False)
+        items, sview, dview, scale, dscale, left_off = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]),
+                                                              False)
     except _NoRoom:
-        items, sview, dview, scale, dscale = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]), True)
+        items, sview, dview, scale, dscale, left_off = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]),
+                                                              True)
     right_x = mid_x + GAP
     rev = _revision_block(font, resolved, (right_x, frame[3]), frame[2] - right_x)
     items += rev
@@ -267,6 +274,8 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
         f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
         f"fit surface Ra 0.8 µm",
         f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
+    if left_off:  # a size with no room on the views is named with its value, never dropped unsaid
+        notes += ["Not drawn for want of room: " + "; ".join(left_off_line(r) for r in left_off)]
     note_items, foot = _paragraphs(font, "NOTES", notes, (right_x + 1.5, _bbox(rev)[1] - GAP), frame[2] - right_x - 3.0)
     items += note_items
     cautions = caution_lines() + [
