@@ -550,7 +550,7 @@ def _detail(resolved: Resolved, scale: float, font: Lettering, data: SheetData) 
 
 
 def _clipped(profile: Profile, region: tuple[float, float, float, float], view: View,
-             hatch: tuple[float, float] = ()) -> tuple[list[Item], list[Item]]:  # type: ignore[assignment]
+             hatch: tuple[float, ...] = ()) -> tuple[list[Item], list[Item]]:
     """A loop's outline inside ``region`` and its hatch (``hatch``: angle and spacing, else the body's), drawn
     in ``view``: (the items, the outline's strokes)."""
     outline: list[Item] = []
