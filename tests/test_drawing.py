@@ -497,6 +497,27 @@ def test_a_crowded_section_names_what_no_detail_can_show(tmp_path, monkeypatch):
     assert "Not drawn for want of room" in texts
     assert any("R33.3 (shape.points[6].arc_radius)" in t for t in texts), texts
     assert "detail-e" not in doc.blocks
+    # and says where the arc is, from datum face B and on a diameter, as the drawn outline has it: its middle
+    # lies off the chord's middle by the sagitta, bulge × chord / 2 (DXF reference: bulge = tan(sweep / 4))
+    words = " ".join(texts)
+    at = re.search(r"R33\.3 \(shape\.points\[6\]\.arc_radius\): the arc through ([\d.]+) from B on Ø([\d.]+)", words)
+    assert at, words
+    outline = [e for e in doc.modelspace().query("LWPOLYLINE") if e.dxf.layer == "outline"]
+    face_b = max(x for e in outline for x, _ in e.get_points("xy"))
+    middles = []
+    for e in outline:
+        pts = list(e.get_points("xyb"))
+        for (x0, y0, b), (x1, y1, _) in zip(pts, pts[1:] + pts[:1] if e.closed else pts[1:]):
+            chord = math.hypot(x1 - x0, y1 - y0)
+            if abs(b) < 1e-12 or chord < 1e-9 or y0 < 0:
+                continue
+            radius = chord / (2 * math.sin(2 * math.atan(abs(b))))
+            if abs(radius - 33.3) < 1e-6:
+                s = b * chord / 2  # to the right of the chord for a counter-clockwise (positive) bulge
+                middles.append(((x0 + x1) / 2 + s * (y1 - y0) / chord, (y0 + y1) / 2 - s * (x1 - x0) / chord))
+    (mid,) = middles
+    assert float(at.group(1)) == pytest.approx(face_b - mid[0], abs=6e-4)
+    assert float(at.group(2)) == pytest.approx(2 * mid[1], abs=6e-4)
 
 
 def test_a_crowded_part_is_drawn_at_full_size_not_reduced(tmp_path):

@@ -21,6 +21,7 @@ from .clip import clip_segments
 from .layout import CLEAR, EXT_MIN_GAP, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
 from .notes import SheetData, caution_lines, fit_lines, numbered, sheet_number, shop_lines
+from .numbers import size_text
 from .requests import (DATUM_A_KEY, DimensionRequest, crowd_region, datum_face_z, detail_region, detail_requests,
                        enlargeable, section_requests, text_lines)
 from .sheetdata import (Circle, Dimension, Fill, Hatch, Item, Sheet, Stroke, Text, View, segments_of, text_box,
@@ -931,7 +932,8 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
         sections = [("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]
         left = list(left_off) + list(efailed) + [r for r in dfailed if not r.auxiliary]  # the details' too
         if left:
-            sections.append(("Not drawn for want of room", [left_off_line(r) for r in left]))
+            sections.append(("Not drawn for want of room",
+                             [left_off_line(r, datum_face_z(resolved)) for r in left]))
         for heading, lines in numbered(sections):
             note_lines += [heading] + lines
         # the notes fill the room under the cautions, then go on under the detail (left of the title block
@@ -989,9 +991,26 @@ def _crowd_framed(font: Lettering, escale: float, group: _Group, view: View, fai
     return escale, failed, items, view, frame[1] - GAP if notes_top is None else notes_top
 
 
-def left_off_line(req: DimensionRequest) -> str:
-    """A size the sheet has no room for, as its dimension would read, with the design keys it shows."""
-    return f"{' '.join(text_lines(req))} ({', '.join(req.keys)})"
+def left_off_line(req: DimensionRequest, face_z: float | None = None, face: str = "B") -> str:
+    """A size the sheet has no room for, as its dimension would read, with the design keys it shows and, given
+    the axial position ``face_z`` of the face the sheet measures from (``face``), where it is on the part.
+
+    >>> left_off_line(DimensionRequest(("shape.points[6].arc_radius",), "radius", ((10.2, 0.0), (10.2, 22.6))), 21.0)
+    'R22.6 (shape.points[6].arc_radius): the arc through 10.8 from B on Ø45.2'
+    """
+    line = f"{' '.join(text_lines(req))} ({', '.join(req.keys)})"
+    if face_z is None:
+        return line
+
+    def at(p: tuple[float, float]) -> str:
+        return f"{size_text(face_z - p[0])} from {face} on Ø{size_text(2 * abs(p[1]))}"
+    if req.kind == "radius":
+        return f"{line}: the arc through {at(req.points[1])}"
+    if req.kind == "linear":
+        return f"{line}: between {at(req.points[0])} and {at(req.points[1])}"
+    if req.kind == "diameter":
+        return f"{line}: {size_text(face_z - req.points[0][0])} from {face}"
+    return f"{line}: at the corner {at(req.points[0])}"
 
 
 def _frame(paper: tuple[float, float], frame) -> list[Item]:  # type: ignore[no-untyped-def]

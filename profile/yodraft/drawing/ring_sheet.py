@@ -275,14 +275,15 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
         f"fit surface Ra 0.8 µm",
         f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
     if left_off:  # a size with no room on the views is named with its value, never dropped unsaid
-        notes += ["Not drawn for want of room: " + "; ".join(left_off_line(r) for r in left_off)]
+        face_z = part.profile.bounds()[2]  # the ring's outer face, flush with the half's face B
+        notes += ["Not drawn for want of room: " + "; ".join(left_off_line(r, face_z, "the outer face") for r in left_off)]
     note_items, foot = _paragraphs(font, "NOTES", notes, (right_x + 1.5, _bbox(rev)[1] - GAP), frame[2] - right_x - 3.0)
     items += note_items
     cautions = caution_lines() + [
         "Press and shrink fits store force: wear eye protection, support the body evenly on the press, and handle "
         "heated or cooled parts with gloves made for it.",
-        f"The assembly ΔT and the fit figures are predictions from handbook values: heat, cool and press by the "
-        f"shop's qualified practice and the material makers' limits, which take precedence; press a trial ring first."]
+        "The assembly ΔT and the fit figures are predictions from handbook values: heat, cool and press by the "
+        "shop's qualified practice and the material makers' limits, which take precedence; press a trial ring first."]
     caution_items, _ = _paragraphs(font, "CAUTIONS", cautions, (right_x + 1.5, foot - GAP), frame[2] - right_x - 3.0)
     items += caution_items
     mass = body_props(part.profile, part.density_g_cm3).mass_g
