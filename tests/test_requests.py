@@ -113,3 +113,18 @@ def test_a_request_refuses_a_wrong_number_of_points():
         DimensionRequest(("a.d",), "diameter", ((0.0, 1.0), (2.0, 1.0)))
     with pytest.raises(ValueError):
         DimensionRequest(("a.l",), "linear", ((0.0, 1.0), (2.0, 1.0)))  # no direction
+
+
+@pytest.mark.parametrize("path", TEMPLATES, ids=lambda p: p.stem)
+def test_a_radius_carries_its_whole_arc(path):
+    # a radius's leader leaves its arc radially (ISO 129-1): each request carries the arc's middle and both
+    # its ends, all at the radius it shows from its centre, so the layout may try along the whole arc when
+    # the middle has no room
+    r = build(load(path))
+    radii = [q for q in section_requests(r) + detail_requests(r) if q.kind == "radius"]
+    assert radii
+    for req in radii:
+        assert len(req.points) == 4, req.keys
+        centre, *on_arc = req.points
+        for p in on_arc:
+            assert math.dist(centre, p) == pytest.approx(measure(req), abs=1e-9), req.keys

@@ -427,7 +427,7 @@ def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[Dimensi
         value = round(arc.radius, 6)
         if value not in shown:
             shown[value] = DimensionRequest(("profile.radius",), "radius",
-                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2)))
+                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start, arc.end))
     return out + list(shown.values())
 
 
@@ -468,14 +468,15 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
         if c.radius > 0:
             arc = _arc_near(drawn, c.radius, at)
             if arc is not None:
-                out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
+                out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2),
+                                                                   arc.start, arc.end)))
         if c.sweep and arc_key:
             whole = arc_through(c.point, corners[k + 1].point, c.sweep)  # fillets at its ends may trim it
             arc = next((s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - whole.radius) < 1e-6
                         and math.dist(s.center, whole.center) < 1e-6), None)
             if arc is not None:  # None: the corner radii at its ends take the whole arc, and they are dimensioned
                 out.append(DimensionRequest((arc_key,), "radius",
-                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2))))
+                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start, arc.end)))
     start_d = round(v["shape.start_diameter"], 6)
     for d, (keys, at) in sorted(diameters.items()):
         first = d == start_d
