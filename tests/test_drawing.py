@@ -541,6 +541,24 @@ def test_a_crowded_part_is_drawn_at_full_size_not_reduced(tmp_path):
     assert radius in _dims(doc) or any(f"R35.41 ({radius})" in t for t in texts), texts
 
 
+def test_an_enlarged_detail_never_costs_the_section_its_scale(tmp_path):
+    # a concave arc sketched into the cup wall below the lip (found by fuzzing the sketch): at 2:1 its radius
+    # finds no room on the section nor on any detail E that fits. Detail E took it at 1:1 (the section
+    # crowded at half the size, E at 2:1 hardly enlarged); the section keeps 2:1, the radius named in a note
+    wall = "[[features.shape.points]]   # 5: the floor cones in to the hub"
+    extra = ('[[features.shape.points]]\nz_from = "outer face"\nz = "-9.332 mm"\nr_from = "outer diameter"\n'
+             'r = "-3.271 mm"\narc = "concave"\narc_radius = "22.55 mm"\n\n')
+    r = build(load(_edited(tmp_path, [(wall, extra + wall)], ROOT / "templates" / "sketched.toml")))
+    assert r.ok
+    data = render_files(r, "x")["x.dxf"]
+    _check_sheet(data, spacing=False)
+    doc, _ = _read(data)
+    texts = [t.plain_text() for t in doc.paperspace("sheet").query("TEXT")]
+    assert any(t.startswith(("SECTION (2:1)", "SECTION (5:1)")) for t in texts), texts
+    key = "shape.points[5].arc_radius"
+    assert key in _dims(doc) or any(f"R22.55 ({key})" in t for t in texts), texts
+
+
 def test_percent_codes_stay_literal(tmp_path):
     design = _edited(tmp_path, EDGES["percent codes in the title"])
     doc, _ = _read(render_files(build(load(design)), "x")["x.dxf"])

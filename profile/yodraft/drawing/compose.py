@@ -790,18 +790,25 @@ def compose(resolved: Resolved, data: SheetData) -> Sheet:
                 return _compose(resolved, data, font, paper, scale, views=views, level=level)
             except SheetTooSmall as exc:
                 last = exc
-        # a crowded part stays as large as its paper takes it (reduced only when too big for the paper): the
-        # sizes with no room on the section all drawn on an enlarged detail of their region (on a larger paper
-        # or at a smaller scale of the group if it needs one); else at the group's first choice whose blocks
-        # fit, those the detail has no room for (or all of them) named in a note
-        for complete, enlarges in ((True, (True,)), (False, (True, False))):
-            for paper, scale in group:
-                for enlarge in enlarges:
+        # a crowded part (reduced only when too big for the paper): at the group's first choice whose blocks
+        # fit, the sizes with no room named in a note; better, at that scale or a larger one of the group, all
+        # of them (else some) drawn on an enlarged detail of their region
+        named = None
+        for paper, scale in group:
+            try:
+                named = _compose(resolved, data, font, paper, scale, views=views, level=SIZES_LEFT_OFF)
+                break
+            except SheetTooSmall as exc:
+                last = exc
+        if named is not None:
+            for complete in (True, False):
+                for paper, scale in (c for c in group if c[1] >= named.notes["scale"]):
                     try:
                         return _compose(resolved, data, font, paper, scale, views=views, level=SIZES_LEFT_OFF,
-                                        enlarge=enlarge, complete=complete)
+                                        enlarge=True, complete=complete)
                     except SheetTooSmall as exc:
                         last = exc
+            return named
     assert last is not None
     return _compose(resolved, data, font, "A2", SCALES[-1], force=True, views=views, level=SIZES_LEFT_OFF)
 
