@@ -849,7 +849,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
                 views["main", scale, waive, crowd] = _main_view(resolved, scale, font, data, waive, crowd)
             main, mview, failed = views["main", scale, waive, crowd]
             failed = [r for r in failed if not r.auxiliary]
-    if complete and (crowd is None or failed):
+    if enlarge and (crowd is None or (complete and failed)):  # no detail E here, or not one that is enough
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: sizes left off")
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
     reach = max(0.0, (font.width(label, TEXT_HEIGHT) - (main.box[2] - main.box[0])) / 2)  # a label wider than the view
