@@ -530,15 +530,21 @@ def test_a_crowded_part_is_drawn_at_full_size_not_reduced(tmp_path):
              '[[features.shape.points]]\nz_from = "outer face"\nz = "-1.701 mm"\nr = "6.101 mm"\narc = "convex"\n'
              'arc_radius = "35.41 mm"\n\n')
     edits = [('r = "-5 mm"\narc = "concave"', 'r = "-5.81 mm"\narc = "concave"'), (hub, extra + hub)]
-    r = build(load(_edited(tmp_path, edits, ROOT / "tests" / "corpus" / "valid" / "sketch-curved-cup.toml")))
+    _full_size_with(_edited(tmp_path, edits, ROOT / "tests" / "corpus" / "valid" / "sketch-curved-cup.toml"),
+                    "shape.points[8].arc_radius", "R35.41")
+
+
+def _full_size_with(design: Path, key: str, text: str) -> None:
+    """The crowded design's sheet: clean, its section at 2:1 or larger, the size ``key`` (reading ``text``)
+    drawn or named in the notes."""
+    r = build(load(design))
     assert r.ok
     data = render_files(r, "x")["x.dxf"]
     _check_sheet(data, spacing=False)  # the last resort before a size is left off waives ISO 128-2's spacing
     doc, _ = _read(data)
     texts = [t.plain_text() for t in doc.paperspace("sheet").query("TEXT")]
     assert any(t.startswith(("SECTION (2:1)", "SECTION (5:1)")) for t in texts), texts
-    radius = "shape.points[8].arc_radius"
-    assert radius in _dims(doc) or any(f"R35.41 ({radius})" in t for t in texts), texts
+    assert key in _dims(doc) or any(f"{text} ({key})" in t for t in texts), texts
 
 
 def test_an_enlarged_detail_never_costs_the_section_its_scale(tmp_path):
@@ -548,15 +554,8 @@ def test_an_enlarged_detail_never_costs_the_section_its_scale(tmp_path):
     wall = "[[features.shape.points]]   # 5: the floor cones in to the hub"
     extra = ('[[features.shape.points]]\nz_from = "outer face"\nz = "-9.332 mm"\nr_from = "outer diameter"\n'
              'r = "-3.271 mm"\narc = "concave"\narc_radius = "22.55 mm"\n\n')
-    r = build(load(_edited(tmp_path, [(wall, extra + wall)], ROOT / "templates" / "sketched.toml")))
-    assert r.ok
-    data = render_files(r, "x")["x.dxf"]
-    _check_sheet(data, spacing=False)
-    doc, _ = _read(data)
-    texts = [t.plain_text() for t in doc.paperspace("sheet").query("TEXT")]
-    assert any(t.startswith(("SECTION (2:1)", "SECTION (5:1)")) for t in texts), texts
-    key = "shape.points[5].arc_radius"
-    assert key in _dims(doc) or any(f"R22.55 ({key})" in t for t in texts), texts
+    _full_size_with(_edited(tmp_path, [(wall, extra + wall)], ROOT / "templates" / "sketched.toml"),
+                    "shape.points[5].arc_radius", "R22.55")
 
 
 def test_percent_codes_stay_literal(tmp_path):
