@@ -3,7 +3,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from operator import itemgetter
-from typing import Any, NamedTuple
+from typing import NamedTuple
 
 from .balance import BalanceResult, balance
 from .builder import Resolved

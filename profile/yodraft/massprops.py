@@ -29,7 +29,7 @@ import math
 from dataclasses import dataclass
 from typing import NamedTuple, Sequence
 
-from .geometry import Arc, Line, Profile
+from .geometry import Arc, Profile
 
 __all__ = [
     "SectionIntegrals",

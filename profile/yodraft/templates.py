@@ -9,7 +9,6 @@ from __future__ import annotations
 
 import datetime
 import os
-import re
 import sys
 from collections.abc import Mapping
 from dataclasses import dataclass

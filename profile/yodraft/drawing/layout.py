@@ -445,7 +445,7 @@ class Placer:
         """Every arrangement of a linear (or half-shown diameter) dimension with its line at v = c, its text
         ``lines_txt`` ``w`` long starting at one of ``spots``, and its extension lines ``ext`` (which do not
         depend on where the text goes), whose texts touch nothing on the sheet."""
-        (u1, v1), (u2, v2) = fr.uv(p1), fr.uv(p2)
+        (u1, _), (u2, _) = fr.uv(p1), fr.uv(p2)
         layer, view = "dimension", self.view.name
         lo, hi = (u1, u2) if u1 <= u2 else (u2, u1)
         span = hi - lo

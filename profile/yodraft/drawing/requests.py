@@ -295,7 +295,6 @@ def _main_requests(resolved: Resolved) -> list[DimensionRequest]:
     profile = resolved.profile
     assert profile is not None
     v = resolved.values
-    R = profile.bounds()[3]
     wall_z = v["bearing_seat.wall_face_z"]
     zb = datum_face_z(resolved)
     b = on_face(profile, zb)
