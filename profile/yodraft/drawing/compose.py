@@ -927,9 +927,11 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
     if crowd is not None:
         rooms = [(dframe[0], under_top, under_right, under_detail_bottom),
                  (frame[0] + GAP, label_y - GAP, min(title_x, dframe[0]) - GAP, frame[1] + GAP)]
-        choices = [_crowd_framed(font, e, g, v, f, rooms[k], under_top if k > 0 else None)
-                   for e, g, v, f, k in _crowd_choices(resolved, crowd, scale, font, views, rooms)
-                   if not (complete and f)]
+        choices = []
+        for escale, group, view, efailed, k in _crowd_choices(resolved, crowd, scale, font, views, rooms):
+            if not (complete and efailed):
+                eitems, eview, bottom = _crowd_framed(font, escale, group, view, rooms[k])
+                choices.append((escale, efailed, eitems, eview, bottom - GAP if k == 0 else under_top))
         if complete and any(not r.auxiliary for r in dfailed):
             choices = []
         if not choices:
@@ -983,10 +985,9 @@ def _crowd_choices(resolved: Resolved, crowd: _Crowd, scale: float, font: Letter
     return sorted(out, key=lambda c: (len(c[3]), -c[0], c[4]))
 
 
-def _crowd_framed(font: Lettering, escale: float, group: _Group, view: View, failed: list, room: tuple,
-                  notes_top: float | None) -> tuple[float, list, list[Item], View, float]:
-    """Detail E framed at the top left of ``room`` with its label: (scale, the sizes it has no room for, its
-    items, its view, the top of the notes under detail C: under E when E stands there, else ``notes_top``)."""
+def _crowd_framed(font: Lettering, escale: float, group: _Group, view: View,
+                  room: tuple) -> tuple[list[Item], View, float]:
+    """Detail E framed at the top left of ``room`` with its label: (its items, its view, its frame's bottom)."""
     dx, dy = room[0] + PAD - group.box[0], room[1] - PAD - group.box[3]
     group = group.moved(dx, dy)
     view = View(CROWD_VIEW, escale, (view.origin[0] + dx, view.origin[1] + dy), group.box)
@@ -995,7 +996,7 @@ def _crowd_framed(font: Lettering, escale: float, group: _Group, view: View, fai
     items = group.items + [_rect(*frame, "detail"),
                            _text(font, f"DETAIL {CROWD_LETTER} ({scale_text(escale)})",
                                  ((frame[0] + frame[2]) / 2, frame[1] + PAD), align="center")]
-    return escale, failed, items, view, frame[1] - GAP if notes_top is None else notes_top
+    return items, view, frame[1]
 
 
 def left_off_line(req: DimensionRequest, face_z: float | None = None, face: str = "B") -> str:
