@@ -56,3 +56,21 @@ def test_failed_check_report_exit_1_and_lists_it(tmp_path: Path, string_trick_te
 def test_report_to_missing_folder_exit_2(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
     assert main(["report", str(TEMPLATES / "string-trick.toml"), "-o", str(tmp_path / "no" / "r.md")]) == 2
     assert "does not exist" in capsys.readouterr().err
+
+
+@pytest.mark.parametrize(("thread", "major_mm"), [
+    ("M4x0.7", 4.0),  # ISO 261: M4 coarse, d = 4 mm
+    ("10-32 UNF", 0.190 * 25.4),  # ASME B1.1 (from memory): No. 10, 0.190 in major diameter; ISO 31-1: 1 in = 25.4 mm
+])
+def test_axle_major_diameter_is_a_length_whatever_the_thread(thread: str, major_mm: float, tmp_path: Path,
+                                                             string_trick_text: str,
+                                                             capsys: pytest.CaptureFixture[str]) -> None:
+    """A metric thread's whole-number major diameter is named with its unit like an inch thread's."""
+    path = tmp_path / "thread.toml"
+    path.write_text(set_in(string_trick_text, "features.axle_bore", "thread", thread), encoding="utf-8")
+    assert main(["check", str(path), "--json"]) == 0
+    dims = json.loads(capsys.readouterr().out)["features"]["axle_bore"]["dimensions"]
+    assert "major_diameter" not in dims
+    assert dims["major_diameter_mm"] == pytest.approx(major_mm, abs=1e-6)
+    assert main(["report", str(path)]) == 0
+    assert f"| major_diameter_mm | {major_mm:.6g} mm |" in capsys.readouterr().out

@@ -17,10 +17,12 @@ def resolved_dimensions(resolved: Resolved) -> dict[str, dict[str, Any]]:
     for name, feature in resolved.features.items():
         rows = {}
         for key, value in feature.dims.items():
-            if isinstance(value, float) and key.endswith("angle"):
+            # a size from a catalog may be a whole number (M4's 4 mm): a length all the same, named with its unit
+            number = isinstance(value, (int, float)) and not isinstance(value, bool)
+            if number and key.endswith("angle"):
                 rows[key + "_deg"] = round(math.degrees(value), 6)
-            elif isinstance(value, float):
-                rows[key + "_mm"] = round(value, 6)
+            elif number:
+                rows[key + "_mm"] = round(float(value), 6)
             else:
                 rows[key] = value
         out[name] = {"dimensions": rows, "derived": sorted(feature.derived)}
