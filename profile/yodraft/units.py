@@ -74,12 +74,15 @@ def written(value: float, kind: str) -> str | float:
 
 
 def unit_of(key: str) -> str:
-    """The unit a summary key holds, from its suffix ('' for a plain number).
+    """The unit a summary key holds, from its suffix ('' for a plain number); an index at the end is not
+    part of the suffix, a row name inside the key is.
 
     >>> unit_of("mass.izz_g_mm2"), unit_of("bearing.od_deviation_um[1]"), unit_of("spin.rim_share")
     ('g·mm²', 'µm', '')
+    >>> unit_of("mass.budget[half].each_g"), unit_of("mass.budget[half].count")
+    ('g', '')
     """
-    base = key.split("[", 1)[0]
+    base = key[:key.rindex("[")] if key.endswith("]") else key
     for suffix, unit in SUFFIX_UNITS:
         if base.endswith(suffix):
             return unit
