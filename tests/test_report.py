@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import json
+import re
 from pathlib import Path
 
 import pytest
@@ -65,7 +66,8 @@ def test_report_to_missing_folder_exit_2(tmp_path: Path, capsys: pytest.CaptureF
 def test_axle_major_diameter_is_a_length_whatever_the_thread(thread: str, major_mm: float, tmp_path: Path,
                                                              string_trick_text: str,
                                                              capsys: pytest.CaptureFixture[str]) -> None:
-    """A metric thread's whole-number major diameter is named with its unit like an inch thread's."""
+    """A metric thread's whole-number major diameter is named with its unit like an inch thread's, in the JSON, the
+    report and the terminal."""
     path = tmp_path / "thread.toml"
     path.write_text(set_in(string_trick_text, "features.axle_bore", "thread", thread), encoding="utf-8")
     assert main(["check", str(path), "--json"]) == 0
@@ -74,3 +76,5 @@ def test_axle_major_diameter_is_a_length_whatever_the_thread(thread: str, major_
     assert dims["major_diameter_mm"] == pytest.approx(major_mm, abs=1e-6)
     assert main(["report", str(path)]) == 0
     assert f"| major_diameter_mm | {major_mm:.6g} mm |" in capsys.readouterr().out
+    assert main(["check", str(path)]) == 0
+    assert re.search(rf"major_diameter +{major_mm:.4f} mm\n", capsys.readouterr().out)

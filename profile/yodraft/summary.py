@@ -7,6 +7,7 @@ from typing import Any
 from .analysis import analyse
 from .builder import Resolved
 from .features.ring import ring_summary
+from .units import is_dimension
 
 __all__ = ["summary", "resolved_dimensions", "back_wall_mm"]
 
@@ -17,11 +18,9 @@ def resolved_dimensions(resolved: Resolved) -> dict[str, dict[str, Any]]:
     for name, feature in resolved.features.items():
         rows = {}
         for key, value in feature.dims.items():
-            # a size from a catalog may be a whole number (M4's 4 mm): a length all the same, named with its unit
-            number = isinstance(value, (int, float)) and not isinstance(value, bool)
-            if number and key.endswith("angle"):
+            if is_dimension(value) and key.endswith("angle"):
                 rows[key + "_deg"] = round(math.degrees(value), 6)
-            elif number:
+            elif is_dimension(value):
                 rows[key + "_mm"] = round(float(value), 6)
             else:
                 rows[key] = value

@@ -4,15 +4,15 @@ from __future__ import annotations
 import math
 
 from .builder import Resolved
-from .units import MM_PER_INCH
+from .units import MM_PER_INCH, is_dimension
 
 __all__ = ["check_text", "mass_lines", "failed_lines", "fit_text", "ring_lines"]
 
 
 def _fmt(key: str, value: object) -> str:
-    if isinstance(value, float) and key.endswith("angle"):
+    if is_dimension(value) and key.endswith("angle"):
         return f"{math.degrees(value):.2f}°"
-    if isinstance(value, float):
+    if is_dimension(value):
         return f"{value:.4f} mm"
     return str(value)
 

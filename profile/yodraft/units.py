@@ -23,7 +23,7 @@ from .errors import toml_shown
 if TYPE_CHECKING:  # pragma: no cover
     import pint
 
-__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH",
+__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "is_dimension", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH",
            "SHEET_RESOLUTION_MM", "UnitError"]
 
 MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
@@ -71,6 +71,16 @@ def written(value: float, kind: str) -> str | float:
     """
     div, unit, _ = DISPLAY_UNITS[kind]
     return round(value, 12) if kind == "number" else f"{value / div:.12g} {unit}"
+
+
+def is_dimension(value: object) -> bool:
+    """Whether a feature's dimension is a size (mm, or radians for an angle): a number, whole (a catalog's
+    M4 is 4 mm) or not, but not a truth value or a text.
+
+    >>> is_dimension(4), is_dimension(6.35), is_dimension(True), is_dimension("M4x0.7")
+    (True, True, False, False)
+    """
+    return isinstance(value, (int, float)) and not isinstance(value, bool)
 
 
 def unit_of(key: str) -> str:
