@@ -20,6 +20,8 @@ from yodraft.builder import build
 from yodraft.design import load
 from yodraft.drawing.drawing import compose_sheet, render_files, sheet_data
 from yodraft.drawing.notes import SheetData
+from yodraft.drawing.locate import outline_of
+from yodraft.geometry import Arc
 
 ROOT = Path(__file__).resolve().parents[1]
 TEMPLATES = sorted((ROOT / "templates").glob("*.toml"))
@@ -410,8 +412,13 @@ def test_designs_at_the_edges_build_a_clean_sheet(case, tmp_path):
     assert main(["build", str(design), "-o", str(tmp_path / "out")]) == 0
     (dxf,) = (tmp_path / "out").glob("*[!e].dxf")  # the sheet, not the CAM profile
     _check_sheet(dxf.read_bytes())
-    # A3 at 2:1, as the template: a 30 mm envelope and a wide pad groove fell to a forced A2 at 1:5 before
-    assert compose_sheet(build(load(design))).notes["scale"] == 2.0
+    # enlarged, as the template (a 30 mm envelope and a wide pad groove fell to a forced A2 at 1:5 once), and
+    # with the outer diameter's runout frame in the section as well as in detail C (at A3 2:1 the 30 mm
+    # part has no room for it, and it was once left out there without a word)
+    resolved = build(load(design))
+    assert compose_sheet(resolved).notes["scale"] >= 2.0
+    doc, _ = _read(dxf.read_bytes())
+    assert _sheet_texts(doc).count(f"{sheet_data(resolved).runout_mm:.3f}") == 2
     # every title-block and revision text is on the sheet in full (wrapped lines rejoined without spaces)
     doc, _ = _read(dxf.read_bytes())
     shown = "".join(t.plain_text() for t in doc.paperspace("sheet").query("TEXT")).replace(" ", "")
@@ -826,3 +833,67 @@ def test_a_small_size_is_written_to_the_micrometre_not_as_zero(tmp_path):
     values = set(_sheet_texts(doc))
     assert "R0.002" in values and "0.002" in values
     assert not values & {"R0", "0", "(0)", "Ø0"}
+
+
+#: the starter design with the stepped outer shape: its step's corners share the cup lip's radius, the catch
+#: zone's edge the cup's, so two values repeat
+STEPPED = [("[features.catch_zone]", '[features.shape]\nkind = "stepped"\n\n[features.catch_zone]')]
+
+
+@pytest.mark.parametrize(("name", "source", "edits"), [("stepped", TEMPLATE, STEPPED)]
+                         + [(p.stem, p, []) for p in TEMPLATES], ids=lambda x: x if isinstance(x, str) else "")
+def test_the_unspecified_radii_note_gives_one_value_and_every_other_arc_its_own(name, source, edits, tmp_path):
+    """ISO 129-1: every feature dimensioned once, the rest by a general note. "Unspecified radii R0.5, R1"
+    would leave a turner guessing which unmarked corner takes which, so the note names at most one value and
+    every arc of any other value carries a radius dimension at its own centre."""
+    resolved = build(load(_edited(tmp_path, edits, source)))
+    assert resolved.ok, resolved.failed
+    data = render_files(resolved, "x")["x.dxf"]
+    _check_sheet(data)
+    doc, _ = _read(data)
+    noted = [re.findall(r"R(\d+(?:\.\d+)?)", t.split("unspecified radii", 1)[1])
+             for t in _sheet_texts(doc, ("TEXT", "MTEXT")) if "unspecified radii" in t]
+    assert len(noted) <= 1 and all(len(values) == 1 for values in noted), noted
+    note = float(noted[0][0]) if noted else None
+    radial = [d for d in doc.modelspace().query("DIMENSION") if d.dimtype in (3, 4)]  # diameter 3, radius 4 (DXF)
+    radii = [(d.get_measurement(), Vec3(d.dxf.defpoint)) for d in radial if d.dimtype == 4]
+    arcs = [s for s in outline_of(resolved).segments if isinstance(s, Arc)]
+    if name == "stepped":  # the case in point: two values each on more than one arc
+        values = [round(a.radius, 6) for a in arcs]
+        assert sum(values.count(x) > 1 for x in set(values)) >= 2, values
+    for arc in arcs:
+        if note is not None and abs(arc.radius - note) < 5e-4:
+            continue
+        assert any(abs(r - arc.radius) < 1e-6 and math.dist((c.x, c.y), arc.center) < 1e-6 for r, c in radii), \
+            (name, arc.radius, arc.center)
+    if note is not None:  # the note's value is shown once too, and some arc of it has no dimension of its own
+        assert any(abs(r - note) < 5e-4 for r, _ in radii)
+        assert any(abs(a.radius - note) < 5e-4 and all(math.dist((c.x, c.y), a.center) > 1e-6 for _, c in radii)
+                   for a in arcs)
+
+
+def test_the_outer_diameter_runout_frame_finds_room_past_a_radius_callout(tmp_path):
+    """The stepped shape's catch-zone edge radius, called out where the outer diameter's runout frame first
+    looks, no longer costs the section its runout frame (ISO 1101: a circular-runout tolerance frame on the
+    toleranced surface): the sheet carries the frame in the section and in the seat's detail."""
+    resolved = build(load(_edited(tmp_path, STEPPED)))
+    assert resolved.ok, resolved.failed
+    data = render_files(resolved, "x")["x.dxf"]
+    _check_sheet(data)
+    doc, _ = _read(data)
+    value = f"{sheet_data(resolved).runout_mm:.3f}"
+    assert _sheet_texts(doc).count(value) == 2  # one frame on the outer diameter, one in detail C
+
+
+def test_a_runout_frame_with_no_room_anywhere_is_named_not_dropped(resolved, monkeypatch):
+    """Were there no room for the outer diameter's runout frame at any paper and scale, the sheet still
+    carries the requirement, named with its surface under "Not drawn for want of room"."""
+    import yodraft.drawing.compose as compose_module
+
+    monkeypatch.setattr(compose_module, "_runout", lambda *args, **kwargs: [])
+    data = render_files(resolved, "x")["x.dxf"]
+    doc, _ = _read(data)
+    notes = " ".join(_sheet_texts(doc, ("TEXT", "MTEXT")))
+    runout = f"{sheet_data(resolved).runout_mm:.3f}"
+    assert "Not drawn for want of room" in notes
+    assert f"Runout {runout} to A of the outer diameter Ø{resolved.values['rim.diameter']:g}" in notes.replace("%%c", "Ø")

@@ -16,7 +16,7 @@ from typing import NamedTuple
 import shapely
 
 from ..builder import Resolved
-from ..geometry import Arc, Line, Profile
+from ..geometry import Arc, Line, Point, Profile
 from .clip import clip_segments
 from .layout import CLEAR, EXT_MIN_GAP, TEXT_HEIGHT, Box, Obstacles, Placer, boxes_overlap, inflate, segment_hits_box
 from .lettering import PITCH, Lettering, lettering
@@ -329,10 +329,26 @@ def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetDat
     # datum A on the dimension line of the datum feature; datum B on the outer face itself
     items += _datum(font, ob, [d for d in dims if DATUM_A_KEY in d.request.keys], "A")
     items += _datum_face(font, ob, view, profile, datum_face_z(resolved), "B")
-    # runout of the rim's outer diameter
+    # runout of the rim's outer diameter, on the upper half's outline or else the lower half's (the same surface)
     z_od = v["catch_zone.end_z"] + 0.25 * (v["rim.face_z"] - v["catch_zone.end_z"])
-    items += _runout(font, ob, view.to_paper((z_od, R)), data.runout_mm, up=True)
-    return _Group(items, _bbox(items)), view, placer.failed
+    runout: list[Item] = []
+    for target, up in _runout_targets(profile, z_od, R):
+        runout = _runout(font, ob, view.to_paper(target), data.runout_mm, up=up)
+        if runout:
+            break
+    items += runout
+    return _Group(items, _bbox(items)), view, placer.failed, bool(runout)
+
+
+def _runout_targets(profile: Profile, z_od: float, R: float) -> list[tuple[Point, bool]]:
+    """Where the outer diameter's runout frame may point, (z, r) and whether the frame stands above: a quarter
+    along the rim band, then along every stretch of the outline at the outer diameter, in the upper half and
+    then the same in the lower half."""
+    bands = [seg for seg in profile.segments if isinstance(seg, Line) and abs(seg.start[1] - R) < 1e-9
+             and abs(seg.end[1] - R) < 1e-9]
+    along = [(seg.start[0] + t * (seg.end[0] - seg.start[0]), R) for seg in bands for t in (0.5, 0.25, 0.75)]
+    upper = [(z_od, R)] + along
+    return [(p, True) for p in upper] + [((z, -r), False) for z, r in upper]
 
 
 def _around(a: tuple[float, float], b: tuple[float, float]) -> list[tuple[float, float, str]]:
@@ -835,7 +851,7 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     waive = level >= SPACING_WAIVED
     if ("main", scale, waive) not in views:
         views["main", scale, waive] = _main_view(resolved, scale, font, data, waive)
-    main, mview, failed = views["main", scale, waive]
+    main, mview, failed, runout = views["main", scale, waive]
     if level >= WITHOUT_AUXILIARY:  # the same view, its auxiliary dimensions that found no room left out
         failed = [r for r in failed if not r.auxiliary]
     if failed and not force and level < SIZES_LEFT_OFF:
@@ -847,10 +863,13 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
             crowd = _Crowd(region, tuple(r for r in failed if enlargeable(r)))
             if ("main", scale, waive, crowd) not in views:
                 views["main", scale, waive, crowd] = _main_view(resolved, scale, font, data, waive, crowd)
-            main, mview, failed = views["main", scale, waive, crowd]
+            main, mview, failed, runout = views["main", scale, waive, crowd]
             failed = [r for r in failed if not r.auxiliary]
     if enlarge and (crowd is None or (complete and failed)):  # no detail E here, or not one that is enough
         raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: sizes left off")
+    if not runout and not force and level < SIZES_LEFT_OFF:  # the outer diameter's runout frame found no room
+        raise SheetTooSmall(f"{paper_name} {scale_text(scale)}: no room for the runout frame")
+    unplaced = [] if runout else [f"Runout {data.runout_mm:.3f} to A of the outer diameter Ø{size_text(2 * R)}"]
     label = f"SECTION ({scale_text(scale)}), datum face B = outer face"
     reach = max(0.0, (font.width(label, TEXT_HEIGHT) - (main.box[2] - main.box[0])) / 2)  # a label wider than the view
     dx, dy = _fit_main(main, frame, frame[0] + GAP + reach)
@@ -872,7 +891,8 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
     for i, dscale in enumerate(scales):
         try:
             return _right_side(resolved, data, font, paper_name, paper, frame, scale, dscale, main, mview, label_y,
-                               right_x, views, force, failed if level >= SIZES_LEFT_OFF else [], crowd, complete)
+                               right_x, views, force, failed if level >= SIZES_LEFT_OFF else [], crowd, complete,
+                               unplaced)
         except SheetTooSmall:
             if i == len(scales) - 1:
                 raise
@@ -882,11 +902,12 @@ def _compose(resolved: Resolved, data: SheetData, font: Lettering, paper_name: s
 def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name: str, paper, frame,  # type: ignore[no-untyped-def]
                 scale: float, dscale: float, main: "_Group", mview: View, label_y: float, right_x: float,
                 views: dict, force: bool, left_off: Sequence[DimensionRequest] = (), crowd: "_Crowd | None" = None,
-                complete: bool = False) -> Sheet:
+                complete: bool = False, unplaced: Sequence[str] = ()) -> Sheet:
     """The detail, revisions, cautions, notes and title block right of the main view; ``left_off`` are the
     section's sizes that found no room (``SIZES_LEFT_OFF``), named in a note with their values, as are any of
     the detail's; ``crowd``, the section's crowded region and the sizes detail E shows (``complete``: every
-    one of them, and no size left off anywhere)."""
+    one of them, and no size left off anywhere); ``unplaced``, the section's tolerance frames that found no room,
+    named in the same note."""
     if ("detail", dscale) not in views:
         views["detail", dscale] = _detail(resolved, dscale, font, data)
     detail, dview, dfailed = views["detail", dscale]
@@ -940,9 +961,9 @@ def _right_side(resolved: Resolved, data: SheetData, font: Lettering, paper_name
         note_lines: list[str] = []
         sections = [("Fits (finished sizes)", fit_lines(resolved)), ("Shop", shop_lines(resolved, data))]
         left = list(left_off) + list(efailed) + [r for r in dfailed if not r.auxiliary]  # the details' too
-        if left:
+        if left or unplaced:
             sections.append(("Not drawn for want of room",
-                             [left_off_line(r, datum_face_z(resolved)) for r in left]))
+                             [left_off_line(r, datum_face_z(resolved)) for r in left] + list(unplaced)))
         for heading, lines in numbered(sections):
             note_lines += [heading] + lines
         # the notes fill the room under the cautions, then go on under the detail (left of the title block

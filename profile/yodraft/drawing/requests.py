@@ -410,24 +410,41 @@ def _complete(resolved: Resolved, chain) -> list[DimensionRequest]:  # type: ign
 
 
 def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[DimensionRequest]:
-    """One radius dimension per value: an arc whose value another arc's dimension already shows is left to
-    the "unspecified radii" note (``unspecified_radii``); an arc of a value no dimension shows gets its own."""
-    profile = resolved.profile
-    assert profile is not None
+    """The radius dimensions: one for the value the "unspecified radii" note gives (``unspecified_radii``), and
+    one for every other arc, so the note names a single value and a turner never has to guess which unmarked
+    corner takes which radius (ISO 129-1: each feature dimensioned once, the rest by a general note).
+
+    The note's value is the one the most arcs share (the smaller on a tie); an arc no feature's radius
+    dimensions gets a dimension of its own (``profile.radius``).
+    """
     out = [r for r in requests if r.kind != "radius"]
-    shown: dict[float, DimensionRequest] = {}
-    for req in (r for r in requests if r.kind == "radius"):
+    asked = [r for r in requests if r.kind == "radius"]
+    arcs = [s for s in outline_of(resolved).segments if isinstance(s, Arc)]  # a ring's arcs too
+    by_value: dict[float, list[Arc]] = {}
+    for arc in arcs:
+        by_value.setdefault(round(arc.radius, 6), []).append(arc)
+    shared = [(len(group), value) for value, group in by_value.items() if len(group) > 1]
+    noted = min(shared, key=lambda cv: (-cv[0], cv[1]))[1] if shared else None
+    placed: list[DimensionRequest] = []  # in the order asked; the note's value once, carrying all its keys
+    for req in asked:
         value = round(measure(req), 6)
-        if value in shown:
-            shown[value] = replace(shown[value], keys=tuple(dict.fromkeys(shown[value].keys + req.keys)))
-        else:
-            shown[value] = req
-    for arc in (s for s in outline_of(resolved).segments if isinstance(s, Arc)):  # a ring's arcs too
-        value = round(arc.radius, 6)
-        if value not in shown:
-            shown[value] = DimensionRequest(("profile.radius",), "radius",
-                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start, arc.end))
-    return out + list(shown.values())
+        same = next((k for k, r in enumerate(placed) if round(measure(r), 6) == value
+                     and (value == noted or math.dist(r.points[0], req.points[0]) <= 1e-6)), None)
+        if same is None:
+            placed.append(req)
+        else:  # the note's value again, or one arc asked for twice: one dimension
+            placed[same] = replace(placed[same], keys=tuple(dict.fromkeys(placed[same].keys + req.keys)))
+    for value, group in by_value.items():
+        for arc in group[:1] if value == noted else group:  # every arc of any other value carries its own
+            if all(round(measure(r), 6) != value or (value != noted and math.dist(arc.center, r.points[0]) > 1e-6)
+                   for r in placed):
+                placed.append(_radius_request(("profile.radius",), arc))
+    return out + placed
+
+
+def _radius_request(keys: tuple[str, ...], arc: Arc) -> DimensionRequest:
+    """A radius dimension of ``arc``: its centre, its middle and its two ends (where a leader may leave it)."""
+    return DimensionRequest(keys, "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start, arc.end))
 
 
 def unspecified_radii(resolved: Resolved) -> list[float]:
