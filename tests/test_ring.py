@@ -173,6 +173,13 @@ def test_failed_ring_checks_name_the_feature_and_parameter() -> None:
     assert ("ring seat stress in the body", "ring", "fit") in failed
     assert ("ring holds the axial force", "ring", "width") in failed
     assert ("ring assembly temperature difference", "ring", "assembly_clearance") in failed
+    # the hold is worked out at the fit's least interference over the temperature range, and says which: a
+    # pressure below the summary's 20 °C range must not read as a slip
+    fit = resolved.features["ring"].extra["press_fit"]
+    lows = {20.0: fit.interference_um[0], fit.hot_c: fit.interference_hot_um[0], fit.cold_c: fit.interference_cold_um[0]}
+    at_c = min(lows, key=lows.get)
+    (hold,) = [c for c in resolved.failed if c.name == "ring holds the axial force"]
+    assert f"{fit.least_pressure_mpa:.1f} MPa (the least interference, {lows[at_c]:.1f} µm at {at_c:g} °C)" in hold.message
 
 
 def test_too_little_interference_when_hot_fails() -> None:

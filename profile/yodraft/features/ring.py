@@ -301,6 +301,9 @@ def _press_fit(ctx: Context, p: Mapping[str, Any], seat: str, material: Material
         hold_force_n=force, hold_torque_n_mm=torque, assembly=p["assembly"], assembly_delta_t_k=delta_t,
         hot_c=p["hot"], cold_c=p["cold"])
     sf = p["safety_factor"]
+    # the fit holds worst at its least interference, at whichever temperature of the range takes most of it
+    at_c = {lo_um: REFERENCE_TEMPERATURE_C, lo_um + hot: p["hot"], lo_um + cold: p["cold"]}[least]
+    at_least = f"{least_p:.1f} MPa (the least interference, {least:.1f} µm at {at_c:g} °C)"
     checks = [
         check("ring fit is an interference fit", f"{NAME}.fit", lo_um > 0,
               f"interference {lo_um:.1f} to {hi_um:.1f} µm at {REFERENCE_TEMPERATURE_C:g} °C"),
@@ -315,9 +318,9 @@ def _press_fit(ctx: Context, p: Mapping[str, Any], seat: str, material: Material
               f"{material.name} yield {material.yield_mpa:g} MPa over von Mises {ring_s.von_mises_mpa:.1f} MPa = "
               f"{sf_ring:.2f}, least {sf:g}"),
         check("ring holds the axial force", f"{NAME}.width", force >= p["hold_force"],
-              f"{force:.0f} N at μ {p['friction']:g} and {least_p:.1f} MPa, least {p['hold_force']:g} N"),
+              f"{force:.0f} N at μ {p['friction']:g} and {at_least}, least {p['hold_force']:g} N"),
         check("ring holds the torque", f"{NAME}.width", torque >= p["hold_torque"],
-              f"{torque / 1000:.2f} N·m at μ {p['friction']:g}, least {p['hold_torque'] / 1000:g} N·m"),
+              f"{torque / 1000:.2f} N·m at μ {p['friction']:g} and {at_least}, least {p['hold_torque'] / 1000:g} N·m"),
         check("ring assembly temperature difference", f"{NAME}.assembly_clearance", delta_t <= p["max_delta_t"],
               f"{result.heated_or_cooled()} by {delta_t:.0f} K to clear {p['assembly_clearance'] * 1000:.0f} µm, "
               f"at most {p['max_delta_t']:g} K"),
