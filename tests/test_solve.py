@@ -82,3 +82,27 @@ def test_solve_never_lands_finer_than_the_file_holds(tmp_path: Path, capsys: pyt
     _, err = capsys.readouterr()
     assert code == 1 and len(err.strip().splitlines()) == 1 and "bearing_seat.wall_offset" in err
     assert sorted(p.name for p in tmp_path.iterdir()) == ["st.toml"]
+
+
+def test_solve_by_a_sketch_point_writes_that_point_back(tmp_path: Path) -> None:
+    """A sketch point's size solved for mass lands in that point's own [[features.shape.points]] table."""
+    from yodraft.design import with_values
+
+    source = tmp_path / "sk.toml"
+    source.write_text((TEMPLATES / "sketched.toml").read_text())
+    design = yodraft.load(source)
+    key = "features.shape.points[1].arc_radius"
+    goal = analyse(yodraft.build(with_values(design, [(key, 40.0)]))).assembly.total_g  # reached at 40 mm
+    assert main(["solve", str(source), "--target", f"mass={goal:.4f}g", "--vary", key, "--date", "2026-12-04"]) == 0
+    solved = yodraft.load(tmp_path / "sk-B.toml")
+    points, before = solved.features["shape"]["points"], design.features["shape"]["points"]
+    assert points[1]["arc_radius"] == pytest.approx(40.0, abs=0.01)
+    assert [p for k, p in enumerate(points) if k != 1] == [p for k, p in enumerate(before) if k != 1]
+    assert analyse(yodraft.build(solved)).assembly.total_g == pytest.approx(goal, abs=0.01)
+
+
+def test_solve_by_a_point_the_design_lacks_is_bad_input(capsys: pytest.CaptureFixture[str]) -> None:
+    code = main(["solve", str(TEMPLATES / "sketched.toml"), "--target", "mass=66g",
+                 "--vary", "features.shape.points[40].arc_radius"])
+    err = capsys.readouterr().err.strip()
+    assert code == 2 and len(err.splitlines()) == 1 and "features.shape.points[40]" in err

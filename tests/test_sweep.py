@@ -28,6 +28,8 @@ DESIGN = str(TEMPLATES / "string-trick.toml")
     ("rim.band_width=6mm:3mm", "cannot be read"),
     ("design.name=1mm:2mm:3", "cannot be swept"),
     ("rim.band_width=6mm:6mm:3", "START equals STOP"),
+    ("shape.points[0].radius=1mm:2mm:3", "is past the 0 tables the design has"),  # a preset shape: no points
+    ("shape.point[0].radius=1mm:2mm:3", "is not a design key"),
 ])
 def test_bad_vary_one_line_exit_2(capsys: pytest.CaptureFixture[str], vary: str, words: str) -> None:
     assert main(["sweep", DESIGN, "--vary", vary]) == 2
@@ -185,3 +187,26 @@ def test_a_grid_value_finer_than_the_file_holds_fails_as_an_input() -> None:
     assert fine == pytest.approx([-0.0005, 0.0005])
     assert all("features.bearing_seat.wall_offset" in v.failed[0] for v in result.variants if v.inputs[0] in fine)
     assert [v.ok for v in result.variants][-2:] == [True, True]  # 0.001 and 0.0015 mm build
+
+
+SKETCHED = TEMPLATES / "sketched.toml"
+
+
+def test_a_sketch_point_is_swept_as_the_edited_file() -> None:
+    """A sketch point's size is a key like any other (``features.shape.points[2].radius``): each variant is the
+    design with that value written in the point's own [[features.shape.points]] table."""
+    from yodraft.tomledit import set_key
+
+    text = SKETCHED.read_text(encoding="utf-8")
+    design = loads(text)
+    assert design.features["shape"]["points"][2]["radius"] == pytest.approx(2.0)  # the table varied below
+    result = sweep(design, [parse_vary("shape.points[2].radius=1mm:3mm:3", design)], workers=1)
+    assert [v.inputs for v in result.variants] == [(pytest.approx(1.0),), (pytest.approx(2.0),), (pytest.approx(3.0),)]
+    for variant, value in zip(result.variants, ("1 mm", "2 mm", "3 mm")):
+        by_hand = summary(build(loads(set_key(text, "features.shape.points[2]", "radius", value))))
+        assert variant.ok is by_hand["ok"]
+        assert variant.outputs["mass.total_g"] == pytest.approx(by_hand["mass"]["total_g"], rel=1e-12)
+        assert variant.outputs["mass.izz_g_mm2"] == pytest.approx(by_hand["mass"]["izz_g_mm2"], rel=1e-12)
+    masses = [v.outputs["mass.half_g"] for v in result.variants]
+    assert masses == sorted(masses, reverse=True)  # a larger edge radius takes metal off the rim
+    assert main(["sweep", str(SKETCHED), "--vary", "shape.points[40].radius=1mm:3mm:3"]) == 2

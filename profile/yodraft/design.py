@@ -154,11 +154,19 @@ def find_param(key: str) -> tuple[list[str], ParamSpec] | None:
     key without "features.") or "shop.fit_clearance"; None when there is no such key. A key's earlier name
     finds its current path.
 
+    A table of a feature's array is named by its place, from 0: "features.shape.points[2].radius".
+
     >>> find_param("rim.band_width")[0], find_param("features.rim.width")[0]
     (['features', 'rim', 'band_width'], ['features', 'rim', 'band_width'])
+    >>> find_param("shape.points[2].arc_radius")[0]
+    ['features', 'shape', 'points[2]', 'arc_radius']
     """
     found = _param_path(key)
     return None if found is None else (list(found[0]), found[1])
+
+
+#: a table of a feature's array by its place: "points[2]" → ("points", "2")
+_ITEM = re.compile(r"^([a-z_]+)\[(\d{1,4})\]$")
 
 
 @functools.lru_cache(maxsize=256)  # a sweep makes its variants by the same few keys again and again
@@ -167,7 +175,10 @@ def _param_path(key: str) -> tuple[tuple[str, ...], ParamSpec] | None:
     parts = key.split(".")
     if parts[0] in FEATURES:
         parts = ["features"] + parts
-    if len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
+    item = _ITEM.match(parts[2]) if len(parts) == 4 and parts[0] == "features" and parts[1] in FEATURES else None
+    if item and item.group(1) in getattr(FEATURES[parts[1]], "TABLES", {}):
+        specs = FEATURES[parts[1]].TABLES[item.group(1)]
+    elif len(parts) == 3 and parts[0] == "features" and parts[1] in FEATURES:
         specs = FEATURES[parts[1]].PARAMS
     elif len(parts) == 2 and parts[0] in SECTIONS:
         specs = SECTIONS[parts[0]]
@@ -254,9 +265,25 @@ def _check_key_depth(text: str, source: str) -> None:
                                    f"at most {MAX_KEY_PARTS} parts, e.g. features.rim.band_width")
 
 
+def array_table(design: Design, parts: Sequence[str]) -> Mapping[str, Any]:
+    """The table of a feature's array a key path names, e.g. ("features", "shape", "points[2]", "radius"): the
+    design's third point; DesignInputError when the design has no table at that place."""
+    item = _ITEM.match(parts[2])
+    assert item is not None, parts
+    tables = design.features[parts[1]][item.group(1)]
+    place = int(item.group(2))
+    if place >= len(tables):
+        raise DesignInputError(design.source, ".".join(parts[:3]), f"is past the {len(tables)} tables the design has",
+                               f"a place from 0 to {len(tables) - 1}" if tables
+                               else f"a [[{parts[0]}.{parts[1]}.{item.group(1)}]] table first")
+    table: Mapping[str, Any] = tables[place]
+    return table
+
+
 def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Design:
-    """A variant of ``base``: each key path (``features.rim.band_width``, ``shop.fit_clearance``) set to a value in
-    base units (mm, g, rad …), its parsed TOML updated alike. The one way a sweep, a solve or a lot makes a variant.
+    """A variant of ``base``: each key path (``features.rim.band_width``, ``shop.fit_clearance``, a sketch point's
+    ``features.shape.points[2].radius``) set to a value in base units (mm, g, rad …), its parsed TOML updated alike.
+    The one way a sweep, a solve or a lot makes a variant.
 
     >>> d = with_values(loads(EXAMPLE_TEXT), [("features.rim.thickness", 5.0)])
     >>> d.features["rim"]["thickness"], d.raw["features"]["rim"]["thickness"], d.is_given("features.rim.thickness")
@@ -270,6 +297,8 @@ def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Desig
             raise DesignInputError(base.source, key, "is not a design key",
                                    "a key path such as features.rim.band_width or shop.fit_clearance")
         parts, spec = found
+        if len(parts) == 4:
+            array_table(base, parts)  # the table must be there
         keys.append(".".join(parts))
         changed.setdefault(parts[:-1], {})[parts[-1]] = (value, spec.written(value))
     sections, features, raw = dict(base.sections), dict(base.features), dict(base.raw)
@@ -277,7 +306,18 @@ def with_values(base: Design, assignments: Sequence[tuple[str, float]]) -> Desig
     for table, items in changed.items():  # each changed table copied once
         values = {k: v for k, (v, _) in items.items()}
         written = {k: w for k, (_, w) in items.items()}
-        if table[0] == "features":
+        item = _ITEM.match(table[2]) if len(table) == 3 else None
+        if item:  # one table of a feature's array: the array copied with that table replaced
+            name, place = item.group(1), int(item.group(2))
+            tables = list(features[table[1]][name])
+            tables[place] = {**tables[place], **values}
+            features[table[1]] = {**features[table[1]], name: tuple(tables)}
+            raw_table = dict(raw_features.get(table[1], {}))
+            raw_items = list(raw_table.get(name, []))
+            raw_items[place] = {**raw_items[place], **written}
+            raw_features[table[1]] = {**raw_table, name: raw_items}
+            raw["features"] = raw_features
+        elif table[0] == "features":
             features[table[1]] = {**features[table[1]], **values}
             raw_features[table[1]] = {**raw_features.get(table[1], {}), **written}
             raw["features"] = raw_features

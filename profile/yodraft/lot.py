@@ -38,7 +38,7 @@ import math
 import os
 import threading
 from collections.abc import Callable, Mapping, Sequence
-from dataclasses import dataclass, field, replace
+from dataclasses import dataclass, field
 from typing import Any
 
 import numpy as np
@@ -267,18 +267,7 @@ def lot_bands(resolved: Resolved) -> tuple[tuple[Band, ...], tuple[Band, ...], t
 def _pinned(design: Design, values: Mapping[str, float]) -> Design:
     """The design with each key set to a value (mm, rad): ``features.<feature>.<param>`` keys, and the sizes of
     a sketch's points as ``features.shape.points[i].<size>``."""
-    plain = [(key, float(value)) for key, value in values.items() if "[" not in key]
-    pinned = with_values(design, plain)
-    sketched = [(key, value) for key, value in values.items() if "[" in key]
-    if not sketched:
-        return pinned
-    points = [dict(point) for point in design.features["shape"]["points"]]
-    for key, value in sketched:
-        index, name = key.removeprefix("features.shape.points[").split("].")
-        points[int(index)][name] = float(value)
-    features = dict(pinned.features)
-    features["shape"] = {**features["shape"], "points": points}
-    return replace(pinned, features=features)
+    return with_values(design, [(key, float(value)) for key, value in values.items()])
 
 
 def _unit_props(design: Design, memo: BuildMemo | None = None) -> tuple[float, float] | None:

@@ -12,7 +12,7 @@ from typing import Any
 
 from .analysis import analyse
 from .builder import Resolved, build
-from .design import Design, find_param, loads, with_values
+from .design import Design, array_table, find_param, loads, with_values
 from .errors import DesignInputError
 from .params import SMALLEST, ParamSpec
 from .tomledit import add_revision, set_key
@@ -60,6 +60,9 @@ def quantity_text(value: float, spec: ParamSpec) -> Any:
 
 def _current(design: Design, parts: list[str], spec: ParamSpec) -> float | None:
     section: Mapping[str, Any] = design.features[parts[1]] if parts[0] == "features" else design[parts[0]]
+    if len(parts) == 4:  # a table of a feature's array, e.g. features.shape.points[2]
+        point = array_table(design, parts)[parts[-1]]
+        return point if isinstance(point, float) else None  # a point's size is given, or not there to move
     value = section[parts[-1]]
     if value is None:
         resolved = build(design)
@@ -191,7 +194,13 @@ def solved_text(source_text: str, result: SolveResult, goal_text: str, revision:
     history line saying what was solved; it must read back as a design."""
     value_text = quantity_text(result.value, result.spec)
     table, _, key = result.key.rpartition(".")
-    text = set_key(source_text, table, key, value_text, f"solved for {result.target} {goal_text}", result.spec.former)
+    try:
+        text = set_key(source_text, table, key, value_text, f"solved for {result.target} {goal_text}",
+                       result.spec.former)
+    except KeyError:  # an array written inline, not as one [[table]] a point
+        array = table.rpartition("[")[0]
+        raise DesignInputError(out, result.key, f"cannot be written back: {array} is not written as [[{array}]] tables",
+                               f"one [[{array}]] table a point") from None
     text = set_key(text, "design", "revision", revision)
     text = add_revision(text, revision, date, f"{result.key} solved to {value_text} for {result.target} {goal_text}")
     loads(text, out)

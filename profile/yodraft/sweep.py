@@ -47,7 +47,7 @@ MAX_VARIANTS = 100_000
 OUTPUT_KEYS = ("profile.gap_mm", "profile.outer_diameter_mm", "profile.width_mm", "bearing_seat.clearance_min_mm",
                "bearing_seat.clearance_max_mm", "mass.half_g", "mass.total_g", "mass.izz_g_mm2", "mass.ixx_g_mm2",
                "spin.rim_share")
-_VARY = re.compile(r"^\s*([A-Za-z0-9_.]+)\s*=\s*([^:]+):([^:]+):\s*([^:]*?)\s*$")
+_VARY = re.compile(r"^\s*([A-Za-z0-9_.\[\]]+)\s*=\s*([^:]+):([^:]+):\s*([^:]*?)\s*$")
 
 
 @dataclass(frozen=True)
@@ -126,6 +126,10 @@ def parse_vary(text: str, design: "Design") -> Axis:
         raise DesignInputError(where, key, "is not a design key",
                                "a key path such as features.rim.band_width or shop.fit_clearance")
     parts, spec = found
+    if len(parts) == 4:  # a table of a feature's array (a sketch's point): the design must have it
+        from .design import array_table
+
+        array_table(design, parts)
     # the column keeps the name the user wrote (a key's earlier name too); with_values finds its current path
     full = ".".join(parts[:-1] + [key.rpartition(".")[2]])
     if spec.kind not in DISPLAY_UNITS:

@@ -13,9 +13,18 @@ def _value(value: Any) -> str:
 
 
 def _table_span(lines: list[str], table: str) -> tuple[int, int] | None:
-    header = re.compile(rf"^\s*\[\s*{re.escape(table)}\s*\]\s*(#.*)?$")
+    """The lines of ``[table]`` (header, end), or of the n-th ``[[array]]`` table for ``array[n]``; None if absent."""
+    item = re.match(r"^(.+)\[(\d+)\]$", table)
+    if item:
+        header = re.compile(rf"^\s*\[\[\s*{re.escape(item.group(1))}\s*\]\]\s*(#.*)?$")
+        place = int(item.group(2))
+    else:
+        header, place = re.compile(rf"^\s*\[\s*{re.escape(table)}\s*\]\s*(#.*)?$"), 0
     for i, line in enumerate(lines):
         if header.match(line):
+            if place:
+                place -= 1
+                continue
             end = next((j for j in range(i + 1, len(lines)) if lines[j].lstrip().startswith("[")), len(lines))
             return i, end
     return None
@@ -23,16 +32,26 @@ def _table_span(lines: list[str], table: str) -> tuple[int, int] | None:
 
 def set_key(text: str, table: str, key: str, value: Any, comment: str = "", former: str = "") -> str:
     """``text`` with ``key`` in ``[table]`` set to ``value`` (added, with the table, if missing); a line that
-    gives the key under its earlier name ``former`` is the one replaced.
+    gives the key under its earlier name ``former`` is the one replaced. ``table`` may name the n-th table of an
+    array, ``features.shape.points[1]``, which must be written as ``[[features.shape.points]]`` tables (KeyError
+    if it is not there).
 
     >>> print(set_key('[design]\\nname = "a"  # x\\n', "design", "name", "b"))
     [design]
     name = "b"
     <BLANKLINE>
+    >>> print(set_key('[[p]]\\nr = "1 mm"\\n\\n[[p]]\\nr = "2 mm"\\n', "p[1]", "r", "3 mm"), end="")
+    [[p]]
+    r = "1 mm"
+    <BLANKLINE>
+    [[p]]
+    r = "3 mm"
     """
     lines = text.splitlines()
     new = f"{key} = {_value(value)}" + (f"  # {comment}" if comment else "")
     span = _table_span(lines, table)
+    if span is None and table.endswith("]"):
+        raise KeyError(table)
     if span is None:
         lines += ["", f"[{table}]", new]
     else:
