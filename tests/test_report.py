@@ -78,3 +78,16 @@ def test_axle_major_diameter_is_a_length_whatever_the_thread(thread: str, major_
     assert f"| major_diameter_mm | {major_mm:.6g} mm |" in capsys.readouterr().out
     assert main(["check", str(path)]) == 0
     assert re.search(rf"major_diameter +{major_mm:.4f} mm\n", capsys.readouterr().out)
+
+
+def test_a_design_of_name_and_envelope_alone_reads_without_python_words(tmp_path: Path,
+                                                                       capsys: pytest.CaptureFixture[str]) -> None:
+    """Everything else taken from its defaults: a value left for a later feature to settle (the rim band, which
+    the catch zone gives) reads as "—" in the terminal, as in the report, never as Python's None."""
+    path = tmp_path / "minimal.toml"
+    path.write_text('[design]\nname = "minimal"\n\n[envelope]\ndiameter = "56 mm"\nwidth = "44 mm"\n', encoding="utf-8")
+    assert main(["check", str(path)]) == 0
+    text = capsys.readouterr().out
+    assert re.search(r"band_width +—\n", text) and "None" not in text
+    assert main(["report", str(path)]) == 0
+    assert "None" not in capsys.readouterr().out

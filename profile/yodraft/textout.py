@@ -10,6 +10,8 @@ __all__ = ["check_text", "mass_lines", "failed_lines", "fit_text", "ring_lines"]
 
 
 def _fmt(key: str, value: object) -> str:
+    if value is None:  # not given, and left for a later feature to settle (as the report writes it)
+        return "—"
     if is_dimension(value) and key.endswith("angle"):
         return f"{math.degrees(value):.2f}°"
     if is_dimension(value):
