@@ -897,3 +897,25 @@ def test_a_runout_frame_with_no_room_anywhere_is_named_not_dropped(resolved, mon
     runout = f"{sheet_data(resolved).runout_mm:.3f}"
     assert "Not drawn for want of room" in notes
     assert f"Runout {runout} to A of the outer diameter Ø{resolved.values['rim.diameter']:g}" in notes.replace("%%c", "Ø")
+
+
+@pytest.mark.parametrize(("sizes", "inch"), [
+    (('"0.25 in"', '"0.5 in"', '"0.25 in"'), True),  # a wide inch bearing, 1/4 × 1/2 × 1/4 in
+    (('"6.35 mm"', '"12.7 mm"', '"6.35 mm"'), False),  # the same bearing written in millimetres
+])
+def test_a_bearing_given_by_its_sizes_keeps_the_units_it_was_given_in(sizes, inch, tmp_path):
+    """A bearing given by bore, outside diameter and width all in inches is an inch bearing: its seat sizes carry
+    their inch values as a catalog inch bearing's do (1 in = 25.4 mm exactly, ISO 80000-3 annex); its unknown
+    bore chamfer is said to be unknown, not written as a chamfer of 0."""
+    bore, od, width = sizes
+    path = _edited(tmp_path, [('size = "C"', f"bore = {bore}\nod = {od}\nwidth = {width}")])
+    resolved = build(load(path))
+    assert resolved.ok, resolved.failed
+    data = render_files(resolved, "x")["x.dxf"]
+    _check_sheet(data)
+    doc, _ = _read(data)
+    notes = _paper_texts(doc)
+    assert ("[0.2500 × 0.5000 × 0.2500 in]" in notes) is inch
+    post_in = resolved["bearing_seat.post_diameter"] / 25.4
+    assert (f"[{post_in:.5f}" in notes) is inch
+    assert "bearing bore chamfer not known" in notes and "chamfer 0)" not in notes

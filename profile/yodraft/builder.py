@@ -81,7 +81,10 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
         raise DesignInputError(design.source, f"bearing.{missing}", "is missing",
                                "bore, od and width together, or a size alone")
     if explicit:
-        designation, bore, od, width, mass, inch = "custom", b["bore"], b["od"], b["width"], 0.0, False
+        # a bearing given by its sizes is an inch bearing when all three are written in inches (its sizes on the
+        # sheet then carry their inch values, as a catalog inch bearing's do)
+        inch = _sizes_in_inches(design)
+        designation, bore, od, width, mass = "custom", b["bore"], b["od"], b["width"], 0.0
         chamfer = 0.0  # unknown: the post/seat-face corner is drawn for a sharp-edged ring
         if not bore < od:
             raise DesignInputError(design.source, "bearing.od", "is not larger than the bore", "od above bore")
@@ -112,6 +115,14 @@ def resolve_bearing(design: Design) -> dict[str, Any]:
             "bearing.mass": mass, "bearing.inch": inch, "bearing.precision": b["precision"],
             "bearing.bore_deviation_um": bore_dev, "bearing.od_deviation_um": od_dev,
             "bearing.width_deviation_um": width_dev, "bearing.chamfer": chamfer}
+
+
+def _sizes_in_inches(design: Design) -> bool:
+    """Whether the design file gives the bearing's bore, outside diameter and width all in inches."""
+    from .units import in_inches
+
+    written = design.raw.get("bearing", {})
+    return all(in_inches(written.get(k)) for k in ("bore", "od", "width"))
 
 
 def resolve_material(design: Design) -> dict[str, Any]:
@@ -247,7 +258,7 @@ def compose(design: Design, memo: BuildMemo | None = None) -> Composed:
     """Resolve every feature of ``design`` in order and compose the half-profile from their corners."""
     memo = memo if memo is not None else BuildMemo()
     values: dict[str, Any] = {}
-    bearing = memo.source("bearing", design["bearing"], lambda: resolve_bearing(design))
+    bearing = memo.source("bearing", (design["bearing"], _sizes_in_inches(design)), lambda: resolve_bearing(design))
     material = memo.source("material", design["design"], lambda: resolve_material(design))
     envelope = design["envelope"]
     values.update(bearing)

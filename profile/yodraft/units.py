@@ -23,7 +23,7 @@ from .errors import toml_shown
 if TYPE_CHECKING:  # pragma: no cover
     import pint
 
-__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "is_dimension", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH",
+__all__ = ["registry", "parse_quantity", "COMMON_UNITS", "written", "is_dimension", "in_inches", "unit_of", "KINDS", "DISPLAY_UNITS", "MM_PER_INCH",
            "SHEET_RESOLUTION_MM", "UnitError"]
 
 MM_PER_INCH = 25.4  # exact by the international yard and pound agreement, 1959
@@ -81,6 +81,16 @@ def is_dimension(value: object) -> bool:
     (True, True, False, False)
     """
     return isinstance(value, (int, float)) and not isinstance(value, bool)
+
+
+def in_inches(text: object) -> bool:
+    """Whether a length is written in inches in a design file.
+
+    >>> in_inches("0.25 in"), in_inches(" 0.25inch "), in_inches("6.35 mm"), in_inches(6.35)
+    (True, True, False, False)
+    """
+    match = _PATTERN.match(text) if isinstance(text, str) else None
+    return match is not None and "".join(match.group(2).split()) in ("in", "inch")
 
 
 def unit_of(key: str) -> str:

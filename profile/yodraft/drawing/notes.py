@@ -132,8 +132,10 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
                    f"Ø{size_text(fit.wall.precoat_mm)} ±{size_text(fit.wall.turn_tolerance_mm)}")
     brk = shop["break_edges"]
     passing = seat_corner_passing_mm(resolved)
+    chamfer = resolved["bearing.chamfer"]
+    why = f"bearing bore chamfer {size_text(chamfer)}" if chamfer > 0 else "bearing bore chamfer not known"
     out.append(f"Edges ISO 13715: external -{brk:g}, internal -{brk:g}; post/seat-face corner "
-               f"+{passing:g}/-{brk:g} (bearing bore chamfer {size_text(resolved['bearing.chamfer'])})")
+               f"+{passing:g}/-{brk:g} ({why})")
     d = resolved.features["axle_bore"].dims
     size = resolved.features["axle_bore"].extra["thread"].drill_size  # an inch drill is bought by its number
     drill = f"{size} (Ø{size_text(d['tap_drill'])})" if size else f"Ø{d['tap_drill']:g}"
