@@ -420,7 +420,6 @@ def test_designs_at_the_edges_build_a_clean_sheet(case, tmp_path):
     doc, _ = _read(dxf.read_bytes())
     assert _sheet_texts(doc).count(f"{sheet_data(resolved).runout_mm:.3f}") == 2
     # every title-block and revision text is on the sheet in full (wrapped lines rejoined without spaces)
-    doc, _ = _read(dxf.read_bytes())
     shown = "".join(t.plain_text() for t in doc.paperspace("sheet").query("TEXT")).replace(" ", "")
     for key in ("title", "owner", "identification", "creator", "approver", "revision", "letter", "note"):
         for line in design.read_text(encoding="utf-8").splitlines():
@@ -851,8 +850,8 @@ def test_the_unspecified_radii_note_gives_one_value_and_every_other_arc_its_own(
     data = render_files(resolved, "x")["x.dxf"]
     _check_sheet(data)
     doc, _ = _read(data)
-    noted = [re.findall(r"R(\d+(?:\.\d+)?)", t.split("unspecified radii", 1)[1])
-             for t in _sheet_texts(doc, ("TEXT", "MTEXT")) if "unspecified radii" in t]
+    texts = " ".join(_sheet_texts(doc, ("TEXT", "MTEXT")))  # a wrapped note's lines rejoined
+    noted = [re.findall(r"R(\d+(?:\.\d+)?)", m) for m in re.findall(r"unspecified radii ((?:R[\d.]+,? ?)+)", texts)]
     assert len(noted) <= 1 and all(len(values) == 1 for values in noted), noted
     note = float(noted[0][0]) if noted else None
     radial = [d for d in doc.modelspace().query("DIMENSION") if d.dimtype in (3, 4)]  # diameter 3, radius 4 (DXF)
@@ -905,7 +904,7 @@ def test_a_runout_frame_with_no_room_anywhere_is_named_not_dropped(resolved, mon
 ])
 def test_a_bearing_given_by_its_sizes_keeps_the_units_it_was_given_in(sizes, inch, tmp_path):
     """A bearing given by bore, outside diameter and width all in inches is an inch bearing: its seat sizes carry
-    their inch values as a catalog inch bearing's do (1 in = 25.4 mm exactly, ISO 80000-3 annex); its unknown
+    their inch values as a catalog inch bearing's do (1 in = 25.4 mm exactly, ISO 31-1 annex A); its unknown
     bore chamfer is said to be unknown, not written as a chamfer of 0."""
     bore, od, width = sizes
     path = _edited(tmp_path, [('size = "C"', f"bore = {bore}\nod = {od}\nwidth = {width}")])
