@@ -263,9 +263,10 @@ ALL, WITHOUT_AUXILIARY, SPACING_WAIVED, SIZES_LEFT_OFF = 0, 1, 2, 3
 
 
 def _main_view(resolved: Resolved, scale: float, font: Lettering, data: SheetData,
-               waive_spacing: bool = False, crowd: "_Crowd | None" = None) -> tuple[_Group, View, list]:
-    """The section with its dimensions, datums and runout; and the requests that found no room (with
-    ``waive_spacing``, only functional ones: the auxiliary ones are left out, see ``SPACING_WAIVED``).
+               waive_spacing: bool = False, crowd: "_Crowd | None" = None) -> tuple[_Group, View, list, bool]:
+    """The section with its dimensions, datums and runout; the requests that found no room (with
+    ``waive_spacing``, only functional ones: the auxiliary ones are left out, see ``SPACING_WAIVED``); and
+    whether the outer diameter's runout frame found room.
     ``crowd``: the region of the enlarged detail E, marked on the view, and the sizes it shows instead."""
     profile = resolved.profile
     assert profile is not None

@@ -14,6 +14,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, replace
+from typing import Any
 
 from ..builder import Resolved
 from ..geometry import Arc, Point, Profile, arc_through
@@ -22,7 +23,7 @@ from .locate import corner as _vertex_or_corner
 from .numbers import size_text, tolerance_text
 
 __all__ = ["DimensionRequest", "KINDS", "VIEWS", "SIDES", "measure", "label", "format_value", "text_lines",
-           "section_requests", "detail_requests", "sheet_requests", "unspecified_radii", "shape_requests", "detail_region", "crowd_region", "enlargeable", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
+           "section_requests", "detail_requests", "sheet_requests", "radius_request", "unspecified_radii", "shape_requests", "detail_region", "crowd_region", "enlargeable", "DATUM_A_KEY", "datum_face_z", "thread_callout", "DIA", "seat_fit"]
 
 DIA = "Ø"
 DATUM_A_KEY = "bearing_seat.post_diameter"  # the dimension whose feature is datum A: the bearing seat's axis
@@ -387,8 +388,7 @@ def _rim_requests(resolved: Resolved) -> list[DimensionRequest]:
     ):
         arc = _arc_near(drawn, v[key], near)
         if arc is not None:
-            mid = arc.point_at(arc.start_angle + arc.sweep / 2)
-            out.append(DimensionRequest((key,), "radius", (arc.center, mid, arc.start, arc.end), decimals=2))
+            out.append(radius_request((key,), arc, decimals=2))
     return out
 
 
@@ -438,13 +438,15 @@ def _radii(resolved: Resolved, requests: list[DimensionRequest]) -> list[Dimensi
         for arc in group[:1] if value == noted else group:  # every arc of any other value carries its own
             if all(round(measure(r), 6) != value or (value != noted and math.dist(arc.center, r.points[0]) > 1e-6)
                    for r in placed):
-                placed.append(_radius_request(("profile.radius",), arc))
+                placed.append(radius_request(("profile.radius",), arc))
     return out + placed
 
 
-def _radius_request(keys: tuple[str, ...], arc: Arc) -> DimensionRequest:
-    """A radius dimension of ``arc``: its centre, its middle and its two ends (where a leader may leave it)."""
-    return DimensionRequest(keys, "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start, arc.end))
+def radius_request(keys: tuple[str, ...], arc: Arc, **fields: Any) -> DimensionRequest:
+    """A radius dimension of ``arc``: its centre, its middle and its two ends (where a leader may leave it);
+    ``fields``, any other of the request's fields (``decimals``, ``view``)."""
+    return DimensionRequest(keys, "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start,
+                                             arc.end), **fields)
 
 
 def unspecified_radii(resolved: Resolved) -> list[float]:
@@ -484,15 +486,13 @@ def shape_requests(resolved: Resolved) -> list[DimensionRequest]:
         if c.radius > 0:
             arc = _arc_near(drawn, c.radius, at)
             if arc is not None:
-                out.append(DimensionRequest((c.owner,), "radius", (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2),
-                                                                   arc.start, arc.end)))
+                out.append(radius_request((c.owner,), arc))
         if c.sweep and arc_key:
             whole = arc_through(c.point, corners[k + 1].point, c.sweep)  # fillets at its ends may trim it
             arc = next((s for s in profile.segments if isinstance(s, Arc) and abs(s.radius - whole.radius) < 1e-6
                         and math.dist(s.center, whole.center) < 1e-6), None)
             if arc is not None:  # None: the corner radii at its ends take the whole arc, and they are dimensioned
-                out.append(DimensionRequest((arc_key,), "radius",
-                                            (arc.center, arc.point_at(arc.start_angle + arc.sweep / 2), arc.start, arc.end)))
+                out.append(radius_request((arc_key,), arc))
     start_d = round(v["shape.start_diameter"], 6)
     for d, (keys, at) in sorted(diameters.items()):
         first = d == start_d

@@ -22,7 +22,7 @@ from .lettering import Lettering, lettering
 from .locate import corner, on_radius
 from .notes import SheetData, caution_lines, sheet_number
 from .numbers import size_text
-from .requests import DimensionRequest
+from .requests import DimensionRequest, radius_request
 from .sheetdata import Item, Sheet, Stroke, View
 
 __all__ = ["compose_ring", "deviations", "ring_fit_text", "seat_fit_text", "ring_note_lines", "ring_requests", "RING_SCALES",
@@ -122,9 +122,7 @@ def ring_requests(profile: Profile, fit, general: str = "") -> list[DimensionReq
                          view="detail", direction="radial", side="right"),
     ]
     for arc in (s for s in profile.segments if isinstance(s, Arc)):
-        mid = arc.point_at(arc.start_angle + arc.sweep / 2)
-        wanted.append(DimensionRequest(("ring.edge_radius",), "radius", (arc.center, mid, arc.start, arc.end),
-                                       view="detail"))
+        wanted.append(radius_request(("ring.edge_radius",), arc, view="detail"))
     settled, chain = settle(wanted, profile, z1)
     for c in chain.unlocated():  # nothing is left today; a new ring outline gets its positions all the same
         if not chain.z.located(c[0]):
