@@ -206,15 +206,19 @@ def _views(part, font: Lettering, requests: list[DimensionRequest], left: tuple[
             dh = detail.box[3] - detail.box[1] + 3 * PAD + TEXT_HEIGHT
             if dw > room_w or dh > height - 2 * GAP or (dfailed and not force):
                 continue
-            left_off = [r for r in failed + dfailed if not r.auxiliary]
-            return _arrange(font, left, section, sview, detail, dview, scale, dscale) + (left_off,)
+            return _arrange(font, left, section, sview, detail, dview, scale, dscale) + (_functional(failed + dfailed),)
     if not force:
         raise _NoRoom("no scale fits")
     # nothing fits the half sheet: the smallest scales, every size that finds no room named
     section, sview, failed = _section(part, RING_SCALES[-1], font, requests, region)
     detail, dview, dfailed = _detail(part, DETAIL_SCALES[-1], font, requests, region)
-    left_off = [r for r in failed + dfailed if not r.auxiliary]
-    return _arrange(font, left, section, sview, detail, dview, RING_SCALES[-1], DETAIL_SCALES[-1]) + (left_off,)
+    return (_arrange(font, left, section, sview, detail, dview, RING_SCALES[-1], DETAIL_SCALES[-1])
+            + (_functional(failed + dfailed),))
+
+
+def _functional(failed: list[DimensionRequest]) -> list[DimensionRequest]:
+    """The sizes with no room that the sheet must name: every one but an auxiliary (it follows from the others)."""
+    return [r for r in failed if not r.auxiliary]
 
 
 def _arrange(font: Lettering, left, section: _Group, sview: View, detail: _Group, dview: View,  # type: ignore[no-untyped-def]
