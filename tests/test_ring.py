@@ -209,6 +209,21 @@ def test_face_ring_bore_clears_the_groove_wall_when_pressed() -> None:
                for c in tight.failed)  # 10 µm on the diameter is less than the shrink
 
 
+def test_a_face_groove_running_off_a_stepped_face_names_the_seat() -> None:
+    # a stepped outer shape's face ends at the step's diameter; a groove reaching past it would cut the
+    # body's loop across itself, so it is the seat that fails, with where the face ends, not "the loop crosses itself"
+    text = set_key(set_key(BIMETAL, "features.shape", "kind", "stepped"), "features.shape", "step_diameter", "54.5 mm")
+    resolved = _build(_with(text, seat="face", diameter="55.5 mm", thickness="2 mm", hold_force="100 N"))
+    failed = {(c.name, c.feature, c.parameter): c.message for c in resolved.failed}
+    message = failed[("ring seat on the body", "ring", "seat")]
+    # the face's flat ends at the step's radius, 27.25 mm; the groove's mouth reaches the ring's 27.75 mm radius
+    assert "r = 27.750 mm runs off the straight edge it starts on, which ends at z = 22.000, r = 27.250 mm" in message
+    assert ("closed simple loop", "profile", "loop") not in failed
+    assert not resolved.can_analyse  # a ring with no seat would overlap the body: its mass would count twice
+    inside = _build(_with(text, seat="face", diameter="53 mm", thickness="1.5 mm", hold_force="100 N"))
+    assert inside.ok, inside.failed  # a groove within the step's face is cut as before
+
+
 def test_face_seat_sheets_hold_the_groove_wall_clear() -> None:
     resolved = _build(_with(BIMETAL, seat="face", hold_force="100 N"))
     files = render_files(resolved, "t")

@@ -136,8 +136,9 @@ _BACK_WALL_CHECKS = tuple((feature, f"{feature}.{chunk}", where, f"wall between 
 
 
 #: the checks a half must pass before its mass can be integrated (one simple loop, none of it below the axis,
-#: an axle of positive length)
-ANALYSIS_PREREQUISITES = frozenset({"closed simple loop", "above the spin axis", "axle reaches both halves"})
+#: an axle of positive length, and every part's seat cut into the body: a part with no seat would overlap it)
+ANALYSIS_PREREQUISITES = frozenset({"closed simple loop", "above the spin axis", "axle reaches both halves",
+                                    "ring seat on the body"})
 
 #: chord error of the flattened loop whose topology is checked: far below any wall the rules allow
 LOOP_CHECK_TOLERANCE = 0.02

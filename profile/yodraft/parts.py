@@ -63,12 +63,22 @@ def cut_seats(vertices: Sequence[FilletVertex], seats: Sequence[SeatCut]) -> tup
                 continue
             message = f"the body has no corner at z = {seat.at[0]:.3f}, r = {seat.at[1]:.3f} mm for the seat"
         else:
-            n = len(points)
-            hit = next((i for i in range(n) if _on_edge(points[i], points[(i + 1) % n], seat.at)), None)
+            # the seat's mouth, from ``at`` to its last corner, must lie on the one edge it is cut into
+            n, mouth = len(points), seat.corners[-1].point
+            edges = [i for i in range(n) if _on_edge(points[i], points[(i + 1) % n], seat.at)]
+            hit = next((i for i in edges if _on_edge(points[i], points[(i + 1) % n], mouth)
+                        and math.dist(points[i], seat.at) < math.dist(points[i], mouth)), None)
             if hit is not None:
                 out[hit + 1:hit + 1] = seat.corners
                 continue
-            message = f"the body has no straight edge through z = {seat.at[0]:.3f}, r = {seat.at[1]:.3f} mm for the seat"
+            if edges:
+                end = points[(edges[0] + 1) % n]
+                message = (f"the seat's mouth from z = {seat.at[0]:.3f}, r = {seat.at[1]:.3f} to z = {mouth[0]:.3f}, "
+                           f"r = {mouth[1]:.3f} mm runs off the straight edge it starts on, which ends at "
+                           f"z = {end[0]:.3f}, r = {end[1]:.3f} mm")
+            else:
+                message = (f"the body has no straight edge through z = {seat.at[0]:.3f}, r = {seat.at[1]:.3f} mm "
+                           f"for the seat")
         failed.append(check("ring seat on the body", seat.where, False, message))
     return out, failed
 
