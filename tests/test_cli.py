@@ -53,6 +53,20 @@ def test_failing_design_exits_1_and_names_checks(tmp_path: Path, capsys: pytest.
     assert not out_dir.exists() or not any(out_dir.iterdir())
 
 
+def test_check_ends_with_the_failed_lines_the_readme_shows(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    # the README's exit-code paragraph: "FAILED bearing_seat.wall_offset: gap below bearing width: ..." on stdout
+    text = (TEMPLATES / "string-trick.toml").read_text().replace('wall_offset = "0.2 mm"', 'wall_offset = "-3 mm"')
+    design = tmp_path / "bad.toml"
+    design.write_text(text)
+    code, out, err = run(capsys, "check", str(design))
+    assert code == 1
+    tail = out.rstrip().rpartition("\n\n")[2].splitlines()  # the last block of lines
+    assert f"{len(tail)} check(s) failed" in err and all(line.startswith("FAILED ") for line in tail)
+    assert any(line.startswith("FAILED bearing_seat.wall_offset: gap below bearing width: ") for line in tail)
+    passing = run(capsys, "check", str(TEMPLATES / "string-trick.toml"))[1]
+    assert "FAILED" not in passing
+
+
 def test_bad_input_exits_2_with_one_line(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
     design = tmp_path / "bad.toml"
     design.write_text('[design]\nname = "x"\n[envelope]\ndiameter = 56\nwidth = "44 mm"\n')

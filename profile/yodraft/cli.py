@@ -489,6 +489,10 @@ def _check(args: argparse.Namespace) -> int:
         print(json.dumps(summary(resolved), indent=2, sort_keys=False, ensure_ascii=False))
     else:
         print(check_text(resolved))
+        if not resolved.ok:  # the failures again at the end, one line each, as build, lot and bom give them
+            from .textout import failed_lines
+
+            print("\n" + "\n".join(failed_lines(resolved)))
     if not resolved.ok:
         raise CheckFailure(str(args.design), resolved.failed)  # the report is on stdout; one line on stderr
     return 0
