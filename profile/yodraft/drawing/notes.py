@@ -11,7 +11,7 @@ from ..tolerances.seat import DiameterFit
 from ..units import MM_PER_INCH as IN
 from .numbers import deviation_text, limits_um, size_text
 
-__all__ = ["SheetData", "fit_lines", "shop_lines", "caution_lines", "numbered", "sheet_number", "seat_corner_passing_mm",
+__all__ = ["SheetData", "fit_lines", "shop_lines", "material_line", "caution_lines", "numbered", "sheet_number", "seat_corner_passing_mm",
            "thread_designation", "IN"]
 
 
@@ -110,14 +110,29 @@ def fit_lines(resolved: Resolved) -> list[str]:
     return out
 
 
+def material_line(name: str, designation: str, source: str) -> str:
+    """The material as ordered: its catalog name, its standard designation and that standard, each said once.
+
+    >>> material_line("6061-T6", "EN AW-6061-T6", "EN 573-3 (alloy), EN 515 (temper) (from memory)")
+    'Material 6061-T6 = EN AW-6061-T6 (EN 573-3)'
+    >>> material_line("Ti-6Al-4V", "Ti-6Al-4V, ASTM B348 Grade 5", "ASTM B348 (from memory)")
+    'Material Ti-6Al-4V, ASTM B348 Grade 5'
+    """
+    if not designation or designation == name:
+        return f"Material {name}"
+    standard = source.split(" (")[0].split(";")[0]
+    named = designation if designation.startswith(name) else f"{name} = {designation}"
+    return f"Material {named}" + ("" if standard in designation else f" ({standard})")
+
+
 def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     """Coating, edges, the axle hole, seat finish, runout basis and general tolerance."""
     shop = resolved.design["shop"]
     fit = resolved.seat_fit
     out = []
     if resolved["material.designation"] and resolved["material.designation"] != resolved["material.name"]:
-        standard = resolved["material.designation_source"].split(" (")[0].split(";")[0]
-        out.append(f"Material {resolved['material.name']} = {resolved['material.designation']} ({standard})")
+        out.append(material_line(resolved["material.name"], resolved["material.designation"],
+                                 resolved["material.designation_source"]))
     thin = shop["coating_thickness"]
     thick = shop["coating_thickness_max"] if shop["coating_thickness_max"] is not None else thin
     thickness = (f"{thin * 1000:.1f}…{thick * 1000:.1f} µm [{thin / IN:.4f}…{thick / IN:.4f} in]" if thick > thin

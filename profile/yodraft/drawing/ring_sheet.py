@@ -20,7 +20,7 @@ from .compose import (DETAIL_SCALES, GAP, PAD, PAPERS, PART_HATCH, TITLE_WIDTH, 
 from .layout import TEXT_HEIGHT, Placer
 from .lettering import Lettering, lettering
 from .locate import corner, on_radius
-from .notes import SheetData, caution_lines, sheet_number
+from .notes import SheetData, caution_lines, material_line, sheet_number
 from .numbers import size_text
 from .requests import DimensionRequest, radius_request
 from .sheetdata import Item, Sheet, Stroke, View
@@ -91,13 +91,6 @@ def ring_note_lines(fit, body_sheet: str = "", edge_radius_mm: float = 0.0) -> l
         + (f" and turn its R{size_text(edge_radius_mm)} edge" if edge_radius_mm > 0 else ""),
     ] + ([f"Outside Ø{size_text(fit.ring_diameters_mm[1])} is the rim diameter: finish-turned with the body after "
           f"pressing{where}; leave stock on it here"] if fit.seat == "outer diameter" else [])
-
-
-def _material_line(m) -> str:  # type: ignore[no-untyped-def]
-    if m.designation and m.designation != m.name:
-        standard = m.designation_source.split(" (")[0].split(";")[0]
-        return f"Material {m.name} = {m.designation} ({standard})"
-    return f"Material {m.name}"
 
 
 def ring_requests(profile: Profile, fit, general: str = "") -> list[DimensionRequest]:  # type: ignore[no-untyped-def]
@@ -272,10 +265,12 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     rev = _revision_block(font, resolved, (right_x, frame[3]), frame[2] - right_x)
     items += rev
     body_sheet = body_sheet or f"{d['design']['identification'] or d.name} sheet {sheet_number(resolved)}"
-    notes = [_material_line(fit.material)] + ring_note_lines(fit, body_sheet, resolved.values["ring.edge_radius"]) + [
-        f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
-        f"fit surface Ra 0.8 µm",
-        f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
+    m = fit.material
+    notes = [material_line(m.name, m.designation, m.designation_source),
+             *ring_note_lines(fit, body_sheet, resolved.values["ring.edge_radius"]),
+             f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
+             f"fit surface Ra 0.8 µm",
+             f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
     if left_off:  # a size with no room on the views is named with its value, never dropped unsaid
         face_z = part.profile.bounds()[2]  # the ring's outer face, flush with the half's face B
         notes += ["Not drawn for want of room: " + "; ".join(left_off_line(r, face_z, "the outer face") for r in left_off)]
