@@ -167,6 +167,20 @@ def test_every_seat_builds_and_keeps_the_parts_apart(seat: str) -> None:
         assert "t-ring.dxf" in files and "t-ring-profile.dxf" in files and "t-ring.svg" in files
 
 
+def test_an_edge_radius_as_large_as_the_ring_is_thick_is_drawn() -> None:
+    # the R1.5 takes the whole 1.5 mm face of the ring: no face line is left beside the arc, and the
+    # dimensioned sharp corner is where the tangents at the arc's ends meet (plane geometry)
+    resolved = _build(_with(BIMETAL, seat="outer diameter", thickness="1.5 mm", edge_radius="1.5 mm", hold_force="50 N",
+                            hold_torque="1000 N*mm"))
+    assert resolved.ok, resolved.failed
+    files = render_files(resolved, "t")
+    doc = ezdxf.read(io.StringIO(files["t-ring.dxf"].decode("utf-8")))
+    layouts = [doc.modelspace()] + [b for b in doc.blocks if not b.name.startswith("*")]
+    measured = [dim.get_measurement() for layout in layouts for dim in layout.query("DIMENSION")
+                if dim.dxf.dimtype & 7 in (0, 1)]
+    assert any(abs(m - 1.5) < 1e-9 for m in measured)  # the ring's thickness, to the radius's sharp corner
+
+
 def test_failed_ring_checks_name_the_feature_and_parameter() -> None:
     resolved = _build(_with(BIMETAL, safety_factor=9.0, hold_force="5000 N", max_delta_t="10 K"))
     failed = {(c.name, c.feature, c.parameter) for c in resolved.failed}

@@ -10,6 +10,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from ..builder import Resolved
+from ..catalog.finishes import callout
 from ..features.ring import BORE_LIMITS, width_limits
 from ..geometry import Arc, Profile
 from ..tolerances.iso286 import Limits
@@ -93,7 +94,8 @@ def ring_note_lines(fit, body_sheet: str = "", edge_radius_mm: float = 0.0) -> l
           f"pressing{where}; leave stock on it here"] if fit.seat == "outer diameter" else [])
 
 
-def ring_requests(profile: Profile, fit, general: str = "") -> list[DimensionRequest]:  # type: ignore[no-untyped-def]
+def ring_requests(profile: Profile, fit, general: str = "",  # type: ignore[no-untyped-def]
+                  rounded: tuple[tuple[tuple[float, float], float], ...] = ()) -> list[DimensionRequest]:
     """The ring's dimensions, settled into one chain from its outer face and the axis: the fit diameter
     with its limits and the other diameter (the section), the width from the outer face with its facing
     stock over the seat's depth under the general tolerance ``general`` (``ring.width_limits``), and each
@@ -116,7 +118,7 @@ def ring_requests(profile: Profile, fit, general: str = "") -> list[DimensionReq
     ]
     for arc in (s for s in profile.segments if isinstance(s, Arc)):
         wanted.append(radius_request(("ring.edge_radius",), arc, view="detail"))
-    settled, chain = settle(wanted, profile, z1)
+    settled, chain = settle(wanted, profile, z1, rounded)
     for c in chain.unlocated():  # nothing is left today; a new ring outline gets its positions all the same
         if not chain.z.located(c[0]):
             chain.tie("axial", c, (z1, c[1]))
@@ -254,7 +256,9 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     paper = PAPERS["A3"]
     frame = frame_of(paper)
     mid_x = frame[0] + 0.5 * (frame[2] - frame[0])
-    requests = ring_requests(part.profile, fit, d["shop"]["general_tolerance"])
+    outline = next(o for o in resolved.features["ring"].parts if o.name == part.name)
+    rounded = tuple((v.point, v.radius) for v in outline.corners if v.radius > 0)  # the corners its radii stand for
+    requests = ring_requests(part.profile, fit, d["shop"]["general_tolerance"], rounded)
     try:
         items, sview, dview, scale, dscale, left_off = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]),
                                                               False)
@@ -268,7 +272,7 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     m = fit.material
     notes = [material_line(m.name, m.designation, m.designation_source),
              *ring_note_lines(fit, body_sheet, resolved.values["ring.edge_radius"]),
-             f"Finish: {part.coating}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
+             f"Finish: {callout(part.coating)}. Edges ISO 13715 -{d['shop']['break_edges']:g} unless dimensioned; "
              f"fit surface Ra 0.8 µm",
              f"General tolerance {d['shop']['general_tolerance']} for sizes without their own. Dimensions in mm."]
     if left_off:  # a size with no room on the views is named with its value, never dropped unsaid
