@@ -43,3 +43,29 @@ def test_a_suiting_finish_builds(string_trick_text: str) -> None:
 def test_every_family_has_at_least_none() -> None:
     for m in MATERIALS.values():
         assert "none" in finishes_for(m.family)
+
+
+def _finish_note(text: str) -> str:
+    from yodraft.drawing.notes import SheetData, shop_lines
+
+    resolved = yodraft.build(yodraft.loads(text))
+    data = SheetData(30.0, 0.012, 6.3, 10000.0)
+    (note,) = [line for line in shop_lines(resolved, data) if line.startswith("Finish:")]
+    return note
+
+
+def test_the_finish_note_names_the_specification_it_is_done_to(string_trick_text: str) -> None:
+    # MIL-A-8625 (anodic coatings for aluminium and its alloys) is the specification type II anodize is done to
+    assert _finish_note(string_trick_text).startswith("Finish: anodize type II per MIL-A-8625, 5.1…25.4 µm ")
+
+
+def test_a_finish_that_builds_nothing_up_turns_the_seat_to_its_finished_sizes(string_trick_text: str) -> None:
+    # ASTM A967 passivation removes free iron and leaves no coating to allow for
+    text = set_key(set_key(string_trick_text, "design", "material", "304"), "shop", "coating", "passivate")
+    text = set_key(set_key(text, "shop", "coating_thickness", "0 mm"), "shop", "coating_thickness_max", "0 mm")
+    note = _finish_note(text)
+    assert note == "Finish: passivate per ASTM A967, no build-up; seat sizes are finished sizes"
+    from yodraft.textout import check_text
+
+    out = check_text(yodraft.build(yodraft.loads(text)))
+    assert "before coating" not in out and "bearing seat fit (finished sizes; no build-up)" in out

@@ -68,8 +68,11 @@ def check_text(resolved: Resolved) -> str:
              f"{v['bearing.width']:.4f} mm, {v['bearing.precision']}; material {v['material.name']} "
              f"({v['material.density_g_cm3']:.2f} g/cm³)", ""]
     fit = resolved.seat_fit
-    masked = d["shop"]["mask_seat"] or d["shop"]["coating"] == "none"
-    lines.append("bearing seat fit (finished sizes" + ("; seat masked or uncoated)" if masked else ")"))
+    shop = d["shop"]
+    why = ("uncoated" if shop["coating"] == "none" else "seat masked" if shop["mask_seat"]
+           else "no build-up" if max(shop["coating_thickness"], shop["coating_thickness_max"] or 0.0) == 0 else "")
+    masked = bool(why)  # the sizes are turned as they are finished
+    lines.append("bearing seat fit (finished sizes" + (f"; {why})" if why else ")"))
     for label, part in (("post", fit.post), ("wall bore", fit.wall)):
         precoat = "" if masked else f"turn to Ø{part.precoat_mm:.4f} ± {part.turn_tolerance_mm:.4f} before coating  "
         lines.append(f"  {label:<10} Ø{part.nominal_mm:.4f} ± {part.tolerance_mm:.4f} mm "

@@ -11,7 +11,7 @@ from dataclasses import dataclass
 from ..errors import DesignInputError
 from .materials import FAMILIES, lookup_material
 
-__all__ = ["Finish", "FINISHES", "suits", "finishes_for", "check_finish"]
+__all__ = ["Finish", "FINISHES", "suits", "finishes_for", "check_finish", "callout"]
 
 _METALS = tuple(f for f in FAMILIES if f != "polymer")
 
@@ -23,6 +23,18 @@ class Finish:
     name: str
     families: tuple[str, ...]
     source: str
+    #: the specification a finisher works to, named on the sheet ("" where there is none)
+    spec: str = ""
+
+
+def callout(name: str) -> str:
+    """How the sheet calls for a finish: its name and the specification it is done to, where there is one.
+
+    >>> callout("anodize type II"), callout("bead blast")
+    ('anodize type II per MIL-A-8625', 'bead blast')
+    """
+    spec = FINISHES[name].spec
+    return f"{name} per {spec}" if spec else name
 
 
 FINISHES: dict[str, Finish] = {
@@ -30,11 +42,16 @@ FINISHES: dict[str, Finish] = {
     for f in (
         Finish("none", FAMILIES, "no finish"),
         # sulphuric-acid anodizing converts the aluminium surface itself
-        Finish("anodize type II", ("aluminium alloy",), "MIL-A-8625 Type II, aluminium and its alloys"),
-        Finish("anodize type III", ("aluminium alloy",), "MIL-A-8625 Type III (hard coat), aluminium and its alloys"),
-        Finish("titanium anodize", ("titanium alloy",), "AMS 2488, anodic treatment of titanium and titanium alloys"),
-        Finish("passivate", ("stainless steel",), "ASTM A967, chemical passivation of stainless steel parts"),
-        Finish("electroless nickel", ("copper alloy", "stainless steel"), "ASTM B733, autocatalytic nickel-phosphorus on metal"),
+        Finish("anodize type II", ("aluminium alloy",), "MIL-A-8625 Type II, aluminium and its alloys",
+               "MIL-A-8625"),
+        Finish("anodize type III", ("aluminium alloy",), "MIL-A-8625 Type III (hard coat), aluminium and its alloys",
+               "MIL-A-8625"),
+        Finish("titanium anodize", ("titanium alloy",), "AMS 2488, anodic treatment of titanium and titanium alloys",
+               "AMS 2488"),
+        Finish("passivate", ("stainless steel",), "ASTM A967, chemical passivation of stainless steel parts",
+               "ASTM A967"),
+        Finish("electroless nickel", ("copper alloy", "stainless steel"), "ASTM B733, autocatalytic nickel-phosphorus on metal",
+               "ASTM B733"),
         # blasting leaves a polymer surface torn rather than matte  # common practice, no published source
         Finish("bead blast", _METALS, "glass-bead blasting of metal surfaces (common practice, no published source)"),
     )

@@ -6,6 +6,7 @@ from dataclasses import dataclass
 import math
 
 from ..builder import Resolved
+from ..catalog.finishes import callout
 from ..summary import back_wall_mm
 from ..tolerances.seat import DiameterFit
 from ..units import MM_PER_INCH as IN
@@ -137,12 +138,15 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     thick = shop["coating_thickness_max"] if shop["coating_thickness_max"] is not None else thin
     thickness = (f"{thin * 1000:.1f}…{thick * 1000:.1f} µm [{thin / IN:.4f}…{thick / IN:.4f} in]" if thick > thin
                  else f"{thin * 1000:.1f} µm")
+    finish = callout(shop["coating"])
     if shop["coating"] == "none":
         out.append("Finish: none; seat sizes are finished sizes")
+    elif thick == 0:  # a finish that builds nothing up (passivation, blasting): the sizes are turned as drawn
+        out.append(f"Finish: {finish}, no build-up; seat sizes are finished sizes")
     elif shop["mask_seat"]:
-        out.append(f"Finish: {shop['coating']} {thickness}; MASK post, seat face and wall bore")
+        out.append(f"Finish: {finish}, {thickness}; MASK post, seat face and wall bore")
     else:
-        out.append(f"Finish: {shop['coating']} {thickness}; seat sizes AFTER coating: turn post "
+        out.append(f"Finish: {finish}, {thickness}; seat sizes AFTER coating: turn post "
                    f"Ø{size_text(fit.post.precoat_mm)} ±{size_text(fit.post.turn_tolerance_mm)}, wall bore "
                    f"Ø{size_text(fit.wall.precoat_mm)} ±{size_text(fit.wall.turn_tolerance_mm)}")
     brk = shop["break_edges"]
