@@ -85,6 +85,19 @@ def test_gap_spread_agrees_with_its_rss() -> None:
     assert abs(lot["gap_out_share"] - out) <= _binomial_tolerance(out, 200_000)
 
 
+def test_a_wall_face_flush_with_the_seat_face_is_still_drawn_within_its_band() -> None:
+    # a wall offset of 0 is a size (the wall face flush with the seat face), not an absent one: the gap
+    # keeps both offsets' ±0.025 mm bands beside the bearing's width band
+    text = TEMPLATE.read_text(encoding="utf-8").replace('wall_offset = "0.2 mm"', 'wall_offset = "0 mm"')
+    design = _design(text)
+    lot = lot_summary(run_lot(design, units=200_000, seed=5, exact_sample=0))
+    width_half = 0.040 / 2  # ISO 492 P4 inner-ring width 0/−40 µm (2.5–10 mm bore)
+    offset_half = 0.025  # each wall offset takes half of the ±0.05 mm gap tolerance
+    sigma = math.sqrt(width_half**2 + 2 * offset_half**2) / 3
+    assert lot["gap_mm"]["sd"] == pytest.approx(sigma, rel=0.02)
+    assert lot["gap_mm"]["mean"] == pytest.approx(4.7625 - width_half, abs=4 * sigma / math.sqrt(200_000))
+
+
 def test_mass_spread_agrees_with_the_linear_model_rss() -> None:
     design = yodraft.load(TEMPLATE)
     result = run_lot(design, units=200_000, seed=5, exact_sample=8)

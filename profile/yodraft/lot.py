@@ -178,6 +178,11 @@ def _free_angle(resolved: Resolved) -> bool:
     return resolved.design.features["catch_zone"]["angle"] is not None and resolved.design.features["rim"]["band_width"] is None
 
 
+#: the bearing seat's own sizes, each drawn within its band in every lot even where its nominal is 0
+_SEAT_LINKS = ("bearing_seat.post_diameter", "bearing_seat.wall_bore", "bearing_seat.wall_offset",
+               "bearing_seat.spacing")
+
+
 def _dimension_bands(resolved: Resolved) -> tuple[list[Band], list[str]]:
     """Every length and angle of every feature, pinned at its resolved value, with its tolerance band."""
     v = resolved.values
@@ -200,8 +205,8 @@ def _dimension_bands(resolved: Resolved) -> tuple[list[Band], list[str]]:
             if short == "catch_zone.land" or (short == "catch_zone.angle" and not free_angle) or (
                     short == "rim.band_width" and free_angle):
                 continue  # follows from a dimension drawn instead (start diameter, rim band or angle)
-            if not isinstance(value, float) or value == 0.0:
-                continue  # absent (no hub, no radius)
+            if not isinstance(value, float) or (value == 0.0 and short not in _SEAT_LINKS):
+                continue  # absent (no hub, no radius); a seat link of 0 (a wall face flush with the seat face) is a size
             if short in ("bearing_seat.post_diameter", "bearing_seat.wall_bore"):
                 bands.append(Band(key, value, 0.0, machine, "shop.machine_tolerance"))
             elif short == "bearing_seat.wall_offset":
