@@ -16,6 +16,7 @@ from .design import Design, array_table, find_param, loads, with_values
 from .errors import DesignInputError
 from .params import SMALLEST, ParamSpec
 from .tomledit import add_revision, set_key
+from .units import DISPLAY_UNITS
 from .units import UnitError, parse_quantity
 
 __all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "quantity_text", "parse_target", "solved_text"]
@@ -56,6 +57,13 @@ def find_spec(key: str, source: str) -> tuple[list[str], ParamSpec]:
 def quantity_text(value: float, spec: ParamSpec) -> Any:
     """``value`` (base units) as a design-file value: a quantity string, or a plain number."""
     return spec.written(value)
+
+
+def _shown(value: float, spec: ParamSpec) -> str:
+    """``value`` (base units) for a message: to 4 decimals of its display unit, trailing zeros dropped (9.1867 mm)."""
+    div, unit, _ = DISPLAY_UNITS[spec.kind]
+    number = f"{value / div:.4f}".rstrip("0").rstrip(".")
+    return f"{number} {unit}".strip()
 
 
 def _current(design: Design, parts: list[str], spec: ParamSpec) -> float | None:
@@ -125,7 +133,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
             while True:
                 x = min(hi, max(lo + 1e-9 if not lo_closed else lo, x_prev + direction * h))
                 if x == x_prev:
-                    stops.append(f"its bound {quantity_text(edge, spec)}")
+                    stops.append(f"its bound {_shown(edge, spec)}")
                     break
                 if count >= max_evaluations:
                     stops.append(f"{max_evaluations} trials")
@@ -134,7 +142,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
                 if fx is None:
                     near_edge, h = True, h / 2
                     if h < 1e-6:
-                        stops.append(f"{quantity_text(x_prev, spec)}, beyond which the half no longer closes "
+                        stops.append(f"{_shown(x_prev, spec)}, beyond which the half no longer closes "
                                      "into a valid profile")
                         break
                     continue
@@ -148,7 +156,7 @@ def solve(design: Design, target: str, goal: float, key: str, max_evaluations: i
             assert best is not None
             unit = TARGET_UNITS[target]
             raise ValueError(f"no value of {key} reaches {target} {goal:g} {unit}: the closest is {best[2]:.4f} {unit} at "
-                             f"{quantity_text(best[1], spec)}; searching up stopped at {stops[0]}, "
+                             f"{_shown(best[1], spec)}; searching up stopped at {stops[0]}, "
                              f"down at {stops[1]}")
         side = 0
         while abs(fb) > tol and count < max_evaluations and abs(b - a) > 1e-12:
