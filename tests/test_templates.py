@@ -76,6 +76,16 @@ def test_new_writes_a_design_that_checks(tmp_path: Path, capsys: pytest.CaptureF
     assert main(["check", str(target)]) == 0
 
 
+def test_new_takes_its_own_title(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    target = tmp_path / "mine.toml"
+    assert main(["new", str(target), "-t", "string-trick", "--name", "my-ls56", "--title", "My first {half}"]) == 0
+    assert tomllib.loads(target.read_text(encoding="utf-8"))["design"]["title"] == "My first {half}"
+    capsys.readouterr()
+    assert main(["build", str(target), "-o", str(tmp_path / "out")]) == 0
+    sheet = (tmp_path / "out" / "my-ls56-A.dxf").read_text(encoding="utf-8")
+    assert "\nMy first {half}\n" in sheet  # the title block's text
+
+
 def test_new_dates_today_by_default(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
     import datetime
 

@@ -74,6 +74,7 @@ def _add_revising(sub: Any) -> None:
     p.add_argument("file", help="design file to create (never overwritten)")
     p.add_argument("-t", "--template", required=True, help="starter design name (see 'yodraft templates')")
     p.add_argument("--name", help="design.name of the new design (default: the template's)")
+    p.add_argument("--title", help="design.title for the title block (default: the template's)")
     p.add_argument("--date", help="date of issue, YYYY-MM-DD (default: today)")
     for field in ("owner", "creator", "approver", "identification"):
         p.add_argument(f"--{field}", default="", help=f"design.{field} for the title block (default: blank)")
@@ -261,7 +262,7 @@ def _new(args: argparse.Namespace) -> int:
     from .templates import PERSONAL, new_design
 
     people = {key: getattr(args, key) for key in PERSONAL}
-    print(new_design(Path(args.file), args.template, args.name, date=args.date, people=people))
+    print(new_design(Path(args.file), args.template, args.name, date=args.date, people=people, title=args.title))
     return 0
 
 

@@ -77,10 +77,10 @@ PERSONAL = ("owner", "creator", "approver", "identification")
 
 
 def new_design(path: Path, template: str, name: str | None = None, folder: Path | None = None, *,
-               date: str | None = None, people: Mapping[str, str] | None = None) -> Path:
+               date: str | None = None, people: Mapping[str, str] | None = None, title: str | None = None) -> Path:
     """Write a new design file at ``path`` from a template, refusing to overwrite anything.
 
-    ``name`` replaces the template's ``design.name`` (so output files do not clash). Nothing
+    ``name`` replaces the template's ``design.name`` (so output files do not clash), ``title`` its title. Nothing
     personal of the demo company is copied: owner, creator, approver and identification are blank
     unless ``people`` gives them, the date of issue is ``date`` (default today) and the revision
     history starts afresh with one entry for the template's revision on that date.
@@ -98,6 +98,8 @@ def new_design(path: Path, template: str, name: str | None = None, folder: Path 
     revision = loads(text, str(path)).revision
     if name is not None:
         text = set_key(text, "design", "name", name)
+    if title is not None:
+        text = set_key(text, "design", "title", title)
     for key in PERSONAL:
         text = set_key(text, "design", key, (people or {}).get(key) or "")
     text = set_key(text, "design", "date", date)
