@@ -16,8 +16,7 @@ from .design import Design, array_table, find_param, loads, with_values
 from .errors import DesignInputError
 from .params import SMALLEST, ParamSpec
 from .tomledit import add_revision, set_key
-from .units import DISPLAY_UNITS
-from .units import UnitError, parse_quantity
+from .units import DISPLAY_UNITS, UnitError, parse_quantity
 
 __all__ = ["TARGETS", "SolveResult", "solve", "find_spec", "quantity_text", "parse_target", "solved_text"]
 

@@ -27,7 +27,7 @@ from dataclasses import replace
 from typing import Any
 
 from ..geometry import Arc, Line, Point, Profile
-from .locate import tangent_corner, intersection
+from .locate import intersection
 
 __all__ = ["Chain", "corners_of", "settle"]
 
@@ -52,22 +52,12 @@ def _smooth(a: Line | Arc, b: Line | Arc) -> bool:
 def _fillet_corners(segs: tuple[Line | Arc, ...], rounded: tuple[tuple[Point, float], ...]) -> dict[int, Point]:
     """The sharp corner each fillet next to an arc edge stands for: the rounded corner (point, radius) of that
     radius whose point is nearest the arc's centre, where that arc is also the arc of that radius nearest the
-    point (a sketch's corner radius where a curved edge meets another edge). A fillet that took the whole of
-    one of its edges (it meets the edge beyond with a kink) stands for the rounded corner where the tangents
-    at its two ends meet."""
+    point (a sketch's corner radius where a curved edge meets another edge)."""
     out: dict[int, Point] = {}
     n = len(segs)
     for i, s in enumerate(segs):
         a, b = segs[i - 1], segs[(i + 1) % n]
-        if not isinstance(s, Arc):
-            continue
-        if _smooth(a, s) != _smooth(s, b):
-            tip = tangent_corner(s)
-            hit = [p for p, r in rounded if tip is not None and abs(r - s.radius) < 1e-9 and math.dist(p, tip) < EPS]
-            if hit:
-                out[i] = hit[0]
-            continue
-        if not (_smooth(a, s) and _smooth(s, b)):
+        if not isinstance(s, Arc) or not (_smooth(a, s) and _smooth(s, b)):
             continue
         same = [(p, r) for p, r in rounded if abs(r - s.radius) < 1e-9]
         if not same:
@@ -98,10 +88,8 @@ def corners_of(profile: Profile,
         sharp = {**_fillet_corners(segs, rounded), **sharp}
     for i, s in enumerate(segs):
         if i in sharp:
-            if not _smooth(segs[i - 1], s):  # a fillet that took the whole edge before it: its start is a corner too
-                points.append(s.start)
             points.append(sharp[i])
-        elif (i - 1) % n not in sharp or not _smooth(segs[i - 1], s):
+        elif (i - 1) % n not in sharp:
             points.append(s.start)
     edges = [(points[k], points[(k + 1) % len(points)]) for k in range(len(points))]
     return points, edges

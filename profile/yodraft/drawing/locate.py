@@ -6,7 +6,7 @@ import math
 from ..checks import DATUM_TOL
 from ..geometry import Arc, Line, Point, Profile
 
-__all__ = ["LocateError", "Outline", "outline_of", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "intersection", "tangent_corner", "TOL"]
+__all__ = ["LocateError", "Outline", "outline_of", "on_radius", "on_face", "corner", "sharp_corner", "arc_at", "intersection", "TOL"]
 
 #: how near (mm) a point must lie to be on an edge: the datum-face check's own, so a loop it passes has a face B here
 TOL = DATUM_TOL
@@ -98,14 +98,14 @@ def sharp_corner(profile: Profile | Outline, near: Point) -> Point:
     if best is None or math.dist(best, near) > 1e-4:
         # a fillet that takes the whole of an edge (a ring's edge radius as large as its thickness) has no line
         # left on that side: its sharp corner is where the tangents at the arc's own two ends meet
-        tips = [tangent_corner(s) for s in segs if isinstance(s, Arc)]
+        tips = [_tangent_corner(s) for s in segs if isinstance(s, Arc)]
         best = min((p for p in tips if p is not None), key=lambda p: math.dist(p, near), default=None)
     if best is None or math.dist(best, near) > 1e-4:
         raise LocateError(f"no corner at {near}")
     return best
 
 
-def tangent_corner(arc: Arc) -> Point | None:
+def _tangent_corner(arc: Arc) -> Point | None:
     """Where the tangents at the arc's two ends meet, on the bisector of its sweep; None for a half turn or more."""
     half = abs(arc.sweep) / 2
     if half >= math.pi / 2 - 1e-9:

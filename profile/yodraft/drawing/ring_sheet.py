@@ -94,8 +94,7 @@ def ring_note_lines(fit, body_sheet: str = "", edge_radius_mm: float = 0.0) -> l
           f"pressing{where}; leave stock on it here"] if fit.seat == "outer diameter" else [])
 
 
-def ring_requests(profile: Profile, fit, general: str = "",  # type: ignore[no-untyped-def]
-                  rounded: tuple[tuple[tuple[float, float], float], ...] = ()) -> list[DimensionRequest]:
+def ring_requests(profile: Profile, fit, general: str = "") -> list[DimensionRequest]:  # type: ignore[no-untyped-def]
     """The ring's dimensions, settled into one chain from its outer face and the axis: the fit diameter
     with its limits and the other diameter (the section), the width from the outer face with its facing
     stock over the seat's depth under the general tolerance ``general`` (``ring.width_limits``), and each
@@ -118,7 +117,7 @@ def ring_requests(profile: Profile, fit, general: str = "",  # type: ignore[no-u
     ]
     for arc in (s for s in profile.segments if isinstance(s, Arc)):
         wanted.append(radius_request(("ring.edge_radius",), arc, view="detail"))
-    settled, chain = settle(wanted, profile, z1, rounded)
+    settled, chain = settle(wanted, profile, z1)
     for c in chain.unlocated():  # nothing is left today; a new ring outline gets its positions all the same
         if not chain.z.located(c[0]):
             chain.tie("axial", c, (z1, c[1]))
@@ -256,9 +255,7 @@ def compose_ring(resolved: Resolved, data: SheetData, name: str = "ring", body_s
     paper = PAPERS["A3"]
     frame = frame_of(paper)
     mid_x = frame[0] + 0.5 * (frame[2] - frame[0])
-    outline = next(o for o in resolved.features["ring"].parts if o.name == part.name)
-    rounded = tuple((v.point, v.radius) for v in outline.corners if v.radius > 0)  # the corners its radii stand for
-    requests = ring_requests(part.profile, fit, d["shop"]["general_tolerance"], rounded)
+    requests = ring_requests(part.profile, fit, d["shop"]["general_tolerance"])
     try:
         items, sview, dview, scale, dscale, left_off = _views(part, font, requests, (frame[0], frame[1], mid_x, frame[3]),
                                                               False)
