@@ -4,6 +4,7 @@ from __future__ import annotations
 import math
 
 from .builder import Resolved
+from .catalog.finishes import seat_turned_finished
 from .units import MM_PER_INCH, is_dimension
 
 __all__ = ["check_text", "mass_lines", "failed_lines", "fit_text", "ring_lines"]
@@ -68,13 +69,10 @@ def check_text(resolved: Resolved) -> str:
              f"{v['bearing.width']:.4f} mm, {v['bearing.precision']}; material {v['material.name']} "
              f"({v['material.density_g_cm3']:.2f} g/cm³)", ""]
     fit = resolved.seat_fit
-    shop = d["shop"]
-    why = ("uncoated" if shop["coating"] == "none" else "seat masked" if shop["mask_seat"]
-           else "no build-up" if max(shop["coating_thickness"], shop["coating_thickness_max"] or 0.0) == 0 else "")
-    masked = bool(why)  # the sizes are turned as they are finished
+    why = seat_turned_finished(d["shop"])  # why the seat is turned to its finished sizes, if it is
     lines.append("bearing seat fit (finished sizes" + (f"; {why})" if why else ")"))
     for label, part in (("post", fit.post), ("wall bore", fit.wall)):
-        precoat = "" if masked else f"turn to Ø{part.precoat_mm:.4f} ± {part.turn_tolerance_mm:.4f} before coating  "
+        precoat = "" if why else f"turn to Ø{part.precoat_mm:.4f} ± {part.turn_tolerance_mm:.4f} before coating  "
         lines.append(f"  {label:<10} Ø{part.nominal_mm:.4f} ± {part.tolerance_mm:.4f} mm "
                      f"[{part.nominal_mm / MM_PER_INCH:.4f} ± {part.tolerance_mm / MM_PER_INCH:.4f} in]  {precoat}"
                      f"clearance {part.clearance_min_mm * 1000:.1f} to {part.clearance_max_mm * 1000:.1f} µm worst case, "

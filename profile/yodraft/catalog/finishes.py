@@ -6,12 +6,14 @@ stainless steels their own finishes, polymers none.
 """
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
+from typing import Any
 
 from ..errors import DesignInputError
 from .materials import FAMILIES, lookup_material
 
-__all__ = ["Finish", "FINISHES", "suits", "finishes_for", "check_finish", "callout"]
+__all__ = ["Finish", "FINISHES", "suits", "finishes_for", "check_finish", "callout", "seat_turned_finished"]
 
 _METALS = tuple(f for f in FAMILIES if f != "polymer")
 
@@ -35,6 +37,14 @@ def callout(name: str) -> str:
     """
     spec = FINISHES[name].spec
     return f"{name} per {spec}" if spec else name
+
+
+def seat_turned_finished(shop: Mapping[str, Any]) -> str:
+    """Why the bearing seat is turned to its finished sizes ("uncoated", "no build-up", "seat masked"), or ""
+    when it is turned to pre-coat sizes and the finish brings it to size."""
+    thickest = max(shop["coating_thickness"], shop["coating_thickness_max"] or 0.0)
+    return ("uncoated" if shop["coating"] == "none" else "no build-up" if thickest == 0
+            else "seat masked" if shop["mask_seat"] else "")
 
 
 FINISHES: dict[str, Finish] = {

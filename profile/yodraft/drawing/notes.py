@@ -6,7 +6,7 @@ from dataclasses import dataclass
 import math
 
 from ..builder import Resolved
-from ..catalog.finishes import callout
+from ..catalog.finishes import callout, seat_turned_finished
 from ..summary import back_wall_mm
 from ..tolerances.seat import DiameterFit
 from ..units import MM_PER_INCH as IN
@@ -138,12 +138,12 @@ def shop_lines(resolved: Resolved, data: SheetData) -> list[str]:
     thick = shop["coating_thickness_max"] if shop["coating_thickness_max"] is not None else thin
     thickness = (f"{thin * 1000:.1f}…{thick * 1000:.1f} µm [{thin / IN:.4f}…{thick / IN:.4f} in]" if thick > thin
                  else f"{thin * 1000:.1f} µm")
-    finish = callout(shop["coating"])
-    if shop["coating"] == "none":
+    finish, why = callout(shop["coating"]), seat_turned_finished(shop)
+    if why == "uncoated":
         out.append("Finish: none; seat sizes are finished sizes")
-    elif thick == 0:  # a finish that builds nothing up (passivation, blasting): the sizes are turned as drawn
+    elif why == "no build-up":  # passivation, blasting: the sizes are turned as drawn
         out.append(f"Finish: {finish}, no build-up; seat sizes are finished sizes")
-    elif shop["mask_seat"]:
+    elif why == "seat masked":
         out.append(f"Finish: {finish}, {thickness}; MASK post, seat face and wall bore")
     else:
         out.append(f"Finish: {finish}, {thickness}; seat sizes AFTER coating: turn post "
